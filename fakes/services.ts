@@ -685,7 +685,7 @@ export async function serviceStatus(opts: Pick<ServiceOptions, "only"> = {}): Pr
           running: accepting,
           pid: info?.pid ?? null,
           ports: [config.pg.port],
-          detail: info === null ? "stopped" : accepting ? config.DATABASE_URL : `pid ${info.pid} but not accepting connections on ${config.pg.port}`,
+          detail: info === null ? `${config.DATABASE_URL} (not running)` : accepting ? config.DATABASE_URL : `pid ${info.pid} but not accepting connections on ${config.pg.port}`,
         };
       }
       const service = services[name];
@@ -697,7 +697,7 @@ export async function serviceStatus(opts: Pick<ServiceOptions, "only"> = {}): Pr
         running: open,
         pid,
         ports: service.ports,
-        detail: pid === null ? "stopped" : open ? where : `pid ${pid} but ports ${service.ports.join(", ")} not open`,
+        detail: pid === null ? `${where} (not running)` : open ? where : `pid ${pid} but ports ${service.ports.join(", ")} not open`,
       };
     }),
   );
