@@ -25,8 +25,8 @@
 // interval of rank R, plus undivided intervals of a shallower rank (leaves such as the Hadean or
 // the Precambrian periods), plus intervals of a deeper rank whose parent is shallower than R
 // (a rank skipped, e.g. an age directly under a period). That cut must tile the chart without
-// gaps or overlaps. Pairs of siblings are left to the sibling rules, and a pair is reported once,
-// at the shallowest rank where it occurs.
+// gaps or overlaps. A seam (an older top meeting a younger base) already reported by the sibling
+// rules is not repeated, and any other seam is reported once, at the shallowest rank showing it.
 //
 // Numbers are compared as written, to 1e-9 Ma (see numbers.ts).
 
@@ -160,7 +160,7 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
     else childrenOf.set(p, [c]);
   }
   const olderFirst = (a: Interval, b: Interval) => b.baseMa - a.baseMa || a.order - b.order;
-  const siblingPairs = new Set<string>();
+  const siblingSeams = new Set<string>();
   for (const [p, kids] of childrenOf) {
     kids.sort(olderFirst);
     const first = kids[0];
@@ -189,7 +189,7 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
           first,
           "approximate",
           "boundary-consistency",
-          `base is ${first.approximate ? "" : "not "}marked approximate (~) but the same boundary (${fmtMa(p.baseMa)} Ma) of its parent "${p.name}" is ${p.approximate ? "" : "not "}`,
+          `base is ${first.approximate ? "" : "not "}marked approximate (~) but the same boundary (${fmtMa(p.baseMa)} Ma) of its parent "${p.name}" is${p.approximate ? "" : " not"}`,
         );
       }
       if (first.gssp !== p.gssp) {
@@ -212,7 +212,7 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
     for (let i = 1; i < kids.length; i++) {
       const older = kids[i - 1];
       const younger = kids[i];
-      siblingPairs.add(pairKey(older, younger));
+      siblingSeams.add(seamKey(older, younger));
       seam(older, younger, `under "${p.name}"`, "sibling-gap", "sibling-overlap");
     }
   }
@@ -239,7 +239,7 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
   }
 
   // --- within each rank, across the whole chart -----------------------------------------------
-  const reportedPairs = new Set<string>();
+  const reportedSeams = new Set<string>();
   for (let level = 0; level < RANKS.length; level++) {
     const cut: Interval[] = [];
     for (const iv of intervals) {
@@ -255,10 +255,10 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
     for (let i = 1; i < cut.length; i++) {
       const older = cut[i - 1];
       const younger = cut[i];
-      const key = pairKey(older, younger);
-      if (siblingPairs.has(key) || reportedPairs.has(key)) continue;
       if (sameMa(older.topMa, younger.baseMa)) continue;
-      reportedPairs.add(key);
+      const key = seamKey(older, younger);
+      if (siblingSeams.has(key) || reportedSeams.has(key)) continue;
+      reportedSeams.add(key);
       seam(older, younger, `at ${RANKS[level]} rank`, "rank-gap", "rank-overlap");
     }
   }
@@ -281,6 +281,8 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
   return problems;
 }
 
-function pairKey(a: Interval, b: Interval): string {
-  return `${a.name}\u0000${b.name}`;
+/** A seam is where an older interval's top meets a younger one's base; the same two ages are
+ *  the same place in the chart, whichever intervals meet there at whichever rank. */
+function seamKey(older: Interval, younger: Interval): string {
+  return `${round9(older.topMa)}|${round9(younger.baseMa)}`;
 }

@@ -17,7 +17,10 @@ export function sameMa(a: number, b: number): boolean {
 
 /** Format an age for messages: "23.03", "0.0117", "4567". */
 export function fmtMa(x: number): string {
-  return Number.isFinite(x) ? String(round9(x)) : String(x);
+  if (!Number.isFinite(x)) return String(x);
+  const r = round9(x);
+  const s = String(r);
+  return s.includes("e") ? r.toFixed(9).replace(/0+$/, "").replace(/\.$/, "") : s;
 }
 
 export function fmtUncertainty(u: number | null): string {
