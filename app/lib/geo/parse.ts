@@ -176,10 +176,17 @@ export function parseGpxRoute(
   if (typeof text !== "string" || text.trim() === "") {
     return { ok: false, issues: [{ path: basePath, message: "The GPX document is empty." }] };
   }
-  const Parser: DomParserCtor = options.DOMParser ?? (XmlDomParser as unknown as DomParserCtor);
   let doc: unknown;
   try {
-    doc = new Parser().parseFromString(text, "text/xml");
+    const parser = options.DOMParser
+      ? new options.DOMParser()
+      : new XmlDomParser({
+          // errors become the message below instead of console output; warnings are ignored
+          onError: (level, msg) => {
+            if (level !== "warning") throw new Error(msg.trim());
+          },
+        });
+    doc = parser.parseFromString(text, "text/xml");
   } catch (err) {
     return {
       ok: false,
