@@ -277,5 +277,6 @@ export function parseCsv(text: string, options: ImportOptions = {}): CsvParseRes
   }
 
   if (rowsValid && options.check !== false) problems.push(...check(intervals, { lines }));
+  problems.sort((a, b) => (a.line ?? 0) - (b.line ?? 0)); // stable: file order, then rule order
   return { intervals, problems, lines };
 }
