@@ -217,7 +217,7 @@ const CORRECTIONS_2023_09: Correction[] = [
   ),
 ];
 
-interface EditionSpec {
+export interface EditionSpec {
   file: string;
   versionInfo: string;
   out: string;
@@ -228,7 +228,7 @@ interface EditionSpec {
 const LICENCE = (year: number) =>
   `CC BY 4.0 — Creative Commons Attribution 4.0 International (https://creativecommons.org/licenses/by/4.0/), as stated in the data file; (c) International Commission on Stratigraphy, ${year}. Corrections by Eonscale are listed in edition.corrections.`;
 
-const EDITIONS: EditionSpec[] = [
+export const EDITIONS: EditionSpec[] = [
   {
     file: F2024,
     versionInfo: "2024-12",
