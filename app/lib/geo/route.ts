@@ -201,6 +201,8 @@ export function positionAt(route: PreparedRoute, distanceMetres: number, segment
   const dy = y2 - y1;
   const dz = z2 - z1;
   const c = Math.hypot(dx, dy, dz);
+  if (along <= 0) return { distanceMetres: d, lon: lon1, lat: lat1, bearing: chordBearing(lat1, lon1, dx, dy, dz, c), segment: i };
+  if (along >= segLen) return { distanceMetres: d, lon: lon2, lat: lat2, bearing: chordBearing(lat2, lon2, dx, dy, dz, c), segment: i };
   if (c >= CHORD_LIMIT_M) {
     const azi1 = longSegmentAzimuth(route, i);
     const r = geodesicDirect(lat1, lon1, azi1, along);
@@ -217,22 +219,21 @@ export function positionAt(route: PreparedRoute, distanceMetres: number, segment
     t = (Math.tan(u * theta) / Math.tan(theta) + 1) / 2;
   }
   const [lat, lonRaw] = geodetic(x1 + t * dx, y1 + t * dy, z1 + t * dz);
-  // bearing: chord direction in the local east/north frame at the point
-  let bearing: number;
-  if (c > 0) {
-    const phi = lat * DEG;
-    const lam = lonRaw * DEG;
-    const sp = Math.sin(phi);
-    const cp = Math.cos(phi);
-    const sl = Math.sin(lam);
-    const cl = Math.cos(lam);
-    const east = -sl * dx + cl * dy;
-    const north = -sp * cl * dx - sp * sl * dy + cp * dz;
-    bearing = normalizeAzimuth(Math.atan2(east, north) / DEG);
-  } else {
-    bearing = 0;
-  }
-  return { distanceMetres: d, lon: normalizeLon(lonRaw), lat, bearing, segment: i };
+  return { distanceMetres: d, lon: normalizeLon(lonRaw), lat, bearing: chordBearing(lat, lonRaw, dx, dy, dz, c), segment: i };
+}
+
+/** Direction of the chord (dx, dy, dz) in the local east/north frame at (lat, lon), degrees from north. */
+function chordBearing(lat: number, lon: number, dx: number, dy: number, dz: number, c: number): number {
+  if (!(c > 0)) return 0;
+  const phi = lat * DEG;
+  const lam = lon * DEG;
+  const sp = Math.sin(phi);
+  const cp = Math.cos(phi);
+  const sl = Math.sin(lam);
+  const cl = Math.cos(lam);
+  const east = -sl * dx + cl * dy;
+  const north = -sp * cl * dx - sp * sl * dy + cp * dz;
+  return normalizeAzimuth(Math.atan2(east, north) / DEG);
 }
 
 /**

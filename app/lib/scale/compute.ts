@@ -17,7 +17,7 @@ import {
   type MediumType,
   type SuggestedInset,
 } from "./legibility";
-import { displayStep, labelUnit, mediumResolution, roundAtStep, type RoundingBasis } from "./rounding";
+import { decadeFloor, displayStep, labelUnit, mediumResolution, roundAtStep, type RoundingBasis } from "./rounding";
 import type { ScaleRequest } from "./schema";
 
 /** FHWA-RD-98-107: 1.2 m/s walking design speed. */
@@ -169,7 +169,8 @@ function label(
   const b = roundAtStep(fromYounger, step.stepMetres, u);
   let unc: string | null = null;
   if (step.uncertaintyMetres !== null) {
-    unc = `± ${roundAtStep(step.uncertaintyMetres, step.stepMetres, u).text}`;
+    // the uncertainty keeps its own significant figure even when the medium's resolution is coarser
+    unc = `± ${roundAtStep(step.uncertaintyMetres, Math.min(step.stepMetres, decadeFloor(step.uncertaintyMetres)), u).text}`;
   }
   return { fromOlderEnd: a.text, fromYoungerEnd: b.text, uncertainty: unc, stepMetres: clean(step.stepMetres), basis: step.basis };
 }

@@ -27,11 +27,15 @@ export interface DisplayStep {
 }
 
 /** Largest power of ten ≤ x (x > 0). */
+export function pow10(k: number): number {
+  return k >= 0 ? 10 ** k : 1 / 10 ** -k; // 1/10⁴ is exactly rounded; 10 ** −4 may not be
+}
+
 export function decadeFloor(x: number): number {
-  let d = 10 ** Math.floor(Math.log10(x));
+  let d = pow10(Math.floor(Math.log10(x)));
   // guard against log10 rounding (e.g. log10(1000) = 2.9999999999999996)
-  if (d * 10 <= x * (1 + 1e-12)) d *= 10;
-  if (d > x * (1 + 1e-12)) d /= 10;
+  if (d * 10 <= x * (1 + 1e-12)) d = Number((d * 10).toPrecision(1));
+  if (d > x * (1 + 1e-12)) d = Number((d / 10).toPrecision(1));
   return d;
 }
 
@@ -40,10 +44,10 @@ export function oneSignificantFigure(x: number): [number, number] {
   let q = decadeFloor(x);
   let r = Math.round(x / q);
   if (r >= 10) {
-    q *= 10;
+    q = Number((q * 10).toPrecision(1));
     r = 1;
   }
-  return [r * q, q];
+  return [Number((r * q).toPrecision(1)), q];
 }
 
 /** Decade at or below the smallest visible length: the medium's resolution. */
