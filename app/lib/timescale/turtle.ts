@@ -248,23 +248,24 @@ export function parseTurtle(text: string, options: TurtleOptions = {}): TurtlePa
     });
   }
 
-  // skos:narrower must be the inverse of skos:broader.
+  // skos:narrower must be the inverse of skos:broader. Reported on the child, whose parent is
+  // in question (the parent is read from skos:broader).
   const includedIris = new Set(included.map((c) => c.value));
+  const lineOfIri = (iri: string) => subjectLines.get(iri) ?? 0;
   for (const c of included) {
-    const name = nameOfIri.get(c.value)!;
-    const line = subjectLines.get(c.value) ?? 0;
+    const parentName = nameOfIri.get(c.value)!;
     const narrower = new Set(objects(c, SKOS + "narrower").map((o) => o.value).filter((i) => includedIris.has(i)));
     const viaBroader = new Set(
       store.getSubjects(namedNode(SKOS + "broader"), c, null).map((s) => s.value).filter((i) => includedIris.has(i)),
     );
     for (const n of narrower) {
       if (!viaBroader.has(n)) {
-        problems.push({ interval: name, field: "parent", rule: "source", line, message: `lists ${nameOfIri.get(n)} as skos:narrower, but ${nameOfIri.get(n)} does not name it as skos:broader` });
+        problems.push({ interval: nameOfIri.get(n)!, field: "parent", rule: "source", line: lineOfIri(n), message: `is listed as skos:narrower of "${parentName}", but its skos:broader does not name "${parentName}"` });
       }
     }
     for (const n of viaBroader) {
       if (!narrower.has(n)) {
-        problems.push({ interval: name, field: "parent", rule: "source", line, message: `is the skos:broader of ${nameOfIri.get(n)}, but does not list it as skos:narrower` });
+        problems.push({ interval: nameOfIri.get(n)!, field: "parent", rule: "source", line: lineOfIri(n), message: `names "${parentName}" as skos:broader, but "${parentName}" does not list it as skos:narrower` });
       }
     }
   }
