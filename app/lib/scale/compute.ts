@@ -5,7 +5,7 @@
 import { parseGeoJsonRoute, parseGpxRoute } from "../geo/parse";
 import { positionsAt, prepareRoute, type PreparedRoute } from "../geo/route";
 import { clean, toMetres, toYears, type LengthUnit } from "../units";
-import { formatDuration, formatLengthSig, formatYears, scaleStatement, type ScaleStatement } from "./format";
+import { formatDuration, formatFixed, formatLengthSig, formatYears, scaleStatement, type ScaleStatement } from "./format";
 import {
   findCrowded,
   insetLabel,
@@ -291,7 +291,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
       seconds: clean(seconds),
       accessibleSeconds: clean(accessibleSeconds),
       steps,
-      text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${accessibleSpeed} m/s), about ${steps.toLocaleString("en-US")} steps`,
+      text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${accessibleSpeed} m/s), about ${formatFixed(steps, 0)} steps`,
     };
   };
   if (route) {
