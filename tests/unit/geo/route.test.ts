@@ -81,6 +81,14 @@ describe("route length and marker positions vs GeographicLib", () => {
     });
   }
 
+  it("vertices exactly at the poles, repeated vertices and long segments across the antimeridian", () => {
+    const c = [0, 89.99, 0, 90, 120, 89.99, 120, 89.99, -60, 89.0, 179.99, 0, -179.99, 0.001, 0, -90, 45, -89.9];
+    const r = compare(c, 200);
+    expect(r.route.longSegments).toBe(4);
+    expect(r.mmPerKm).toBeLessThan(1e-6); // GeographicLib
+    expect(r.worst).toBeLessThan(1e-6); // GeographicLib
+  });
+
   it("near-antipodal long segments", () => {
     const r = compare([0, 0, 179.7, 0.3, -0.1, 0.2], 50);
     expect(r.route.longSegments).toBe(2);
