@@ -1,0 +1,44 @@
+import { useId } from "react";
+
+export function Field({
+  label,
+  name,
+  error,
+  hint,
+  ...input
+}: { label: string; name: string; error?: string; hint?: string } & React.InputHTMLAttributes<HTMLInputElement>) {
+  const id = useId();
+  const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(" ") || undefined;
+  return (
+    <div className="mb-4">
+      <label htmlFor={id} className="mb-1 block text-sm font-semibold">
+        {label}
+      </label>
+      {hint ? (
+        <p id={`${id}-hint`} className="mb-1 font-sans text-sm text-ink-soft">
+          {hint}
+        </p>
+      ) : null}
+      <input id={id} name={name} className="field" aria-invalid={error ? true : undefined} aria-describedby={describedBy} {...input} />
+      {error ? (
+        <p id={`${id}-error`} className="mt-1 font-sans text-sm text-danger">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+export function FormMessage({ kind = "error", children }: { kind?: "error" | "success" | "info"; children: React.ReactNode }) {
+  if (!children) return null;
+  const styles = {
+    error: "border-danger bg-red-50 text-danger",
+    success: "border-ok bg-green-50 text-ok",
+    info: "border-slate-river-500 bg-slate-river-100 text-slate-river-700",
+  }[kind];
+  return (
+    <div role={kind === "error" ? "alert" : "status"} className={`mb-4 rounded border-l-4 p-3 font-sans text-sm ${styles}`}>
+      {children}
+    </div>
+  );
+}

@@ -1,0 +1,87 @@
+import { Link } from "react-router";
+import { ROLE_LABELS, ROLE_SUMMARIES, type Role } from "~/lib/roles";
+import { requireMember } from "#server/auth.ts";
+import { Invitation, Membership } from "#db/models/index.ts";
+import { Op } from "sequelize";
+import type { Route } from "./+types/home";
+
+export const meta: Route.MetaFunction = () => [{ title: "Studio · Eonscale" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const member = await requireMember(request);
+  const url = new URL(request.url);
+  const orgId = member.organisation.id;
+  const [members, pending] = await Promise.all([
+    Membership.count({ where: { organisationId: orgId } }),
+    Invitation.count({ where: { organisationId: orgId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } } }),
+  ]);
+  return {
+    name: member.user.name,
+    organisation: member.organisation.name,
+    role: member.role,
+    welcome: url.searchParams.get("welcome") === "1",
+    counts: { members, pending },
+  };
+}
+
+interface NextStep {
+  title: string;
+  text: string;
+  to?: string;
+  cta?: string;
+  soon?: boolean;
+}
+
+function stepsFor(role: Role, counts: { members: number; pending: number }): NextStep[] {
+  switch (role) {
+    case "admin":
+      return [
+        counts.members <= 1
+          ? { title: "Invite your team", text: "Nobody else is here yet. Invite a designer to compose exhibits and a reviewer to check them.", to: "/studio/team", cta: "Invite people" }
+          : { title: "Your team", text: `${counts.members} members${counts.pending ? `, ${counts.pending} invitation${counts.pending === 1 ? "" : "s"} waiting` : ""}. Change roles or invite someone new.`, to: "/studio/team", cta: "Open the team page" },
+        { title: "Keep the four-eyes rule workable", text: "A reviewer cannot approve an exhibit they edited, so keep at least two people who can review." },
+      ];
+    case "designer":
+      return [
+        { title: "Start your first exhibit", text: "Choose a span of the timescale, a medium — a length such as a wall or rope, or a real route as GeoJSON or GPX — and place the markers.", soon: true },
+        { title: "Try the scale engine now", text: "POST a span, a length or route and some ages to /api/scale to see distances, uncertainties and legibility warnings (see the README)." },
+      ];
+    case "reviewer":
+      return [
+        { title: "Nothing is waiting for review", text: "When a designer submits an exhibit, it appears here with the automatic checks already run against its pinned chart edition.", soon: true },
+      ];
+    case "editor":
+      return [
+        { title: "Chart editions", text: "Import, check and compare editions of the International Chronostratigraphic Chart, and make one current. Exhibits pinned to an older edition will be flagged for re-checking.", soon: true },
+        { title: "Dated-event library", text: "Events that are not boundaries — oldest mineral grains, first land plants — each with age, uncertainty and citation.", soon: true },
+      ];
+  }
+}
+
+export default function StudioHome({ loaderData }: Route.ComponentProps) {
+  const { name, organisation, role, welcome, counts } = loaderData;
+  return (
+    <div>
+      {welcome ? (
+        <p role="status" className="mb-6 rounded border-l-4 border-ok bg-green-50 p-3 font-sans text-sm text-ok">
+          Welcome to {organisation}. You have joined as {ROLE_LABELS[role].toLowerCase()}.
+        </p>
+      ) : null}
+      <h1 className="text-3xl">Good to see you, {name.split(" ")[0]}</h1>
+      <p className="mt-2 text-ink-soft">
+        {organisation} · {ROLE_LABELS[role]} — {ROLE_SUMMARIES[role]}
+      </p>
+      <h2 className="mt-8 text-xl">What you can do next</h2>
+      <ul className="mt-4 grid gap-4 md:grid-cols-2">
+        {stepsFor(role, counts).map((s) => (
+          <li key={s.title} className="card">
+            <h3 className="text-lg">{s.title}</h3>
+            <p className="mt-2 text-ink-soft">{s.text}</p>
+            {s.to ? <Link to={s.to} className="btn-quiet mt-4 no-underline">{s.cta}</Link> : null}
+            {s.soon ? <p className="mt-3 font-sans text-xs uppercase tracking-wide text-sandstone-700">Arriving in the studio soon</p> : null}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}

@@ -1,0 +1,47 @@
+// umzug runners: one for schema migrations (table migration_meta), one each for the reference-data
+// and demo seeders (table seeder_meta, names prefixed by their folder).
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import type { QueryInterface, Sequelize } from "sequelize";
+import { SequelizeStorage, Umzug } from "umzug";
+import { sequelize as defaultSequelize } from "./sequelize.ts";
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+
+export interface MigrationContext {
+  sequelize: Sequelize;
+  queryInterface: QueryInterface;
+}
+
+function runner(folder: string, modelName: string, db: Sequelize, quiet: boolean) {
+  return new Umzug<MigrationContext>({
+    migrations: {
+      glob: ["*.ts", { cwd: path.join(here, folder), ignore: ["*.d.ts", "*.test.ts"] }],
+      resolve: ({ name, path: file, context }) => ({
+        name: folder === "migrations" ? name : `${folder}/${name}`,
+        up: async () => (await import(file!)).up(context),
+        down: async () => (await import(file!)).down?.(context),
+      }),
+    },
+    context: { sequelize: db, queryInterface: db.getQueryInterface() },
+    storage: new SequelizeStorage({ sequelize: db, modelName, tableName: modelName }),
+    logger: quiet ? undefined : console,
+  });
+}
+
+export function migrator(db: Sequelize = defaultSequelize, quiet = false) {
+  return runner("migrations", "migration_meta", db, quiet);
+}
+
+export function seeder(kind: "reference" | "demo", db: Sequelize = defaultSequelize, quiet = false) {
+  return runner(path.join("seeders", kind), "seeder_meta", db, quiet);
+}
+
+export async function migrateAndSeed(opts: { demo: boolean; db?: Sequelize; quiet?: boolean }) {
+  const db = opts.db ?? defaultSequelize;
+  await migrator(db, opts.quiet).up();
+  await seeder("reference", db, opts.quiet).up();
+  if (opts.demo) await seeder("demo", db, opts.quiet).up();
+}
+
+export type Migration = (ctx: MigrationContext) => Promise<void>;

@@ -1,0 +1,37 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+} from "sequelize";
+import { sequelize } from "../sequelize.ts";
+import type { Organisation } from "./organisation.ts";
+import type { User } from "./user.ts";
+
+/** Who did what to which object, when. Append-only. */
+export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {
+  declare id: CreationOptional<number>;
+  declare organisationId: ForeignKey<Organisation["id"]> | null;
+  declare actorId: ForeignKey<User["id"]> | null;
+  declare action: string;
+  declare objectType: string;
+  declare objectId: string | null;
+  declare details: Record<string, unknown>;
+  declare createdAt: CreationOptional<Date>;
+}
+
+AuditEvent.init(
+  {
+    id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+    organisationId: { type: DataTypes.INTEGER, allowNull: true },
+    actorId: { type: DataTypes.INTEGER, allowNull: true },
+    action: { type: DataTypes.STRING(100), allowNull: false },
+    objectType: { type: DataTypes.STRING(60), allowNull: false },
+    objectId: { type: DataTypes.STRING(100), allowNull: true },
+    details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    createdAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "audit_events", updatedAt: false },
+);

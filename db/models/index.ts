@@ -1,0 +1,27 @@
+// All models and their associations. Import models from here so associations are always set up.
+import { AuditEvent } from "./audit-event.ts";
+import { Invitation } from "./invitation.ts";
+import { Membership } from "./membership.ts";
+import { Organisation } from "./organisation.ts";
+import { OutboxMessage } from "./outbox-message.ts";
+import { PasswordReset } from "./password-reset.ts";
+import { Session } from "./session.ts";
+import { User } from "./user.ts";
+
+const globalForAssoc = globalThis as unknown as { __eonscaleAssociated?: boolean };
+if (!globalForAssoc.__eonscaleAssociated) {
+  globalForAssoc.__eonscaleAssociated = true;
+  User.hasMany(Membership, { foreignKey: "userId", as: "memberships" });
+  Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
+  Organisation.hasMany(Membership, { foreignKey: "organisationId", as: "memberships" });
+  Membership.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
+  Invitation.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
+  Invitation.belongsTo(User, { foreignKey: "invitedById", as: "invitedBy" });
+  PasswordReset.belongsTo(User, { foreignKey: "userId", as: "user" });
+  Session.belongsTo(User, { foreignKey: "userId", as: "user" });
+  AuditEvent.belongsTo(User, { foreignKey: "actorId", as: "actor" });
+  AuditEvent.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
+}
+
+export { AuditEvent, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
+export { sequelize } from "../sequelize.ts";

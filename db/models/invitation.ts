@@ -1,0 +1,47 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+} from "sequelize";
+import { sequelize } from "../sequelize.ts";
+import { ROLES, type Role } from "../../app/lib/roles.ts";
+import type { Organisation } from "./organisation.ts";
+import type { User } from "./user.ts";
+
+/** An admin's invitation of an e-mail address to an organisation with a role. Only the token's hash is kept. */
+export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
+  declare id: CreationOptional<number>;
+  declare organisationId: ForeignKey<Organisation["id"]>;
+  declare invitedById: ForeignKey<User["id"]> | null;
+  declare email: string;
+  declare role: Role;
+  declare tokenHash: string;
+  declare expiresAt: Date;
+  declare acceptedAt: Date | null;
+  declare revokedAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare organisation?: NonAttribute<Organisation>;
+  declare invitedBy?: NonAttribute<User>;
+}
+
+Invitation.init(
+  {
+    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    organisationId: { type: DataTypes.INTEGER, allowNull: false },
+    invitedById: { type: DataTypes.INTEGER, allowNull: true },
+    email: { type: DataTypes.STRING(254), allowNull: false },
+    role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+    tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+    expiresAt: { type: DataTypes.DATE, allowNull: false },
+    acceptedAt: { type: DataTypes.DATE, allowNull: true },
+    revokedAt: { type: DataTypes.DATE, allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "invitations" },
+);

@@ -1,0 +1,36 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+} from "sequelize";
+import { sequelize } from "../sequelize.ts";
+import { ROLES, type Role } from "../../app/lib/roles.ts";
+import type { Organisation } from "./organisation.ts";
+import type { User } from "./user.ts";
+
+export class Membership extends Model<InferAttributes<Membership>, InferCreationAttributes<Membership>> {
+  declare id: CreationOptional<number>;
+  declare userId: ForeignKey<User["id"]>;
+  declare organisationId: ForeignKey<Organisation["id"]>;
+  declare role: Role;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare user?: NonAttribute<User>;
+  declare organisation?: NonAttribute<Organisation>;
+}
+
+Membership.init(
+  {
+    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    userId: { type: DataTypes.INTEGER, allowNull: false },
+    organisationId: { type: DataTypes.INTEGER, allowNull: false },
+    role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "memberships" },
+);

@@ -1,0 +1,32 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+} from "sequelize";
+import { sequelize } from "../sequelize.ts";
+import type { User } from "./user.ts";
+
+/** A server-side session; the cookie carries only the (signed) id. */
+export class Session extends Model<InferAttributes<Session>, InferCreationAttributes<Session>> {
+  declare id: string;
+  declare userId: ForeignKey<User["id"]> | null;
+  declare data: Record<string, unknown>;
+  declare expiresAt: Date;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+Session.init(
+  {
+    id: { type: DataTypes.STRING(64), primaryKey: true },
+    userId: { type: DataTypes.INTEGER, allowNull: true },
+    data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    expiresAt: { type: DataTypes.DATE, allowNull: false },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "sessions" },
+);

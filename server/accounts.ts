@@ -1,0 +1,248 @@
+// Account and team operations: invitations, password resets, role changes. Each multi-row change
+// runs in one transaction together with its audit event and any e-mail it sends (outbox).
+import { Op, type Transaction } from "sequelize";
+import { z } from "zod";
+import { Invitation, Membership, Organisation, PasswordReset, sequelize, User } from "../db/models/index.ts";
+import { ROLE_LABELS, ROLES, type Role } from "../app/lib/roles.ts";
+import { audit } from "./audit.ts";
+import { hashPassword, NewPasswordSchema, verifyPassword } from "./auth.ts";
+import { env } from "./env.ts";
+import { queueEmail } from "./mail.ts";
+import { endUserSessions } from "./session.ts";
+import { hashToken, newToken } from "./tokens.ts";
+
+export const INVITATION_DAYS = 7;
+export const RESET_MINUTES = 60;
+
+/** A refusal meant for the person using the form: a field (or "_form") and the reason. */
+export class AccountError extends Error {
+  constructor(message: string, public field = "_form") {
+    super(message);
+    this.name = "AccountError";
+  }
+}
+
+const EmailSchema = z.email({ error: "Enter an e-mail address, like name@example.org." }).transform((e) => e.trim().toLowerCase());
+
+export const InviteSchema = z.object({
+  email: z.preprocess((v) => (typeof v === "string" ? v.trim() : v), EmailSchema),
+  role: z.enum(ROLES, { error: `Choose a role: ${ROLES.join(", ")}.` }),
+});
+
+export const NewAccountSchema = z
+  .object({
+    name: z.string({ error: "Enter your name." }).trim().min(1, { error: "Enter your name." }).max(200, { error: "Use at most 200 characters." }),
+    password: NewPasswordSchema,
+    confirm: z.string({ error: "Repeat the password." }),
+  })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], error: "The two passwords differ." });
+
+export const ResetSchema = z
+  .object({ password: NewPasswordSchema, confirm: z.string({ error: "Repeat the password." }) })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], error: "The two passwords differ." });
+
+export const ChangePasswordSchema = z
+  .object({
+    current: z.string({ error: "Enter your current password." }).min(1, { error: "Enter your current password." }),
+    password: NewPasswordSchema,
+    confirm: z.string({ error: "Repeat the new password." }),
+  })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], error: "The two passwords differ." });
+
+function link(path: string) {
+  return new URL(path, env().APP_URL).toString();
+}
+
+// ---------- invitations ----------
+
+export async function inviteMember(input: { organisation: Organisation; inviter: User; email: string; role: Role }) {
+  const { organisation, inviter, email, role } = input;
+  const existing = await User.findOne({ where: { email } });
+  if (existing && (await Membership.findOne({ where: { userId: existing.id, organisationId: organisation.id } }))) {
+    throw new AccountError(`${email} is already a member of ${organisation.name}.`, "email");
+  }
+  const { token, hash } = newToken();
+  const expiresAt = new Date(Date.now() + INVITATION_DAYS * 86400_000);
+  return sequelize.transaction(async (transaction) => {
+    // A newer invitation replaces any pending one for the same address.
+    await Invitation.update(
+      { revokedAt: new Date() },
+      { where: { organisationId: organisation.id, email, acceptedAt: null, revokedAt: null }, transaction },
+    );
+    const invitation = await Invitation.create(
+      { organisationId: organisation.id, invitedById: inviter.id, email, role, tokenHash: hash, expiresAt, acceptedAt: null, revokedAt: null },
+      { transaction },
+    );
+    const url = link(`/invite/${token}`);
+    await queueEmail(
+      {
+        to: email,
+        subject: `You're invited to ${organisation.name} on Eonscale`,
+        text: [
+          `${inviter.name} has invited you to join ${organisation.name} on Eonscale as ${ROLE_LABELS[role].toLowerCase()}.`,
+          "",
+          `Accept the invitation and choose a password here (the link works once, for ${INVITATION_DAYS} days):`,
+          url,
+          "",
+          "If you did not expect this, you can ignore this message.",
+        ].join("\n"),
+        html: `<p>${escapeHtml(inviter.name)} has invited you to join <strong>${escapeHtml(organisation.name)}</strong> on Eonscale as ${escapeHtml(ROLE_LABELS[role].toLowerCase())}.</p><p><a href="${url}">Accept the invitation</a> (the link works once, for ${INVITATION_DAYS} days).</p><p>If you did not expect this, you can ignore this message.</p>`,
+      },
+      transaction,
+    );
+    await audit({ organisationId: organisation.id, actorId: inviter.id, action: "invitation.create", objectType: "invitation", objectId: invitation.id, details: { email, role } }, transaction);
+    return invitation;
+  });
+}
+
+export type InvitationState =
+  | { ok: true; invitation: Invitation; organisation: Organisation; existingUser: User | null }
+  | { ok: false; message: string };
+
+export async function checkInvitation(token: string, transaction?: Transaction): Promise<InvitationState> {
+  const invitation = await Invitation.findOne({
+    where: { tokenHash: hashToken(token) },
+    include: [{ model: Organisation, as: "organisation" }],
+    transaction,
+    lock: transaction ? transaction.LOCK.UPDATE : undefined,
+  });
+  if (!invitation) return { ok: false, message: "This invitation link is not valid. Check that you copied the whole link, or ask for a new invitation." };
+  if (invitation.acceptedAt) return { ok: false, message: "This invitation has already been used. Sign in with the account it created, or ask for a new invitation." };
+  if (invitation.revokedAt) return { ok: false, message: "This invitation was withdrawn or replaced by a newer one. Use the most recent invitation e-mail, or ask for a new one." };
+  if (invitation.expiresAt.getTime() <= Date.now()) return { ok: false, message: `This invitation expired on ${invitation.expiresAt.toUTCString()}. Ask the organisation's admin to invite you again.` };
+  const existingUser = await User.findOne({ where: { email: invitation.email }, transaction });
+  return { ok: true, invitation, organisation: invitation.organisation!, existingUser };
+}
+
+/** Accept an invitation: a new user chooses name + password; an existing user confirms with their password. */
+export async function acceptInvitation(token: string, form: Record<string, unknown>) {
+  return sequelize.transaction(async (transaction) => {
+    const state = await checkInvitation(token, transaction);
+    if (!state.ok) throw new AccountError(state.message);
+    const { invitation, organisation } = state;
+    let user = state.existingUser;
+    if (user) {
+      const password = typeof form.password === "string" ? form.password : "";
+      if (!(await verifyPassword(password, user.passwordHash))) throw new AccountError("That is not the password of this account.", "password");
+    } else {
+      const parsed = NewAccountSchema.safeParse(form);
+      if (!parsed.success) {
+        const issue = parsed.error.issues[0];
+        throw new AccountError(issue.message, String(issue.path[0] ?? "_form"));
+      }
+      user = await User.create({ email: invitation.email, name: parsed.data.name, passwordHash: await hashPassword(parsed.data.password), lastSignInAt: null }, { transaction });
+    }
+    await Membership.create({ userId: user.id, organisationId: organisation.id, role: invitation.role }, { transaction });
+    await invitation.update({ acceptedAt: new Date() }, { transaction });
+    await audit({ organisationId: organisation.id, actorId: user.id, action: "invitation.accept", objectType: "invitation", objectId: invitation.id, details: { email: invitation.email, role: invitation.role } }, transaction);
+    return { user, organisation };
+  });
+}
+
+export async function revokeInvitation(organisation: Organisation, actor: User, invitationId: number) {
+  return sequelize.transaction(async (transaction) => {
+    const invitation = await Invitation.findOne({ where: { id: invitationId, organisationId: organisation.id, acceptedAt: null, revokedAt: null }, transaction });
+    if (!invitation) throw new AccountError("That invitation is not pending any more.");
+    await invitation.update({ revokedAt: new Date() }, { transaction });
+    await audit({ organisationId: organisation.id, actorId: actor.id, action: "invitation.revoke", objectType: "invitation", objectId: invitation.id, details: { email: invitation.email } }, transaction);
+  });
+}
+
+export function pendingInvitations(organisationId: number) {
+  return Invitation.findAll({
+    where: { organisationId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } },
+    include: [{ model: User, as: "invitedBy" }],
+    order: [["createdAt", "DESC"]],
+  });
+}
+
+// ---------- members ----------
+
+async function adminCount(organisationId: number, transaction: Transaction) {
+  return Membership.count({ where: { organisationId, role: "admin" }, transaction });
+}
+
+export async function changeRole(organisation: Organisation, actor: User, membershipId: number, role: Role) {
+  return sequelize.transaction(async (transaction) => {
+    const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!m) throw new AccountError("That person is not a member of this organisation.");
+    if (m.role === role) return m;
+    if (m.role === "admin" && (await adminCount(organisation.id, transaction)) <= 1) {
+      throw new AccountError("An organisation needs at least one admin. Make someone else admin first.");
+    }
+    const from = m.role;
+    await m.update({ role }, { transaction });
+    await audit({ organisationId: organisation.id, actorId: actor.id, action: "membership.role", objectType: "membership", objectId: m.id, details: { from, to: role } }, transaction);
+    return m;
+  });
+}
+
+export async function removeMember(organisation: Organisation, actor: User, membershipId: number) {
+  return sequelize.transaction(async (transaction) => {
+    const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!m) throw new AccountError("That person is not a member of this organisation.");
+    if (m.role === "admin" && (await adminCount(organisation.id, transaction)) <= 1) {
+      throw new AccountError("You cannot remove the last admin. Make someone else admin first.");
+    }
+    await m.destroy({ transaction });
+    await audit({ organisationId: organisation.id, actorId: actor.id, action: "membership.remove", objectType: "membership", objectId: m.id, details: { userId: m.userId, role: m.role } }, transaction);
+  });
+}
+
+// ---------- passwords ----------
+
+/** Always behaves the same whether or not the address has an account. */
+export async function requestPasswordReset(email: string) {
+  const user = await User.findOne({ where: { email } });
+  if (!user) return;
+  const { token, hash } = newToken();
+  await sequelize.transaction(async (transaction) => {
+    await PasswordReset.create({ userId: user.id, tokenHash: hash, expiresAt: new Date(Date.now() + RESET_MINUTES * 60_000), usedAt: null }, { transaction });
+    const url = link(`/reset-password/${token}`);
+    await queueEmail(
+      {
+        to: user.email,
+        subject: "Reset your Eonscale password",
+        text: `Someone asked to reset the password of your Eonscale account.\n\nChoose a new password here (the link works once, for ${RESET_MINUTES} minutes):\n${url}\n\nIf it was not you, ignore this message; your password stays as it is.`,
+        html: `<p>Someone asked to reset the password of your Eonscale account.</p><p><a href="${url}">Choose a new password</a> (the link works once, for ${RESET_MINUTES} minutes).</p><p>If it was not you, ignore this message; your password stays as it is.</p>`,
+      },
+      transaction,
+    );
+    await audit({ actorId: user.id, action: "password.reset-request", objectType: "user", objectId: user.id }, transaction);
+  });
+}
+
+export async function checkResetToken(token: string, transaction?: Transaction): Promise<{ ok: true; reset: PasswordReset } | { ok: false; message: string }> {
+  const reset = await PasswordReset.findOne({ where: { tokenHash: hashToken(token) }, transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+  if (!reset) return { ok: false, message: "This reset link is not valid. Check that you copied the whole link, or ask for a new one." };
+  if (reset.usedAt) return { ok: false, message: "This reset link has already been used. Ask for a new one if you need to change your password again." };
+  if (reset.expiresAt.getTime() <= Date.now()) return { ok: false, message: `This reset link expired ${RESET_MINUTES} minutes after it was sent. Ask for a new one.` };
+  return { ok: true, reset };
+}
+
+export async function resetPassword(token: string, password: string) {
+  return sequelize.transaction(async (transaction) => {
+    const state = await checkResetToken(token, transaction);
+    if (!state.ok) throw new AccountError(state.message);
+    const user = await User.findByPk(state.reset.userId, { transaction });
+    if (!user) throw new AccountError("This reset link is not valid.");
+    await user.update({ passwordHash: await hashPassword(password) }, { transaction });
+    await state.reset.update({ usedAt: new Date() }, { transaction });
+    await audit({ actorId: user.id, action: "password.reset", objectType: "user", objectId: user.id }, transaction);
+    await endUserSessions(user.id);
+    return user;
+  });
+}
+
+export async function changePassword(user: User, sessionId: string, current: string, password: string) {
+  if (!(await verifyPassword(current, user.passwordHash))) throw new AccountError("That is not your current password.", "current");
+  await sequelize.transaction(async (transaction) => {
+    await user.update({ passwordHash: await hashPassword(password) }, { transaction });
+    await audit({ actorId: user.id, action: "password.change", objectType: "user", objectId: user.id }, transaction);
+  });
+  await endUserSessions(user.id, sessionId);
+}
+
+function escapeHtml(s: string) {
+  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+}

@@ -1,0 +1,11 @@
+// Single-use tokens for e-mailed links: the link carries the token, the database only its SHA-256.
+import { createHash, randomBytes } from "node:crypto";
+
+export function newToken(): { token: string; hash: string } {
+  const token = randomBytes(32).toString("base64url");
+  return { token, hash: hashToken(token) };
+}
+
+export function hashToken(token: string): string {
+  return createHash("sha256").update(token).digest("hex");
+}
