@@ -5,7 +5,7 @@ import { z } from "zod";
 import { Invitation, Membership, Organisation, PasswordReset, sequelize, User } from "../db/models/index.ts";
 import { ROLE_LABELS, ROLES, type Role } from "../app/lib/roles.ts";
 import { audit } from "./audit.ts";
-import { hashPassword, NewPasswordSchema, verifyPassword } from "./auth.ts";
+import { hashPassword, NewPasswordSchema, notFound, verifyPassword } from "./auth.ts";
 import { env } from "./env.ts";
 import { queueEmail } from "./mail.ts";
 import { endUserSessions } from "./session.ts";
@@ -142,7 +142,7 @@ export async function acceptInvitation(token: string, form: Record<string, unkno
 export async function revokeInvitation(organisation: Organisation, actor: User, invitationId: number) {
   return sequelize.transaction(async (transaction) => {
     const invitation = await Invitation.findOne({ where: { id: invitationId, organisationId: organisation.id, acceptedAt: null, revokedAt: null }, transaction });
-    if (!invitation) throw new AccountError("That invitation is not pending any more.");
+    if (!invitation) notFound("That invitation is not pending in this organisation.");
     await invitation.update({ revokedAt: new Date() }, { transaction });
     await audit({ organisationId: organisation.id, actorId: actor.id, action: "invitation.revoke", objectType: "invitation", objectId: invitation.id, details: { email: invitation.email } }, transaction);
   });
@@ -165,7 +165,7 @@ async function adminCount(organisationId: number, transaction: Transaction) {
 export async function changeRole(organisation: Organisation, actor: User, membershipId: number, role: Role) {
   return sequelize.transaction(async (transaction) => {
     const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction, lock: transaction.LOCK.UPDATE });
-    if (!m) throw new AccountError("That person is not a member of this organisation.");
+    if (!m) notFound("That person is not a member of this organisation.");
     if (m.role === role) return m;
     if (m.role === "admin" && (await adminCount(organisation.id, transaction)) <= 1) {
       throw new AccountError("An organisation needs at least one admin. Make someone else admin first.");
@@ -180,7 +180,7 @@ export async function changeRole(organisation: Organisation, actor: User, member
 export async function removeMember(organisation: Organisation, actor: User, membershipId: number) {
   return sequelize.transaction(async (transaction) => {
     const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction, lock: transaction.LOCK.UPDATE });
-    if (!m) throw new AccountError("That person is not a member of this organisation.");
+    if (!m) notFound("That person is not a member of this organisation.");
     if (m.role === "admin" && (await adminCount(organisation.id, transaction)) <= 1) {
       throw new AccountError("You cannot remove the last admin. Make someone else admin first.");
     }

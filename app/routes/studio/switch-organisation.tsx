@@ -7,7 +7,8 @@ import type { Route } from "./+types/switch-organisation";
 
 const Schema = z.object({ organisationId: z.coerce.number({ error: "Choose an organisation." }).int().positive({ error: "Choose an organisation." }) });
 
-export async function loader() {
+export async function loader({ request }: Route.LoaderArgs) {
+  await requireMember(request);
   return redirect("/studio");
 }
 

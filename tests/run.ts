@@ -1,0 +1,57 @@
+// `npm test`: typecheck, then unit + integration tests, then browser tests, each against the
+// local stand-ins that the vitest global setup starts itself. Ends with one summary line.
+import { spawnSync } from "node:child_process";
+import { mkdirSync, readFileSync } from "node:fs";
+import path from "node:path";
+
+const outDir = path.resolve("test-results");
+mkdirSync(outDir, { recursive: true });
+const env = { ...process.env, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true" };
+const extra = process.argv.slice(2);
+
+function run(label: string, cmd: string, args: string[]) {
+  console.log(`\n▶ ${label}: ${cmd} ${args.join(" ")}`);
+  const started = Date.now();
+  const result = spawnSync(cmd, args, { stdio: "inherit", env });
+  console.log(`◀ ${label}: ${result.status === 0 ? "ok" : `failed (exit ${result.status})`} in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+  return result.status === 0;
+}
+
+interface VitestJson {
+  numPassedTests: number;
+  numFailedTests: number;
+  numPendingTests: number;
+  numTodoTests: number;
+}
+
+function counts(file: string): VitestJson {
+  try {
+    return JSON.parse(readFileSync(file, "utf8")) as VitestJson;
+  } catch {
+    return { numPassedTests: 0, numFailedTests: 1, numPendingTests: 0, numTodoTests: 0 };
+  }
+}
+
+const steps: [string, () => boolean][] = [
+  ["typecheck", () => run("typecheck", "npx", ["react-router", "typegen"]) && run("typecheck", "npx", ["tsc"])],
+  ["unit + integration", () => run("unit + integration", "npx", ["vitest", "run", "--project", "unit", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${outDir}/vitest-main.json`, ...extra])],
+  ["browser", () => run("browser", "npx", ["vitest", "run", "--project", "e2e", "--reporter=default", "--reporter=json", `--outputFile.json=${outDir}/vitest-e2e.json`, ...extra])],
+];
+
+let ok = true;
+const ran: string[] = [];
+for (const [name, step] of steps) {
+  if (process.env.EONSCALE_TEST_ONLY && !process.env.EONSCALE_TEST_ONLY.split(",").includes(name)) continue;
+  ran.push(name);
+  ok = step() && ok;
+}
+
+const results = ran.filter((n) => n !== "typecheck").map((n) => counts(`${outDir}/vitest-${n === "browser" ? "e2e" : "main"}.json`));
+const passed = results.reduce((s, r) => s + r.numPassedTests, 0);
+const failed = results.reduce((s, r) => s + r.numFailedTests, 0) + (ok ? 0 : failed0());
+const skipped = results.reduce((s, r) => s + r.numPendingTests + r.numTodoTests, 0);
+function failed0() {
+  return results.every((r) => r.numFailedTests === 0) ? 1 : 0; // a failing step with no failed test (typecheck, setup) still counts
+}
+console.log(`\n${passed} passed, ${failed} failed, ${skipped} skipped`);
+process.exit(ok ? 0 : 1);

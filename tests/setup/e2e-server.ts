@@ -1,0 +1,36 @@
+// vitest globalSetup for browser tests: builds the app and serves it (production build, local
+// stand-ins) on the test port against the test database; stopped after the run.
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { ensureChromium } from "./chromium.ts";
+import { applyTestEnv, E2E_PORT } from "./test-env.ts";
+
+let server: ChildProcess | undefined;
+
+export default async function setup() {
+  applyTestEnv();
+  await ensureChromium();
+  const env = { ...process.env, NODE_ENV: "production", EONSCALE_LOCAL: "1" };
+  if (process.env.EONSCALE_SKIP_BUILD !== "1") {
+    const build = spawnSync("npx", ["react-router", "build"], { stdio: ["ignore", "ignore", "inherit"], env });
+    if (build.status !== 0) throw new Error("react-router build failed");
+  }
+  server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], { env, stdio: ["ignore", "inherit", "inherit"] });
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    try {
+      const res = await fetch(`http://127.0.0.1:${E2E_PORT}/healthz`);
+      if (res.ok) break;
+    } catch {
+      // not up yet
+    }
+    if (Date.now() > deadline) throw new Error(`The app did not answer on port ${E2E_PORT} within 30 s`);
+    if (server.exitCode !== null) throw new Error(`The app exited with code ${server.exitCode}`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  return async () => {
+    if (server && server.exitCode === null) {
+      server.kill("SIGTERM");
+      await new Promise((r) => server!.once("exit", r));
+    }
+  };
+}
