@@ -102,9 +102,9 @@ export type InvitationState =
 export async function checkInvitation(token: string, transaction?: Transaction): Promise<InvitationState> {
   const invitation = await Invitation.findOne({
     where: { tokenHash: hashToken(token) },
-    include: [{ model: Organisation, as: "organisation" }],
+    include: [{ model: Organisation, as: "organisation", required: true }],
     transaction,
-    lock: transaction ? transaction.LOCK.UPDATE : undefined,
+    lock: transaction ? { level: transaction.LOCK.UPDATE, of: Invitation } : undefined,
   });
   if (!invitation) return { ok: false, message: "This invitation link is not valid. Check that you copied the whole link, or ask for a new invitation." };
   if (invitation.acceptedAt) return { ok: false, message: "This invitation has already been used. Sign in with the account it created, or ask for a new invitation." };

@@ -26,9 +26,9 @@ export interface AppOptions {
   clientDir?: string;
 }
 
-export async function healthCheck(): Promise<boolean> {
+export async function healthCheck(db = sequelize): Promise<boolean> {
   try {
-    await sequelize.query("SELECT 1");
+    await db.query("SELECT 1");
     return true;
   } catch {
     return false;

@@ -3,15 +3,17 @@
 import { z } from "zod";
 import { serviceConfig } from "../fakes/config.ts";
 
-const local = serviceConfig();
-const isProduction = process.env.NODE_ENV === "production" && process.env.EONSCALE_LOCAL !== "1";
+function schemaFor(source: NodeJS.ProcessEnv) {
+  const local = serviceConfig(source);
+  // A production build run against the local stand-ins (npm start) sets EONSCALE_LOCAL=1.
+  const isProduction = source.NODE_ENV === "production" && source.EONSCALE_LOCAL !== "1";
 
-function localDefault<T extends z.ZodType>(schema: T, value: z.input<T>) {
-  // In production the variable is required; elsewhere it falls back to the local stand-in.
-  return isProduction ? schema : schema.default(value as never);
+  function localDefault<T extends z.ZodType>(schema: T, value: z.input<T>) {
+    // In production the variable is required; elsewhere it falls back to the local stand-in.
+    return isProduction ? schema : schema.default(value as never);
 }
 
-const EnvSchema = z.object({
+return z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
   HOST: z.string().min(1).default("127.0.0.1"),
@@ -34,13 +36,14 @@ const EnvSchema = z.object({
   MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).default(12),
   RUN_WORKERS: z.enum(["true", "false"]).default("true"),
 });
+}
 
-export type Env = z.infer<typeof EnvSchema>;
+export type Env = z.infer<ReturnType<typeof schemaFor>>;
 
 let cached: Env | undefined;
 
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
-  const parsed = EnvSchema.safeParse(source);
+  const parsed = schemaFor(source).safeParse(source);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join(".") || "(env)"}: ${i.message}`);
     throw new Error(`Eonscale cannot start: the environment is not valid.\n${lines.join("\n")}`);

@@ -2,7 +2,6 @@
 // shares it; any server with RUN_WORKERS=true takes jobs.
 import PgBoss from "pg-boss";
 import type { Transaction } from "sequelize";
-import { sequelize } from "../db/sequelize.ts";
 import { env } from "./env.ts";
 import { logger } from "./logger.ts";
 
@@ -26,10 +25,12 @@ export async function stopBoss() {
 
 /** Lets pg-boss write its job row inside a Sequelize transaction, so the job exists only if the change commits. */
 export function inTransaction(transaction: Transaction): PgBoss.Db {
+  // Sequelize keeps the transaction's pg client on `connection`; pg-boss's SQL goes to it as is.
+  const client = (transaction as unknown as { connection: { query(text: string, values: unknown[]): Promise<{ rows: unknown[] }> } }).connection;
   return {
     async executeSql(text, values) {
-      const [rows] = await sequelize.query(text, { bind: values, transaction });
-      return { rows: rows as unknown[] };
+      const result = await client.query(text, values);
+      return { rows: result.rows };
     },
   };
 }

@@ -1,5 +1,7 @@
 // All models and their associations. Import models from here so associations are always set up.
 import { AuditEvent } from "./audit-event.ts";
+import { ChartEdition } from "./chart-edition.ts";
+import { Interval } from "./interval.ts";
 import { Invitation } from "./invitation.ts";
 import { Membership } from "./membership.ts";
 import { Organisation } from "./organisation.ts";
@@ -21,7 +23,12 @@ if (!globalForAssoc.__eonscaleAssociated) {
   Session.belongsTo(User, { foreignKey: "userId", as: "user" });
   AuditEvent.belongsTo(User, { foreignKey: "actorId", as: "actor" });
   AuditEvent.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
+  ChartEdition.hasMany(Interval, { foreignKey: "editionId", as: "intervals" });
+  Interval.belongsTo(ChartEdition, { foreignKey: "editionId", as: "edition" });
+  Interval.belongsTo(Interval, { foreignKey: "parentId", as: "parent" });
+  ChartEdition.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
+  ChartEdition.belongsTo(User, { foreignKey: "madeCurrentById", as: "madeCurrentBy" });
 }
 
-export { AuditEvent, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
+export { AuditEvent, ChartEdition, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
 export { sequelize } from "../sequelize.ts";
