@@ -10,9 +10,9 @@ import { PasswordReset } from "./password-reset.ts";
 import { Session } from "./session.ts";
 import { User } from "./user.ts";
 
-const globalForAssoc = globalThis as unknown as { __eonscaleAssociated?: boolean };
-if (!globalForAssoc.__eonscaleAssociated) {
-  globalForAssoc.__eonscaleAssociated = true;
+// Associations belong to these class objects, so they are set every time this module is
+// evaluated (the server entry and the React Router server bundle each evaluate their own copy).
+{
   User.hasMany(Membership, { foreignKey: "userId", as: "memberships" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
   Organisation.hasMany(Membership, { foreignKey: "organisationId", as: "memberships" });

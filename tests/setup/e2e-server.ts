@@ -9,7 +9,9 @@ let server: ChildProcess | undefined;
 export default async function setup() {
   applyTestEnv();
   await ensureChromium();
-  const env = { ...process.env, NODE_ENV: "production", EONSCALE_LOCAL: "1" };
+  // Without vitest's own variables: vite.config.ts leaves the React Router plugin out under VITEST.
+  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production", EONSCALE_LOCAL: "1" };
+  for (const key of Object.keys(env)) if (key.startsWith("VITEST") || key === "TEST") delete env[key];
   if (process.env.EONSCALE_SKIP_BUILD !== "1") {
     const build = spawnSync("npx", ["react-router", "build"], { stdio: ["ignore", "ignore", "inherit"], env });
     if (build.status !== 0) throw new Error("react-router build failed");
