@@ -138,7 +138,8 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
           <h2 className="text-xl">Invite someone</h2>
           <p className="mb-4 mt-1 font-sans text-sm text-ink-soft">They get an e-mail with a link to choose a password and join.</p>
           {actionData?.intent === "invite" && inviteErrors._form ? <FormMessage>{inviteErrors._form}</FormMessage> : null}
-          <Form method="post" noValidate>
+          {/* Keyed by the pending list, so the form empties once an invitation has gone out. */}
+          <Form method="post" noValidate key={invitations.map((i) => i.id).join(",")}>
             <input type="hidden" name="intent" value="invite" />
             <Field label="E-mail address" name="email" type="email" required error={inviteErrors.email} />
             <div className="mb-4">
