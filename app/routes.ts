@@ -12,8 +12,22 @@ export default [
     route("team", "routes/studio/team.tsx"),
     route("account", "routes/studio/account.tsx"),
     route("switch-organisation", "routes/studio/switch-organisation.tsx"),
+    route("editions", "routes/studio/editions.tsx"),
+    route("editions/import", "routes/studio/editions.import.tsx"),
   ]),
-  ...prefix("api", [route("scale", "routes/api.scale.ts")]),
+  // Chart editions: readable by everyone (drafts only by editors and admins).
+  layout("routes/editions.layout.tsx", [
+    route("editions", "routes/editions.index.tsx"),
+    route("editions/compare", "routes/editions.compare.tsx"),
+    route("editions/:slug", "routes/editions.$slug.tsx"),
+  ]),
+  route("editions/:slug/intervals.csv", "routes/editions.$slug.csv.tsx"),
+  route("editions/:slug/intervals.json", "routes/editions.$slug.json.tsx"),
+  ...prefix("api", [
+    route("scale", "routes/api.scale.ts"),
+    route("timescales", "routes/api.timescales.ts"),
+    route("timescales/:slug", "routes/api.timescales.$slug.ts"),
+  ]),
   route("dev/mail", "routes/dev.mail.tsx"),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;

@@ -52,7 +52,8 @@ function stepsFor(role: Role, counts: { members: number; pending: number }): Nex
       ];
     case "editor":
       return [
-        { title: "Chart editions", text: "Import, check and compare editions of the International Chronostratigraphic Chart, and make one current. Exhibits pinned to an older edition will be flagged for re-checking.", soon: true },
+        { title: "Chart editions", text: "Compare editions of the International Chronostratigraphic Chart and make one current. Exhibits pinned to an older edition will be flagged for re-checking.", to: "/studio/editions", cta: "Manage chart editions" },
+        { title: "Import a new edition", text: "Upload our CSV or JSON, or the ICS chart's Turtle file. You see every problem with its line before anything is saved; new imports are drafts.", to: "/studio/editions/import", cta: "Import an edition" },
         { title: "Dated-event library", text: "Events that are not boundaries — oldest mineral grains, first land plants — each with age, uncertainty and citation.", soon: true },
       ];
   }

@@ -1,0 +1,15 @@
+/**
+ * GET /api/timescales/:slug — one published edition and its intervals in chart order:
+ * { "edition": { slug, label, status, source, licence, madeCurrentAt, corrections },
+ *   "intervals": [{ name, rank, parent, baseMa, baseUncertaintyMa, topMa, color, gssp, approximate }, …] }
+ * English names; ages in Ma; baseUncertaintyMa null where the chart gives none; gssp null where the
+ * source does not say. Unknown slug or a draft → 404 { "error": { "message" } }. ETag / 304.
+ */
+import { apiEditionBody, cachedJson, jsonError } from "#server/editions.ts";
+import type { Route } from "./+types/api.timescales.$slug";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const body = await apiEditionBody(params.slug);
+  if (!body) return jsonError(404, `No published chart edition has the slug "${params.slug}". GET /api/timescales lists them.`);
+  return cachedJson(request, body);
+}

@@ -1,0 +1,7 @@
+// GET /editions/:slug/intervals.csv — the edition in Eonscale interval CSV (reads back identically on import).
+import { exportResponse } from "#server/editions.ts";
+import type { Route } from "./+types/editions.$slug.csv";
+
+export function loader({ request, params }: Route.LoaderArgs) {
+  return exportResponse(request, params.slug, "csv");
+}

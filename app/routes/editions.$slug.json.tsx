@@ -1,0 +1,7 @@
+// GET /editions/:slug/intervals.json — the edition as a JSON array of intervals (reads back identically on import).
+import { exportResponse } from "#server/editions.ts";
+import type { Route } from "./+types/editions.$slug.json";
+
+export function loader({ request, params }: Route.LoaderArgs) {
+  return exportResponse(request, params.slug, "json");
+}

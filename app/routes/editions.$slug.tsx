@@ -1,0 +1,112 @@
+// /editions/:slug — one edition: the chart, the intervals table, the corrections and the source.
+import { Form, Link, useNavigation } from "react-router";
+import { CorrectionList, RankCounts, StatusBadge } from "~/components/chart/edition-bits";
+import { IntervalTable } from "~/components/chart/interval-table";
+import { TimescaleChart } from "~/components/chart/timescale-chart";
+import { notFound } from "#server/auth.ts";
+import { listEditions, loadEdition, viewerOf } from "#server/editions.ts";
+import type { Route } from "./+types/editions.$slug";
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: data ? `${data.edition.label} · Chart editions · Eonscale` : "Chart edition · Eonscale" }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const viewer = await viewerOf(request);
+  const canManage = Boolean(viewer?.canManage);
+  const loaded = await loadEdition(params.slug, { includeDrafts: canManage });
+  if (!loaded) notFound(`There is no published chart edition "${params.slug}".`);
+  const others = (await listEditions({ includeDrafts: canManage })).filter((e) => e.slug !== params.slug);
+  const current = others.find((e) => e.status === "current") ?? null;
+  // A current edition is compared with the one it replaced (the latest retired).
+  const previous = others.find((e) => e.status === "retired") ?? null;
+  const languages = new Set<string>();
+  for (const iv of loaded.intervals) for (const tag of Object.keys(iv.names)) languages.add(tag);
+  return {
+    edition: loaded.edition,
+    // Names in other languages stay in the exports and the database; the page shows English.
+    intervals: loaded.intervals.map((iv) => ({ ...iv, names: {} })),
+    languages: [...languages].sort(),
+    compareWith: loaded.edition.status === "current" ? previous && { from: previous.slug, to: loaded.edition.slug, label: previous.label } : current && { from: current.slug, to: loaded.edition.slug, label: current.label },
+    canManage,
+  };
+}
+
+const day = (iso: string | null) => (iso ? iso.slice(0, 10) : null);
+
+export default function EditionPage({ loaderData }: Route.ComponentProps) {
+  const { edition: e, intervals, languages, compareWith, canManage } = loaderData;
+  const busy = useNavigation().state === "submitting";
+  const here = `/editions/${e.slug}`;
+  return (
+    <div>
+      <p className="font-sans text-sm"><Link to="/editions">Chart editions</Link> ›</p>
+      <div className="mt-1 flex flex-wrap items-baseline justify-between gap-3">
+        <h1 className="text-3xl">
+          {e.label} <StatusBadge status={e.status} />
+        </h1>
+        <p className="flex flex-wrap gap-2 font-sans text-sm">
+          {compareWith ? <Link className="btn-quiet no-underline" to={`/editions/compare?from=${compareWith.from}&to=${compareWith.to}`}>Compare with {compareWith.label}</Link> : null}
+          <a className="btn-quiet no-underline" href={`${here}/intervals.csv`} download>Download CSV</a>
+          <a className="btn-quiet no-underline" href={`${here}/intervals.json`} download>Download JSON</a>
+        </p>
+      </div>
+      {e.status === "draft" ? (
+        <p role="status" className="mt-4 rounded border-l-4 border-warn bg-amber-50 p-3 font-sans text-sm text-warn">
+          Draft: only editors and admins can see it. It passed every check on import; make it current when a geologist has compared it with the printed chart.
+        </p>
+      ) : null}
+      <section className="card mt-4 grid gap-4 md:grid-cols-[2fr_1fr]">
+        <div>
+          <h2 className="sr-only">About this edition</h2>
+          <p className="text-sm"><span className="font-sans font-semibold">Source. </span>{e.source}</p>
+          <p className="mt-2 text-sm"><span className="font-sans font-semibold">Licence. </span>{e.licence}</p>
+          {e.sourceFile ? <p className="mt-2 font-sans text-xs text-ink-soft">Read from <code>{e.sourceFile}</code>{languages.length ? ` · names in ${languages.length} language tags kept in the downloads` : ""}</p> : null}
+        </div>
+        <div className="font-sans text-sm">
+          <RankCounts counts={e.counts} />
+          <p className="mt-3 text-ink-soft">
+            <code>{e.slug}</code> · {e.total} intervals
+            <br />
+            {e.createdBy ? <>Imported {day(e.createdAt)} by {e.createdBy}<br /></> : null}
+            {e.madeCurrentAt ? <>Made current {day(e.madeCurrentAt)}{e.madeCurrentBy ? ` by ${e.madeCurrentBy}` : ""}<br /></> : null}
+            {e.retiredAt ? <>Retired {day(e.retiredAt)}</> : null}
+          </p>
+          {canManage && e.status !== "current" ? (
+            <div className="mt-3 flex flex-wrap gap-2">
+              <Form method="post" action="/studio/editions" onSubmit={(ev) => { if (!confirm(`Make ${e.label} the current edition? The current one will be retired, and exhibits pinned to it will need a re-check.`)) ev.preventDefault(); }}>
+                <input type="hidden" name="intent" value="make-current" />
+                <input type="hidden" name="slug" value={e.slug} />
+                <input type="hidden" name="redirectTo" value={here} />
+                <button type="submit" className="btn" disabled={busy}>Make current</button>
+              </Form>
+              {e.status === "draft" ? (
+                <Form method="post" action="/studio/editions">
+                  <input type="hidden" name="intent" value="retire" />
+                  <input type="hidden" name="slug" value={e.slug} />
+                  <input type="hidden" name="redirectTo" value={here} />
+                  <button type="submit" className="btn-quiet" disabled={busy}>Retire</button>
+                </Form>
+              ) : null}
+            </div>
+          ) : null}
+        </div>
+      </section>
+
+      <section className="mt-8" aria-labelledby="chart-heading">
+        <h2 id="chart-heading" className="text-2xl">The chart</h2>
+        <p className="mb-3 mt-1 text-ink-soft">Youngest at the top. Hide ranks to simplify it; switch to “to scale” to see how little room the recent past takes.</p>
+        <TimescaleChart intervals={intervals} title={e.label} />
+      </section>
+
+      <section className="mt-10" id="corrections" aria-labelledby="corrections-heading">
+        <h2 id="corrections-heading" className="text-2xl">Corrections to the source data</h2>
+        <p className="mb-3 mt-1 text-ink-soft">What was changed from the source file, from what to what, why and on whose authority.</p>
+        <CorrectionList corrections={e.corrections} />
+      </section>
+
+      <section className="mt-10" aria-labelledby="intervals-heading">
+        <h2 id="intervals-heading" className="mb-3 text-2xl">Intervals</h2>
+        <IntervalTable intervals={intervals} caption={`Intervals of ${e.label}`} />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,75 @@
+// The frame of the public chart-edition pages (/editions…): readable by visitors and by every
+// signed-in member; editors and admins also see drafts and the management links.
+import { Link, NavLink, Outlet, data } from "react-router";
+import { GeneralErrorBoundary } from "~/components/error-boundary";
+import { FormMessage } from "~/components/forms";
+import { Wordmark } from "~/components/site-header";
+import { viewerOf } from "#server/editions.ts";
+import { readNotice } from "#server/session.ts";
+import type { Route } from "./+types/editions.layout";
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const viewer = await viewerOf(request);
+  const { notice, setCookie } = await readNotice(request);
+  return data(
+    { viewer: viewer ? { name: viewer.name, canManage: viewer.canManage, member: viewer.role !== null } : null, notice },
+    setCookie ? { headers: { "Set-Cookie": setCookie } } : undefined,
+  );
+}
+
+export default function EditionsLayout({ loaderData }: Route.ComponentProps) {
+  const { viewer, notice } = loaderData;
+  const links = [
+    { to: "/editions", label: "Chart editions", end: true },
+    { to: "/editions/compare", label: "Compare" },
+    ...(viewer?.canManage ? [{ to: "/studio/editions", label: "Manage", end: false }] : []),
+  ];
+  return (
+    <div className="min-h-screen">
+      <header className="border-b border-rule bg-white">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-5 py-3">
+          <div className="flex items-center gap-6">
+            <Wordmark />
+            <nav aria-label="Chart editions" className="flex gap-1">
+              {links.map((l) => (
+                <NavLink
+                  key={l.to}
+                  to={l.to}
+                  end={l.end}
+                  className={({ isActive }) => `rounded px-3 py-2 no-underline ${isActive ? "bg-paper-deep font-semibold text-ink" : "text-ink-soft hover:bg-paper"}`}
+                >
+                  {l.label}
+                </NavLink>
+              ))}
+            </nav>
+          </div>
+          <div className="flex items-center gap-3 font-sans text-sm">
+            {viewer ? (
+              <>
+                <span className="text-ink-soft">{viewer.name}</span>
+                {viewer.member ? <Link to="/studio" className="btn-quiet no-underline">Back to the studio</Link> : null}
+              </>
+            ) : (
+              <Link to="/login?redirectTo=%2Feditions" className="btn-quiet no-underline">Sign in</Link>
+            )}
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto max-w-6xl px-5 py-8">
+        {notice ? <FormMessage kind={notice.kind}>{notice.message}</FormMessage> : null}
+        <Outlet />
+      </main>
+      <footer className="border-t border-rule py-6 text-center font-sans text-sm text-ink-soft">
+        Chart data: International Commission on Stratigraphy, CC BY 4.0 · Public JSON at <code>/api/timescales</code>
+      </footer>
+    </div>
+  );
+}
+
+export function ErrorBoundary() {
+  return (
+    <main className="mx-auto max-w-2xl p-8">
+      <GeneralErrorBoundary />
+    </main>
+  );
+}
