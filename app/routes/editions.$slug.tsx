@@ -16,8 +16,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   if (!loaded) notFound(`There is no published chart edition "${params.slug}".`);
   const others = (await listEditions({ includeDrafts: canManage })).filter((e) => e.slug !== params.slug);
   const current = others.find((e) => e.status === "current") ?? null;
-  // A current edition is compared with the one it replaced (the latest retired).
-  const previous = others.find((e) => e.status === "retired") ?? null;
+  // A current edition is compared with the one it replaced: the latest retired of those that were
+  // ever current (else the latest retired).
+  const retired = others.filter((e) => e.status === "retired");
+  const wasCurrent = retired.filter((e) => e.madeCurrentAt).sort((a, b) => (b.retiredAt ?? "").localeCompare(a.retiredAt ?? ""));
+  const previous = wasCurrent[0] ?? retired[0] ?? null;
   const languages = new Set<string>();
   for (const iv of loaded.intervals) for (const tag of Object.keys(iv.names)) languages.add(tag);
   return {

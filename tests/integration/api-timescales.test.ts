@@ -1,0 +1,286 @@
+// The public JSON API over the seeded database: GET /api/timescales and /api/timescales/:slug.
+//
+// Every expected boundary below was typed from the printed ICS chart of the edition named beside
+// it, as in tests/unit/timescale/seeded.test.ts (values reused from there). None could be checked
+// against the chart PDF while writing, so each is marked "from memory"; "weak" where the
+// recollection may lean on the data file itself. Here they travel the whole way: seed file →
+// Postgres NUMERIC → API JSON.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { RANKS, type Rank } from "../../app/lib/timescale/index.ts";
+import { loader as listLoader } from "../../app/routes/api.timescales.ts";
+import { loader as editionLoader } from "../../app/routes/api.timescales.$slug.ts";
+import { ChartEdition } from "../../db/models/index.ts";
+import { createDraftEdition, discardDraft, editionIntervals } from "../../server/editions.ts";
+import { createMember, createOrganisation, routeArgs, unique } from "../helpers/db.ts";
+import { SEEDED_CURRENT, SEEDED_RETIRED, TEST_META } from "../helpers/editions.ts";
+
+const CHART_2024 = "ICS International Chronostratigraphic Chart v2024/12 (printed chart)";
+const CHART_2023 = "ICS International Chronostratigraphic Chart v2023/09 (printed chart)";
+const m = "from memory";
+const weak = "from memory (weak recollection; may lean on the data file)";
+
+interface Seed {
+  edition: typeof SEEDED_CURRENT | typeof SEEDED_RETIRED;
+  name: string;
+  rank: Rank;
+  baseMa: number;
+  /** ± in Ma; null = the chart prints none; undefined = not checked. */
+  pm?: number | null;
+  approx?: boolean;
+  source: string;
+  basis: string;
+}
+
+const SEEDS: Seed[] = [
+  // ---- ICS 2024/12 ----
+  { edition: "ics-2024-12", name: "Hadean", rank: "eon", baseMa: 4567, pm: null, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Archean", rank: "eon", baseMa: 4031, pm: 3, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Proterozoic", rank: "eon", baseMa: 2500, pm: null, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Phanerozoic", rank: "eon", baseMa: 538.8, pm: 0.6, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Neoarchean", rank: "era", baseMa: 2800, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Mesoproterozoic", rank: "era", baseMa: 1600, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Mesozoic", rank: "era", baseMa: 251.902, pm: 0.024, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Cenozoic", rank: "era", baseMa: 66.0, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Cryogenian", rank: "period", baseMa: 720, approx: true, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Ediacaran", rank: "period", baseMa: 635, approx: true, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Cambrian", rank: "period", baseMa: 538.8, pm: 0.6, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Devonian", rank: "period", baseMa: 419.62, pm: 1.36, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Permian", rank: "period", baseMa: 298.9, pm: 0.15, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Jurassic", rank: "period", baseMa: 201.4, pm: 0.2, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Cretaceous", rank: "period", baseMa: 143.1, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Neogene", rank: "period", baseMa: 23.04, source: CHART_2024, basis: weak },
+  { edition: "ics-2024-12", name: "Quaternary", rank: "period", baseMa: 2.58, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Pennsylvanian", rank: "subperiod", baseMa: 323.4, pm: 0.4, source: CHART_2024, basis: weak },
+  { edition: "ics-2024-12", name: "Mississippian", rank: "subperiod", baseMa: 358.86, pm: 0.19, source: CHART_2024, basis: weak },
+  { edition: "ics-2024-12", name: "Holocene", rank: "epoch", baseMa: 0.0117, pm: null, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Pleistocene", rank: "epoch", baseMa: 2.58, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Pliocene", rank: "epoch", baseMa: 5.333, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Oligocene", rank: "epoch", baseMa: 33.9, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Lopingian", rank: "epoch", baseMa: 259.51, pm: 0.21, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Meghalayan", rank: "age", baseMa: 0.0042, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Northgrippian", rank: "age", baseMa: 0.0082, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Chibanian", rank: "age", baseMa: 0.774, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Messinian", rank: "age", baseMa: 7.246, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Cenomanian", rank: "age", baseMa: 100.5, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Barremian", rank: "age", baseMa: 125.77, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Induan", rank: "age", baseMa: 251.902, pm: 0.024, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Changhsingian", rank: "age", baseMa: 254.14, pm: 0.07, source: CHART_2024, basis: m },
+  { edition: "ics-2024-12", name: "Fortunian", rank: "age", baseMa: 538.8, pm: 0.6, source: CHART_2024, basis: m },
+
+  // ---- ICS 2023/09 ----
+  { edition: "ics-2023-09", name: "Hadean", rank: "eon", baseMa: 4567, pm: null, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Phanerozoic", rank: "eon", baseMa: 538.8, pm: 0.2, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Paleozoic", rank: "era", baseMa: 538.8, pm: 0.2, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Neoproterozoic", rank: "era", baseMa: 1000, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Ordovician", rank: "period", baseMa: 485.4, pm: 1.9, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Silurian", rank: "period", baseMa: 443.8, pm: 1.5, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Devonian", rank: "period", baseMa: 419.2, pm: 3.2, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Carboniferous", rank: "period", baseMa: 358.9, pm: 0.4, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Triassic", rank: "period", baseMa: 251.902, pm: 0.024, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Cretaceous", rank: "period", baseMa: 145.0, pm: null, approx: true, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Neogene", rank: "period", baseMa: 23.03, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Pennsylvanian", rank: "subperiod", baseMa: 323.2, pm: 0.4, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Holocene", rank: "epoch", baseMa: 0.0117, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Eocene", rank: "epoch", baseMa: 56.0, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Guadalupian", rank: "epoch", baseMa: 273.01, pm: 0.14, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Miaolingian", rank: "epoch", baseMa: 509, approx: true, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Pridoli", rank: "epoch", baseMa: 423.0, pm: 2.3, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Calabrian", rank: "age", baseMa: 1.8, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Chattian", rank: "age", baseMa: 27.82, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Maastrichtian", rank: "age", baseMa: 72.1, pm: 0.2, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Valanginian", rank: "age", baseMa: 139.8, approx: true, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Tithonian", rank: "age", baseMa: 149.2, pm: 0.7, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Olenekian", rank: "age", baseMa: 251.2, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Famennian", rank: "age", baseMa: 372.2, pm: 1.6, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Hirnantian", rank: "age", baseMa: 445.2, pm: 1.4, source: CHART_2023, basis: m },
+  { edition: "ics-2023-09", name: "Cambrian Stage 2", rank: "age", baseMa: 529, approx: true, source: CHART_2023, basis: m },
+];
+
+type ApiInterval = {
+  name: string;
+  rank: Rank;
+  parent: string | null;
+  baseMa: number;
+  baseUncertaintyMa: number | null;
+  topMa: number;
+  color: string;
+  gssp: boolean | null;
+  approximate: boolean;
+};
+type ApiEdition = { edition: Record<string, unknown>; intervals: ApiInterval[] };
+
+async function getEdition(slug: string, headers: Record<string, string> = {}) {
+  const request = new Request(`http://test.local/api/timescales/${slug}`, { headers });
+  return (await editionLoader(routeArgs(request, { slug }))) as Response;
+}
+
+async function getList(headers: Record<string, string> = {}) {
+  return (await listLoader(routeArgs(new Request("http://test.local/api/timescales", { headers })))) as Response;
+}
+
+const bodies: Partial<Record<Seed["edition"], ApiEdition>> = {};
+beforeAll(async () => {
+  for (const slug of [SEEDED_CURRENT, SEEDED_RETIRED] as const) bodies[slug] = (await (await getEdition(slug)).json()) as ApiEdition;
+});
+
+describe("seeded boundaries through the API vs the printed chart", () => {
+  it("covers at least 30 boundaries, every rank, both editions, each marked from memory", () => {
+    expect(SEEDS.length).toBeGreaterThanOrEqual(30);
+    for (const e of [SEEDED_CURRENT, SEEDED_RETIRED]) {
+      expect(new Set(SEEDS.filter((s) => s.edition === e).map((s) => s.rank))).toEqual(new Set(RANKS));
+    }
+    for (const s of SEEDS) expect(s.basis).toMatch(/from memory/);
+  });
+
+  it.each(SEEDS.map((s) => [`${s.edition} ${s.name} base ${s.baseMa}${s.pm ? ` ± ${s.pm}` : ""} (${s.source}, ${s.basis})`, s] as const))("%s", (_label, s) => {
+    const iv = bodies[s.edition]!.intervals.find((i) => i.name === s.name);
+    expect(iv, `${s.name} in ${s.edition}`).toBeDefined();
+    expect(iv!.rank).toBe(s.rank);
+    expect(iv!.baseMa).toBe(s.baseMa);
+    if (s.pm !== undefined) expect(iv!.baseUncertaintyMa).toBe(s.pm);
+    if (s.approx !== undefined) expect(iv!.approximate).toBe(s.approx);
+  });
+});
+
+describe("GET /api/timescales", () => {
+  it("lists the published editions, current first, with slug, label, status and source", async () => {
+    const res = await getList();
+    expect(res.status).toBe(200);
+    expect(res.headers.get("Content-Type")).toMatch(/^application\/json/);
+    const body = (await res.json()) as { editions: Record<string, unknown>[] };
+    const seeded = body.editions.filter((e) => e.slug === SEEDED_CURRENT || e.slug === SEEDED_RETIRED);
+    expect(seeded.map((e) => [e.slug, e.label, e.status])).toEqual([
+      [SEEDED_CURRENT, "ICS 2024/12", "current"],
+      [SEEDED_RETIRED, "ICS 2023/09", "retired"],
+    ]);
+    expect(body.editions[0].status).toBe("current");
+    for (const e of body.editions) {
+      expect(Object.keys(e).sort()).toEqual(["label", "licence", "slug", "source", "status"]);
+      expect(e.status).not.toBe("draft");
+    }
+    expect(String(seeded[0].source)).toContain("Episodes 48: 105–115");
+  });
+});
+
+describe("GET /api/timescales/:slug", () => {
+  it("gives the edition and its intervals in the documented shape", () => {
+    const body = bodies[SEEDED_CURRENT]!;
+    expect(body.edition).toMatchObject({ slug: SEEDED_CURRENT, label: "ICS 2024/12", status: "current" });
+    expect(Array.isArray(body.edition.corrections)).toBe(true);
+    expect((body.edition.corrections as unknown[]).length).toBeGreaterThan(0);
+    expect(body.intervals).toHaveLength(177);
+    for (const iv of body.intervals) {
+      expect(Object.keys(iv).sort()).toEqual(["approximate", "baseMa", "baseUncertaintyMa", "color", "gssp", "name", "parent", "rank", "topMa"]);
+      expect(RANKS).toContain(iv.rank);
+      expect(iv.color).toMatch(/^#[0-9A-F]{6}$/i);
+      expect(typeof iv.baseMa).toBe("number");
+    }
+    expect(new Set(body.intervals.map((i) => i.rank))).toEqual(new Set(["eon", "era", "period", "subperiod", "epoch", "age"]));
+    // The example in the API's own description.
+    expect(body.intervals.find((i) => i.name === "Cambrian")).toEqual({
+      name: "Cambrian",
+      rank: "period",
+      parent: "Paleozoic",
+      baseMa: 538.8,
+      baseUncertaintyMa: 0.6,
+      topMa: 486.85,
+      color: "#7FA056",
+      gssp: true,
+      approximate: false,
+    });
+  });
+
+  it("gives null where the chart prints no ±, and English names", () => {
+    const body = bodies[SEEDED_CURRENT]!;
+    const by = (n: string) => body.intervals.find((i) => i.name === n)!;
+    expect(by("Hadean").baseUncertaintyMa).toBeNull();
+    expect(by("Holocene").baseUncertaintyMa).toBeNull();
+    expect(by("Holocene").topMa).toBe(0);
+    expect(by("Late Pleistocene").parent).toBe("Pleistocene"); // English name from the corrections
+    expect(body.intervals.find((i) => i.name === "Kreide")).toBeUndefined();
+    // 2023/09's file states no ratification at all: null, not false.
+    expect(bodies[SEEDED_RETIRED]!.intervals.every((i) => i.gssp === null)).toBe(true);
+  });
+
+  it("keeps chart order: Hadean first, Meghalayan last, parents before children", () => {
+    const names = bodies[SEEDED_CURRENT]!.intervals.map((i) => i.name);
+    expect(names[0]).toBe("Hadean");
+    expect(names[names.length - 1]).toBe("Meghalayan");
+    const seen = new Set<string>();
+    for (const iv of bodies[SEEDED_CURRENT]!.intervals) {
+      if (iv.parent) expect(seen.has(iv.parent)).toBe(true);
+      seen.add(iv.name);
+    }
+  });
+
+  it("answers 404 with an error message for an unknown slug", async () => {
+    const res = await getEdition("ics-1999-01");
+    expect(res.status).toBe(404);
+    expect(res.headers.get("Content-Type")).toMatch(/^application\/json/);
+    const body = (await res.json()) as { error: { message: string } };
+    expect(body.error.message).toMatch(/ics-1999-01/);
+  });
+});
+
+describe("drafts are not public", () => {
+  let slug: string;
+  let actorId: number;
+  beforeAll(async () => {
+    const org = await createOrganisation();
+    const { user } = await createMember(org, "editor");
+    actorId = user.id;
+    const seeded = await ChartEdition.findOne({ where: { slug: SEEDED_CURRENT } });
+    slug = unique("draft-api");
+    await createDraftEdition({
+      meta: { slug, ...TEST_META },
+      intervals: await editionIntervals(seeded!.id),
+      corrections: [],
+      sourceFile: null,
+      actor: { id: actorId },
+      organisationId: org.id,
+      format: "csv",
+    });
+  });
+  afterAll(async () => {
+    await discardDraft(slug, { id: actorId }, null);
+  });
+
+  it("404 for a draft, and the list leaves it out", async () => {
+    expect((await getEdition(slug)).status).toBe(404);
+    const list = (await (await getList()).json()) as { editions: { slug: string }[] };
+    expect(list.editions.map((e) => e.slug)).not.toContain(slug);
+  });
+});
+
+describe("caching: ETag and If-None-Match", () => {
+  it("sends a strong ETag and Cache-Control, and 304 with no body when it matches", async () => {
+    const first = await getEdition(SEEDED_CURRENT);
+    const etag = first.headers.get("ETag")!;
+    expect(etag).toMatch(/^"[A-Za-z0-9_-]+"$/);
+    expect(first.headers.get("Cache-Control")).toMatch(/public, max-age=\d+/);
+    const again = await getEdition(SEEDED_CURRENT);
+    expect(again.headers.get("ETag")).toBe(etag);
+
+    const cached = await getEdition(SEEDED_CURRENT, { "If-None-Match": etag });
+    expect(cached.status).toBe(304);
+    expect(await cached.text()).toBe("");
+    expect(cached.headers.get("ETag")).toBe(etag);
+    // Weak form and a list of tags also match (weak comparison for GET).
+    expect((await getEdition(SEEDED_CURRENT, { "If-None-Match": `"other", W/${etag}` })).status).toBe(304);
+    expect((await getEdition(SEEDED_CURRENT, { "If-None-Match": "*" })).status).toBe(304);
+  });
+
+  it("a different edition or a stale tag gets the full body", async () => {
+    const a = (await getEdition(SEEDED_CURRENT)).headers.get("ETag")!;
+    const b = await getEdition(SEEDED_RETIRED, { "If-None-Match": a });
+    expect(b.status).toBe(200);
+    expect(b.headers.get("ETag")).not.toBe(a);
+    expect((await getEdition(SEEDED_CURRENT, { "If-None-Match": '"stale"' })).status).toBe(200);
+  });
+
+  it("the list has an ETag and answers 304 too", async () => {
+    const etag = (await getList()).headers.get("ETag")!;
+    expect(etag).toBeTruthy();
+    expect((await getList({ "If-None-Match": etag })).status).toBe(304);
+  });
+});
