@@ -15,5 +15,8 @@ export default async function setup() {
     await migrateAndSeed({ demo: true, db, quiet: true });
   } finally {
     await db.close();
+    // The demo seeders use the models, bound to the process's own instance: close it too.
+    const { sequelize } = await import("../../db/sequelize.ts");
+    await sequelize.close();
   }
 }

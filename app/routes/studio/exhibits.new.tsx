@@ -1,0 +1,159 @@
+import { useState } from "react";
+import { data, Form, redirect, useNavigation } from "react-router";
+import { Field, FormMessage } from "~/components/forms";
+import { LengthMediumSchema, NewExhibitSchema, readRouteFile, SettingsSchema, slugify } from "~/lib/exhibit";
+import { MEDIUM_TYPES } from "~/lib/scale/legibility";
+import { AGE_UNITS, LENGTH_UNITS } from "~/lib/units";
+import { parseForm } from "~/lib/validation";
+import { ChartEdition } from "#db/models/index.ts";
+import { requireMember } from "#server/auth.ts";
+import { currentEdition, editionIntervals, readLimitedFormData } from "#server/editions.ts";
+import { createExhibit, ExhibitError, type MediumInput } from "#server/exhibits.ts";
+import { noticeHeader } from "#server/session.ts";
+import { Op } from "sequelize";
+import type { Route } from "./+types/exhibits.new";
+
+export const meta: Route.MetaFunction = () => [{ title: "New exhibit · Eonscale" }];
+
+const MAX_ROUTE_BYTES = 8 * 1024 * 1024;
+
+export async function loader({ request }: Route.LoaderArgs) {
+  await requireMember(request, ["designer"]);
+  const [editions, current] = await Promise.all([ChartEdition.findAll({ where: { status: { [Op.ne]: "draft" } }, order: [["status", "ASC"], ["slug", "DESC"]] }), currentEdition()]);
+  const intervals = current ? await editionIntervals(current.id) : [];
+  return {
+    editions: editions.map((e) => ({ slug: e.slug, label: e.label, status: e.status })),
+    current: current?.slug ?? null,
+    // For "span from the base of …": eons, eras and periods of the current edition.
+    starts: intervals.filter((i) => ["eon", "era", "period"].includes(i.rank)).map((i) => ({ name: i.name, rank: i.rank, baseMa: i.baseMa })),
+  };
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const member = await requireMember(request, ["designer"]);
+  let form: FormData;
+  try {
+    form = await readLimitedFormData(request, MAX_ROUTE_BYTES);
+  } catch (error) {
+    return data({ error: (error as Error).message, fields: { file: (error as Error).message } as Record<string, string> }, { status: 413 });
+  }
+  const fields: Record<string, string> = {};
+  const base = parseForm(NewExhibitSchema, form);
+  const settings = parseForm(SettingsSchema, form);
+  if (!base.ok) Object.assign(fields, base.fieldErrors);
+  if (!settings.ok) Object.assign(fields, settings.fieldErrors);
+  let medium: MediumInput | null = null;
+  if (base.ok && base.data.mediumKind === "length") {
+    const m = parseForm(LengthMediumSchema, form);
+    if (m.ok) medium = { kind: "length", ...m.data };
+    else Object.assign(fields, m.fieldErrors);
+  } else if (base.ok) {
+    const file = form.get("routeFile");
+    if (!(file instanceof File) || file.size === 0) fields.routeFile = "Upload the route as a GeoJSON or GPX file.";
+    else {
+      const r = readRouteFile(file.name, await file.text());
+      if (r.ok) medium = { kind: "route", geometry: r.geometry, lengthMetres: r.lengthMetres, vertexCount: r.vertexCount, sourceName: file.name };
+      else fields.routeFile = r.message;
+    }
+  }
+  if (!base.ok || !settings.ok || !medium) return data({ error: "Check the highlighted fields.", fields }, { status: 400 });
+  const slug = base.data.slug ?? slugify(settings.data.title);
+  if (!slug) return data({ error: "Check the highlighted fields.", fields: { slug: "Give the exhibit a slug made of letters and digits." } }, { status: 400 });
+  try {
+    await createExhibit({ organisationId: member.organisation.id, user: member.user }, { slug, editionSlug: base.data.editionSlug, settings: settings.data, medium });
+  } catch (error) {
+    if (error instanceof ExhibitError) return data({ error: error.message, fields: { [error.field]: error.message } }, { status: 400 });
+    throw error;
+  }
+  return redirect(`/studio/exhibits/${slug}`, { headers: { "Set-Cookie": await noticeHeader({ kind: "success", message: `Exhibit created. Now add its markers.` }) } });
+}
+
+export default function NewExhibit({ loaderData, actionData }: Route.ComponentProps) {
+  const f = actionData?.fields ?? {};
+  const [kind, setKind] = useState<"length" | "route">("length");
+  const [older, setOlder] = useState("4567");
+  const [olderUnit, setOlderUnit] = useState("Ma");
+  const busy = useNavigation().state === "submitting";
+  return (
+    <div className="max-w-3xl">
+      <h1 className="text-3xl">New exhibit</h1>
+      <p className="mt-1 text-ink-soft">Choose the span of time and what it is laid out on. Markers come next.</p>
+      <FormMessage>{actionData?.error}</FormMessage>
+      <Form method="post" encType="multipart/form-data" noValidate className="card mt-6">
+        <Field label="Title" name="title" required error={f.title} placeholder="e.g. Riverside walk through deep time" />
+        <Field label="Web address (slug)" name="slug" hint="Optional: made from the title when left empty." error={f.slug} />
+        <div className="mb-4">
+          <label htmlFor="editionSlug" className="mb-1 block text-sm font-semibold">Chart edition to pin</label>
+          <select id="editionSlug" name="editionSlug" defaultValue={loaderData.current ?? undefined} className="field">
+            {loaderData.editions.map((e) => <option key={e.slug} value={e.slug}>{e.label}{e.status === "current" ? " (current)" : ` (${e.status})`}</option>)}
+          </select>
+          {f.editionSlug ? <p className="mt-1 font-sans text-sm text-danger">{f.editionSlug}</p> : null}
+        </div>
+        <fieldset className="mb-4 rounded border border-rule p-4">
+          <legend className="px-1 font-sans text-sm font-semibold">Span (years before present)</legend>
+          <div className="mb-3">
+            <label htmlFor="start-pick" className="mb-1 block font-sans text-sm">Start at the base of…</label>
+            <select id="start-pick" className="field" defaultValue="" onChange={(e) => { const s = loaderData.starts.find((x) => x.name === e.target.value); if (s) { setOlder(String(s.baseMa)); setOlderUnit("Ma"); } }}>
+              <option value="">(type the ages below)</option>
+              {loaderData.starts.map((s) => <option key={s.name} value={s.name}>{s.name} ({s.rank}, {s.baseMa} Ma) to the present</option>)}
+            </select>
+          </div>
+          <div className="grid grid-cols-[1fr_auto] gap-2">
+            <Field label="Older end" name="spanOlderValue" inputMode="decimal" value={older} onChange={(e) => setOlder(e.target.value)} error={f.spanOlderValue} />
+            <UnitSelect name="spanOlderUnit" label="unit" units={AGE_UNITS} value={olderUnit} onChange={setOlderUnit} />
+            <Field label="Younger end" name="spanYoungerValue" inputMode="decimal" defaultValue="0" error={f.spanYoungerValue} />
+            <UnitSelect name="spanYoungerUnit" label="unit" units={AGE_UNITS} defaultValue="Ma" />
+          </div>
+        </fieldset>
+        <fieldset className="mb-4 rounded border border-rule p-4">
+          <legend className="px-1 font-sans text-sm font-semibold">Medium</legend>
+          <div className="mb-3 flex gap-6 font-sans">
+            <label className="flex items-center gap-2"><input type="radio" name="mediumKind" value="length" checked={kind === "length"} onChange={() => setKind("length")} /> A straight length (wall, rope, banner)</label>
+            <label className="flex items-center gap-2"><input type="radio" name="mediumKind" value="route" checked={kind === "route"} onChange={() => setKind("route")} /> A route (GeoJSON or GPX)</label>
+          </div>
+          <div className="mb-4">
+            <label htmlFor="mediumType" className="mb-1 block text-sm font-semibold">What it is</label>
+            <select id="mediumType" name="mediumType" defaultValue={kind === "route" ? "trail" : "wall"} key={kind} className="field">
+              {MEDIUM_TYPES.map((m) => <option key={m} value={m}>{m}</option>)}
+            </select>
+          </div>
+          {kind === "length" ? (
+            <div className="grid grid-cols-[1fr_auto] gap-2">
+              <Field label="Length" name="lengthValue" inputMode="decimal" required error={f.lengthValue} />
+              <UnitSelect name="lengthUnit" label="unit" units={LENGTH_UNITS} defaultValue="m" />
+              <Field label="Print panel width (optional)" name="panelWidthValue" inputMode="decimal" error={f.panelWidthValue} hint="For banners and wall panels printed in tiles." />
+              <UnitSelect name="panelWidthUnit" label="unit" units={LENGTH_UNITS} defaultValue="mm" />
+            </div>
+          ) : (
+            <div className="mb-2">
+              <label htmlFor="routeFile" className="mb-1 block text-sm font-semibold">Route file</label>
+              <p className="mb-1 font-sans text-sm text-ink-soft">A GPX track or a GeoJSON LineString. Its length is measured on the WGS84 ellipsoid; the walk starts at the file's first point (the older end).</p>
+              <input id="routeFile" name="routeFile" type="file" accept=".gpx,.geojson,.json,application/gpx+xml,application/geo+json" className="field" aria-invalid={f.routeFile ? true : undefined} />
+              {f.routeFile ? <p className="mt-1 font-sans text-sm text-danger">{f.routeFile}</p> : null}
+            </div>
+          )}
+        </fieldset>
+        <div className="mb-6">
+          <label htmlFor="unitsPreference" className="mb-1 block text-sm font-semibold">Show distances in</label>
+          <select id="unitsPreference" name="unitsPreference" defaultValue="metric" className="field">
+            <option value="metric">metric (m, km)</option>
+            <option value="us">US customary (ft, mi)</option>
+          </select>
+        </div>
+        <button type="submit" className="btn" disabled={busy}>{busy ? "Creating…" : "Create the exhibit"}</button>
+      </Form>
+    </div>
+  );
+}
+
+export function UnitSelect({ name, label, units, ...rest }: { name: string; label: string; units: readonly string[]; value?: string; defaultValue?: string; onChange?: (v: string) => void }) {
+  const { onChange, ...props } = rest;
+  return (
+    <div className="mb-4">
+      <label htmlFor={name} className="mb-1 block text-sm font-semibold">{label}</label>
+      <select id={name} name={name} className="field w-24" {...props} onChange={onChange ? (e) => onChange(e.target.value) : undefined}>
+        {units.map((u) => <option key={u} value={u}>{u}</option>)}
+      </select>
+    </div>
+  );
+}

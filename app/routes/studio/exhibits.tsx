@@ -1,0 +1,152 @@
+import { Form, Link, useSearchParams } from "react-router";
+import { formatLength } from "~/lib/exhibit";
+import { toMetres } from "~/lib/units";
+import { ChartEdition, Exhibit, ExhibitMedium, Marker, User } from "#db/models/index.ts";
+import { requireMember } from "#server/auth.ts";
+import { sequelize } from "#db/sequelize.ts";
+import type { Route } from "./+types/exhibits";
+
+export const meta: Route.MetaFunction = () => [{ title: "Exhibits · Eonscale" }];
+
+const SORTS = ["title", "medium", "length", "edition", "status", "updated"] as const;
+type Sort = (typeof SORTS)[number];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const member = await requireMember(request);
+  const url = new URL(request.url);
+  const q = (url.searchParams.get("q") ?? "").trim().toLowerCase();
+  const medium = url.searchParams.get("medium") ?? "";
+  const recheck = url.searchParams.get("recheck") === "1";
+  const sort: Sort = (SORTS as readonly string[]).includes(url.searchParams.get("sort") ?? "") ? (url.searchParams.get("sort") as Sort) : "updated";
+  const dir = url.searchParams.get("dir") === "asc" ? 1 : url.searchParams.get("dir") === "desc" ? -1 : sort === "updated" ? -1 : 1;
+  const exhibits = await Exhibit.findAll({
+      where: { organisationId: member.organisation.id },
+      include: [
+        { model: ExhibitMedium, as: "medium", required: true },
+        { model: ChartEdition, as: "edition", required: true },
+        { model: User, as: "updatedBy" },
+      ],
+  });
+  const counts = (await Marker.findAll({
+    where: { exhibitId: exhibits.map((e) => e.id) },
+    attributes: ["exhibitId", [sequelize.fn("COUNT", sequelize.col("id")), "n"]],
+    group: ["exhibitId"],
+    raw: true,
+  })) as unknown as { exhibitId: number; n: string }[];
+  const markerCount = new Map(counts.map((c) => [c.exhibitId, Number(c.n)]));
+  let rows = exhibits.map((e) => {
+    const m = e.medium!;
+    const metres = m.kind === "route" ? (m.routeLengthM ?? 0) : toMetres({ value: Number(m.lengthValue), unit: m.lengthUnit! });
+    return {
+      slug: e.slug,
+      title: e.title,
+      medium: m.kind === "route" ? `route (${m.mediumType})` : m.mediumType,
+      metres,
+      length: formatLength(metres, e.unitsPreference, metres / 1e5),
+      edition: e.edition!.label,
+      needsRecheck: e.edition!.status !== "current",
+      status: e.status,
+      revision: e.revision,
+      markers: markerCount.get(e.id) ?? 0,
+      updated: e.updatedAt.toISOString(),
+      updatedBy: e.updatedBy?.name ?? null,
+    };
+  });
+  if (q) rows = rows.filter((r) => r.title.toLowerCase().includes(q) || r.slug.includes(q));
+  if (medium) rows = rows.filter((r) => r.medium.includes(medium));
+  if (recheck) rows = rows.filter((r) => r.needsRecheck);
+  const key: Record<Sort, (r: (typeof rows)[number]) => string | number> = {
+    title: (r) => r.title.toLowerCase(),
+    medium: (r) => r.medium,
+    length: (r) => r.metres,
+    edition: (r) => r.edition,
+    status: (r) => r.status,
+    updated: (r) => r.updated,
+  };
+  rows.sort((a, b) => (key[sort](a) < key[sort](b) ? -dir : key[sort](a) > key[sort](b) ? dir : 0));
+  return { rows, total: exhibits.length, canEdit: member.role === "designer", filters: { q, medium, recheck, sort, dir: dir === 1 ? "asc" : "desc" } };
+}
+
+export default function Exhibits({ loaderData }: Route.ComponentProps) {
+  const { rows, total, canEdit, filters } = loaderData;
+  const [params] = useSearchParams();
+  const sortLink = (s: Sort) => {
+    const next = new URLSearchParams(params);
+    next.set("sort", s);
+    next.set("dir", filters.sort === s && filters.dir === "asc" ? "desc" : "asc");
+    return `?${next}`;
+  };
+  const header = (s: Sort, label: string) => (
+    <th scope="col" className="p-3" aria-sort={filters.sort === s ? (filters.dir === "asc" ? "ascending" : "descending") : undefined}>
+      <Link to={sortLink(s)} className="no-underline">{label}{filters.sort === s ? (filters.dir === "asc" ? " ▲" : " ▼") : ""}</Link>
+    </th>
+  );
+  return (
+    <div>
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        <div>
+          <h1 className="text-3xl">Exhibits</h1>
+          <p className="mt-1 text-ink-soft">Every time-as-distance exhibit of your organisation, with the chart edition it is pinned to.</p>
+        </div>
+        {canEdit ? <Link to="/studio/exhibits/new" className="btn no-underline">New exhibit</Link> : null}
+      </div>
+      <Form method="get" className="mt-6 flex flex-wrap items-end gap-3 font-sans text-sm">
+        <div>
+          <label htmlFor="q" className="mb-1 block font-semibold">Title contains</label>
+          <input id="q" name="q" defaultValue={filters.q} className="field w-56" />
+        </div>
+        <div>
+          <label htmlFor="medium" className="mb-1 block font-semibold">Medium</label>
+          <select id="medium" name="medium" defaultValue={filters.medium} className="field w-40">
+            <option value="">any</option>
+            {["route", "trail", "wall", "rope", "banner", "other"].map((m) => <option key={m} value={m}>{m}</option>)}
+          </select>
+        </div>
+        <label className="flex min-h-10 items-center gap-2"><input type="checkbox" name="recheck" value="1" defaultChecked={filters.recheck} /> Needs re-check only</label>
+        <input type="hidden" name="sort" value={filters.sort} />
+        <button type="submit" className="btn-quiet">Filter</button>
+      </Form>
+      {total === 0 ? (
+        <div className="card mt-6">
+          <h2 className="text-xl">No exhibits yet</h2>
+          <p className="mt-2 text-ink-soft">
+            {canEdit ? "Start with a span of the timescale and a medium — a wall, a rope, a banner, or a real route from a GPX track." : "When a designer of your organisation starts an exhibit, it appears here."}
+          </p>
+          {canEdit ? <Link to="/studio/exhibits/new" className="btn mt-4 no-underline">Start an exhibit</Link> : null}
+        </div>
+      ) : (
+        <div className="card mt-6 overflow-x-auto p-0">
+          <table className="w-full text-left text-sm">
+            <caption className="sr-only">Exhibits, sortable by column</caption>
+            <thead className="border-b border-rule bg-paper">
+              <tr>
+                {header("title", "Title")}
+                {header("medium", "Medium")}
+                {header("length", "Length")}
+                {header("edition", "Chart edition")}
+                {header("status", "Status")}
+                {header("updated", "Updated")}
+              </tr>
+            </thead>
+            <tbody>
+              {rows.map((r) => (
+                <tr key={r.slug} className="border-b border-rule last:border-0">
+                  <td className="p-3"><Link to={`/studio/exhibits/${r.slug}`} className="font-semibold">{r.title}</Link><div className="text-xs text-ink-soft">{r.markers} markers</div></td>
+                  <td className="p-3">{r.medium}</td>
+                  <td className="num p-3">{r.length}</td>
+                  <td className="p-3">
+                    {r.edition}
+                    {r.needsRecheck ? <span className="ml-2 inline-block rounded bg-sandstone-100 px-2 py-0.5 text-xs font-semibold text-sandstone-700">needs re-check</span> : null}
+                  </td>
+                  <td className="p-3">{r.status} · rev. {r.revision}</td>
+                  <td className="p-3">{r.updated.slice(0, 10)}{r.updatedBy ? ` · ${r.updatedBy}` : ""}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          {rows.length === 0 ? <p className="p-4 text-ink-soft">No exhibit matches these filters.</p> : null}
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,29 @@
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import { sequelize } from "../sequelize.ts";
+import type { Exhibit } from "./exhibit.ts";
+
+/** A sub-span of an exhibit shown at a magnified scale, with its own scale statement. */
+export class Inset extends Model<InferAttributes<Inset>, InferCreationAttributes<Inset>> {
+  declare id: CreationOptional<number>;
+  declare exhibitId: ForeignKey<Exhibit["id"]>;
+  declare olderMa: string | number;
+  declare youngerMa: string | number;
+  declare magnification: number;
+  declare label: string;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+Inset.init(
+  {
+    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    exhibitId: { type: DataTypes.INTEGER, allowNull: false },
+    olderMa: { type: DataTypes.DECIMAL, allowNull: false },
+    youngerMa: { type: DataTypes.DECIMAL, allowNull: false },
+    magnification: { type: DataTypes.DOUBLE, allowNull: false },
+    label: { type: DataTypes.STRING(200), allowNull: false },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "insets" },
+);
