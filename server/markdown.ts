@@ -12,5 +12,5 @@ const ALLOWED = {
 
 export function renderMarkdown(text: string): string {
   if (!text.trim()) return "";
-  return sanitizeHtml(marked.parse(text, { async: false, gfm: true, breaks: false }) as string, ALLOWED);
+  return sanitizeHtml(marked.parse(text, { async: false, gfm: true, breaks: false }) as string, ALLOWED).trim();
 }

@@ -15,7 +15,6 @@ import type { Route } from "./+types/exhibits.new";
 
 export const meta: Route.MetaFunction = () => [{ title: "New exhibit · Eonscale" }];
 
-const MAX_ROUTE_BYTES = 8 * 1024 * 1024;
 
 export async function loader({ request }: Route.LoaderArgs) {
   await requireMember(request, ["designer"]);
@@ -33,7 +32,7 @@ export async function action({ request }: Route.ActionArgs) {
   const member = await requireMember(request, ["designer"]);
   let form: FormData;
   try {
-    form = await readLimitedFormData(request, MAX_ROUTE_BYTES);
+    form = await readLimitedFormData(request);
   } catch (error) {
     return data({ error: (error as Error).message, fields: { file: (error as Error).message } as Record<string, string> }, { status: 413 });
   }
@@ -58,7 +57,7 @@ export async function action({ request }: Route.ActionArgs) {
   }
   if (!base.ok || !settings.ok || !medium) return data({ error: "Check the highlighted fields.", fields }, { status: 400 });
   const slug = base.data.slug ?? slugify(settings.data.title);
-  if (!slug) return data({ error: "Check the highlighted fields.", fields: { slug: "Give the exhibit a slug made of letters and digits." } }, { status: 400 });
+  if (!slug) return data({ error: "Check the highlighted fields.", fields: { slug: "Give the exhibit a slug made of letters and digits." } as Record<string, string> }, { status: 400 });
   try {
     await createExhibit({ organisationId: member.organisation.id, user: member.user }, { slug, editionSlug: base.data.editionSlug, settings: settings.data, medium });
   } catch (error) {
@@ -69,7 +68,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function NewExhibit({ loaderData, actionData }: Route.ComponentProps) {
-  const f = actionData?.fields ?? {};
+  const f: Record<string, string> = actionData?.fields ?? {};
   const [kind, setKind] = useState<"length" | "route">("length");
   const [older, setOlder] = useState("4567");
   const [olderUnit, setOlderUnit] = useState("Ma");

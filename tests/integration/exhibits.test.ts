@@ -1,0 +1,272 @@
+// The exhibit composer against the real database: creating, changing and exporting exhibits,
+// validation that saves nothing, roles and organisations, optimistic locking, edition impact.
+import geodesic from "geographiclib-geodesic";
+import { beforeAll, describe, expect, it } from "vitest";
+import * as composer from "../../app/routes/studio/exhibit.tsx";
+import * as newExhibit from "../../app/routes/studio/exhibits.new.tsx";
+import * as list from "../../app/routes/studio/exhibits.tsx";
+import * as scheduleRoute from "../../app/routes/studio/exhibit.schedule-csv.ts";
+import * as pointsRoute from "../../app/routes/studio/exhibit.points-geojson.ts";
+import { AuditEvent, DatedEvent, Exhibit, Marker, Membership, Organisation, User } from "../../db/models/index.ts";
+import { SCHEDULE_HEADER } from "../../app/lib/exhibit/exports.ts";
+import { readCsv } from "../../app/lib/timescale/csv.ts";
+import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle } from "../helpers/db.ts";
+
+type Body = Record<string, unknown> & { error?: string; fields?: Record<string, string> };
+
+let org: Organisation;
+let designerCookie: string;
+let reviewerCookie: string;
+let outsiderCookie: string;
+
+function multipart(url: string, fields: Record<string, string>, file: { name: string; text: string } | null, cookie: string) {
+  const form = new FormData();
+  for (const [k, v] of Object.entries(fields)) form.set(k, v);
+  if (file) form.set("routeFile", new File([file.text], file.name));
+  return new Request(new URL(url, "http://test.local"), { method: "POST", body: form, headers: { Cookie: cookie, "x-eonscale-client-ip": "203.0.113.20" } });
+}
+
+const wall = { title: "Test wall", editionSlug: "ics-2024-12", mediumKind: "length", spanOlderValue: "538.8", spanOlderUnit: "Ma", spanYoungerValue: "0", spanYoungerUnit: "Ma", mediumType: "wall", unitsPreference: "metric", lengthValue: "10.776", lengthUnit: "m" };
+
+async function create(fields: Record<string, string>, file: { name: string; text: string } | null = null, cookie = designerCookie) {
+  return settle(() => newExhibit.action(routeArgs(multipart("/studio/exhibits/new", fields, file, cookie))));
+}
+
+async function post(slug: string, fields: Record<string, string>, cookie = designerCookie) {
+  return settle(() => composer.action(routeArgs(formRequest(`/studio/exhibits/${slug}`, fields, { cookie }), { slug })));
+}
+
+async function load(slug: string, cookie = designerCookie) {
+  const res = await settle(() => composer.loader(routeArgs(getRequest(`/studio/exhibits/${slug}`, { cookie }), { slug })));
+  return res as { status: number; body: Awaited<ReturnType<typeof composer.loader>> };
+}
+
+async function revisionOf(slug: string) {
+  return (await Exhibit.findOne({ where: { organisationId: org.id, slug } }))!.revision;
+}
+
+beforeAll(async () => {
+  org = await createOrganisation();
+  designerCookie = await cookieFor((await createMember(org, "designer")).user.id);
+  reviewerCookie = await cookieFor((await createMember(org, "reviewer")).user.id);
+  outsiderCookie = await cookieFor((await createMember(await createOrganisation(), "designer")).user.id);
+});
+
+describe("creating an exhibit", () => {
+  it("creates a wall exhibit and audits it", async () => {
+    const res = await create({ ...wall, slug: "test-wall" });
+    expect(res.status).toBe(302);
+    expect(res.headers.get("Location")).toBe("/studio/exhibits/test-wall");
+    const e = await Exhibit.findOne({ where: { organisationId: org.id, slug: "test-wall" } });
+    expect(e).toMatchObject({ title: "Test wall", revision: 1, status: "draft" });
+    expect(await AuditEvent.count({ where: { objectType: "exhibit", objectId: String(e!.id), action: "exhibit.create" } })).toBe(1);
+  });
+
+  it.each([
+    [{ title: "" }, "title", /title/],
+    [{ spanOlderValue: "abc" }, "spanOlderValue", /must be a number/],
+    [{ spanOlderValue: "10", spanYoungerValue: "20" }, "spanOlderValue", /older end of the span must be older/],
+    [{ spanOlderUnit: "Myr" }, "spanOlderUnit", /age unit/],
+    [{ lengthValue: "-3" }, "lengthValue", /greater than zero/],
+    [{ lengthUnit: "furlong" }, "lengthUnit", /length unit/],
+    [{ mediumType: "mural" }, "mediumType", /Choose what the exhibit is/],
+    [{ unitsPreference: "imperial" }, "unitsPreference", /metric or US/],
+    [{ slug: "Not A Slug!" }, "slug", /lower-case letters/],
+    [{ editionSlug: "ics-1999-01" }, "editionSlug", /published chart edition/],
+  ])("refuses %o with a message on %s and saves nothing", async (change, field, message) => {
+    const before = await Exhibit.count();
+    const res = await create({ ...wall, slug: `bad-${Math.random().toString(36).slice(2, 8)}`, ...change });
+    expect(res.status).toBe(400);
+    expect((res.body as Body).fields?.[field]).toMatch(message);
+    expect(await Exhibit.count()).toBe(before);
+  });
+
+  it("refuses a duplicate slug in the same organisation", async () => {
+    const res = await create({ ...wall, slug: "test-wall" });
+    expect((res.body as Body).fields?.slug).toMatch(/already has an exhibit/);
+  });
+
+  it("creates a route exhibit from a GPX file and measures it on the ellipsoid", async () => {
+    const gpx = `<?xml version="1.0"?><gpx version="1.1" creator="test" xmlns="http://www.topografix.com/GPX/1/1"><trk><name>t</name><trkseg>
+      <trkpt lat="54.0" lon="-3.0"></trkpt><trkpt lat="54.001" lon="-2.999"></trkpt><trkpt lat="54.002" lon="-2.997"></trkpt></trkseg></trk></gpx>`;
+    const res = await create({ ...wall, slug: "test-route", mediumKind: "route", mediumType: "trail" }, { name: "path.gpx", text: gpx });
+    expect(res.status).toBe(302);
+    const { body } = await load("test-route");
+    const medium = body.spec.medium;
+    expect(medium.kind).toBe("route");
+    // GeographicLib (Karney 2013) as the reference for the two legs.
+    const g = geodesic.Geodesic.WGS84;
+    const ref = g.Inverse(54.0, -3.0, 54.001, -2.999).s12! + g.Inverse(54.001, -2.999, 54.002, -2.997).s12!;
+    expect(medium.kind === "route" && Math.abs(medium.lengthMetres - ref)).toBeLessThan(1e-6);
+  });
+
+  it("refuses a broken route file with the reason", async () => {
+    const res = await create({ ...wall, slug: "broken-route", mediumKind: "route", mediumType: "trail" }, { name: "x.geojson", text: '{"type":"LineString","coordinates":[[200,10],[1,2]]}' });
+    expect(res.status).toBe(400);
+    expect((res.body as Body).fields?.routeFile).toMatch(/longitude/i);
+    expect(await Exhibit.count({ where: { slug: "broken-route" } })).toBe(0);
+  });
+});
+
+describe("composing", () => {
+  it("adds every period base, a library event and a custom age; numbers them from the older end", async () => {
+    let rev = await revisionOf("test-wall");
+    expect((await post("test-wall", { intent: "add-boundaries", rank: "period", revision: String(rev) })).status).toBe(302);
+    rev++;
+    const event = await DatedEvent.findOne({ where: { organisationId: null }, order: [["ageMa", "ASC"]] });
+    expect((await post("test-wall", { intent: "add-event", eventId: String(event!.id), revision: String(rev) })).status).toBe(302);
+    rev++;
+    expect((await post("test-wall", { intent: "add-custom", label: "Local quarry opened", ageValue: "150", ageUnit: "a", uncertaintyValue: "10", source: "Parish records (invented test source)", text: "A *small* quarry.", revision: String(rev) })).status).toBe(302);
+    const { body } = await load("test-wall");
+    expect(body.markers.filter((m) => m.kind === "boundary").map((m) => m.intervalName)).toEqual(["Cambrian", "Ordovician", "Silurian", "Devonian", "Carboniferous", "Permian", "Triassic", "Jurassic", "Cretaceous", "Paleogene", "Neogene", "Quaternary"]);
+    expect(body.markers[0]).toMatchObject({ number: 1, intervalName: "Cambrian", ageMa: 538.8 });
+    const custom = body.markers.find((m) => m.kind === "custom")!;
+    expect(custom).toMatchObject({ label: "Local quarry opened", ageMa: 0.00015, uncertaintyMa: 0.00001 });
+    expect(custom.html).toBe("<p>A <em>small</em> quarry.</p>");
+    expect(body.exhibit.revision).toBe(rev + 1);
+  });
+
+  it("sanitises marker Markdown", async () => {
+    const rev = await revisionOf("test-wall");
+    const marker = await Marker.findOne({ where: { kind: "custom" }, order: [["id", "DESC"]] });
+    await post("test-wall", { intent: "edit-marker", markerId: String(marker!.id), label: "Quarry", text: 'Hi <script>alert(1)</script><img src=x onerror=alert(1)> [link](javascript:alert(1))', revision: String(rev) });
+    const { body } = await load("test-wall");
+    const html = body.markers.find((m) => m.id === String(marker!.id))!.html;
+    expect(html).not.toMatch(/script|onerror|javascript:/i);
+  });
+
+  it.each([
+    [{ intent: "add-custom", label: "No source", ageValue: "100", ageUnit: "Ma", source: "" }, "source", /Name the source/],
+    [{ intent: "add-custom", label: "", ageValue: "100", ageUnit: "Ma", source: "Someone (2020)" }, "label", /label/],
+    [{ intent: "add-custom", label: "Too old", ageValue: "600", ageUnit: "Ma", source: "Someone (2020)" }, "_form", /outside the span/],
+    [{ intent: "add-custom", label: "Bad unit", ageValue: "1", ageUnit: "Myr", source: "Someone (2020)" }, "ageUnit", /age unit/],
+    [{ intent: "add-boundaries", intervalName: "Hadean" }, "intervalName", /outside this exhibit's span/],
+    [{ intent: "add-boundaries" }, "intervalName", /Choose one interval, or a whole rank/],
+    [{ intent: "add-inset", olderValue: "5", olderUnit: "ka", youngerValue: "10", youngerUnit: "ka", magnification: "100" }, "olderValue", /older age must be older/],
+    [{ intent: "add-inset", olderValue: "10", olderUnit: "ka", youngerValue: "0", youngerUnit: "ka", magnification: "1" }, "magnification", /greater than 1/],
+    [{ intent: "settings", ...wall, lengthValue: "0" }, "lengthValue", /greater than zero/],
+    [{ intent: "settings", ...wall, spanOlderValue: "100" }, "_form", /outside the span|older than/],
+  ])("refuses %o (%s) and saves nothing", async (fields, field, message) => {
+    const rev = await revisionOf("test-wall");
+    const markers = await Marker.count();
+    const res = await post("test-wall", { ...fields, revision: String(rev) } as Record<string, string>);
+    expect(res.status).toBe(400);
+    const body = res.body as Body;
+    expect(field === "_form" ? body.error : body.fields?.[field]).toMatch(message);
+    expect(await revisionOf("test-wall")).toBe(rev);
+    expect(await Marker.count()).toBe(markers);
+  });
+
+  it("refuses a save based on an older revision and keeps the other person's change", async () => {
+    const rev = await revisionOf("test-wall");
+    const first = await post("test-wall", { intent: "settings", ...wall, title: "Renamed by the first designer", revision: String(rev) });
+    expect(first.status).toBe(302);
+    const second = await post("test-wall", { intent: "settings", ...wall, title: "Renamed by the second designer", revision: String(rev) });
+    expect(second.status).toBe(409);
+    expect((second.body as Body).error).toMatch(/Not saved: .* saved a newer version of this exhibit \(revision \d+\)/);
+    const e = await Exhibit.findOne({ where: { organisationId: org.id, slug: "test-wall" } });
+    expect(e!.title).toBe("Renamed by the first designer");
+    expect(e!.revision).toBe(rev + 1);
+  });
+
+  it("lists the exhibit with its medium, length and edition", async () => {
+    const res = await settle(() => list.loader(routeArgs(getRequest("/studio/exhibits?sort=title", { cookie: reviewerCookie }))));
+    const rows = (res.body as Awaited<ReturnType<typeof list.loader>>).rows;
+    expect(rows.find((r) => r.slug === "test-wall")).toMatchObject({ medium: "wall", length: "10.776 m", edition: "ICS 2024/12", needsRecheck: false });
+  });
+});
+
+describe("roles and organisations", () => {
+  it("a reviewer can read but not change an exhibit (403), and cannot create one", async () => {
+    expect((await load("test-wall", reviewerCookie)).status).toBe(200);
+    const res = await post("test-wall", { intent: "add-boundaries", rank: "era", revision: "1" }, reviewerCookie);
+    expect(res.status).toBe(403);
+    expect((await create({ ...wall, slug: "by-reviewer" }, null, reviewerCookie)).status).toBe(403);
+  });
+
+  it("another organisation's designer gets 404 on the page, the action and the exports", async () => {
+    expect((await load("test-wall", outsiderCookie)).status).toBe(404);
+    expect((await post("test-wall", { intent: "add-boundaries", rank: "era", revision: String(await revisionOf("test-wall")) }, outsiderCookie)).status).toBe(404);
+    expect((await settle(() => scheduleRoute.loader(routeArgs(getRequest("/studio/exhibits/test-wall/schedule.csv", { cookie: outsiderCookie }), { slug: "test-wall" })))).status).toBe(404);
+  });
+});
+
+describe("the demo exhibits", () => {
+  let marrowby: { designer: string; reviewer: string };
+  beforeAll(async () => {
+    const org = await Organisation.findOne({ where: { slug: "marrowby" } });
+    const cookieOf = async (email: string) => cookieFor((await User.findOne({ where: { email } }))!.id, org!.id);
+    marrowby = { designer: await cookieOf("designer@marrowby.example"), reviewer: await cookieOf("reviewer@marrowby.example") };
+    expect(await Membership.count({ where: { organisationId: org!.id } })).toBeGreaterThanOrEqual(4);
+  });
+
+  it("riverside-walk is 4,567 m on the ellipsoid (GeographicLib) with an inset for the last 10,000 years", async () => {
+    const { body } = await load("riverside-walk", marrowby.designer);
+    const medium = body.spec.medium;
+    if (medium.kind !== "route") throw new Error("riverside-walk must be a route");
+    const g = geodesic.Geodesic.WGS84;
+    const c = medium.geometry.coordinates as number[][];
+    let ref = 0;
+    for (let i = 1; i < c.length; i++) ref += g.Inverse(c[i - 1][1], c[i - 1][0], c[i][1], c[i][0]).s12!;
+    expect(Math.abs(ref - 4567)).toBeLessThan(0.5);
+    expect(body.spec.insets.map((i) => i.label)).toContain("last 10,000 years at 1,000×");
+    const kinds = body.markers.map((m) => m.kind);
+    expect(kinds.filter((k) => k === "event").length).toBeGreaterThanOrEqual(10);
+    for (const name of ["Hadean", "Archean", "Proterozoic", "Phanerozoic", "Paleozoic", "Mesozoic", "Cenozoic", "Cambrian", "Cretaceous", "Quaternary"]) {
+      expect(body.markers.some((m) => m.intervalName === name)).toBe(true);
+    }
+  });
+
+  it("the schedule CSV has the documented header and distances from the scale engine", async () => {
+    const res = await scheduleRoute.loader(routeArgs(getRequest("/studio/exhibits/school-rope/schedule.csv", { cookie: marrowby.reviewer }), { slug: "school-rope" }));
+    expect(res.headers.get("Content-Type")).toMatch(/text\/csv/);
+    const rows = readCsv(await res.text()).records.map((r) => r.fields);
+    const [header, ...data] = rows as string[][];
+    expect(header.join(",")).toBe(SCHEDULE_HEADER.join(","));
+    expect(header.join(",")).toBe("number,label,kind,interval,event,age_ma,age_uncertainty_ma,source,from_start_m,to_end_m,latitude,longitude,walk_minutes");
+    const archean = data.find((r) => r[3] === "Archean")!;
+    // Linear scale (common practice): (older − age) / (older − younger) × length.
+    expect(archean.slice(0, 6)).toEqual([archean[0], "Base of the Archean", "boundary", "Archean", "", "4031"]);
+    expect(archean[8]).toBe((((4567 - 4031) / 4567) * 46).toFixed(3));
+    expect(archean[9]).toBe(((4031 / 4567) * 46).toFixed(3));
+    expect(archean.slice(10)).toEqual(["", "", ""]);
+    const event = data.find((r) => r[2] === "event")!;
+    expect(event[3]).toBe("");
+    expect(event[4]).not.toBe("");
+    expect(event[7].length).toBeGreaterThan(10);
+  });
+
+  it("the riverside schedule and GeoJSON carry coordinates (7 decimals) and walking minutes", async () => {
+    const res = await scheduleRoute.loader(routeArgs(getRequest("/studio/exhibits/riverside-walk/schedule.csv", { cookie: marrowby.designer }), { slug: "riverside-walk" }));
+    const data = (readCsv(await res.text()).records.map((r) => r.fields) as string[][]).slice(1);
+    const hadean = data.find((r) => r[3] === "Hadean")!;
+    expect(hadean[8]).toBe("0.000");
+    expect(hadean[10]).toMatch(/^54\.4321000$/);
+    expect(hadean[11]).toMatch(/^-2\.9876000$/);
+    const quaternary = data.find((r) => r[3] === "Quaternary")!;
+    expect(Number(quaternary[8])).toBeCloseTo(4567 - 2.58, 3);
+    expect(Number(quaternary[12])).toBeCloseTo((4567 - 2.58) / 1.2 / 60, 1);
+    const geo = await pointsRoute.loader(routeArgs(getRequest("/studio/exhibits/riverside-walk/points.geojson", { cookie: marrowby.designer }), { slug: "riverside-walk" }));
+    const fc = JSON.parse(await geo.text());
+    expect(fc.type).toBe("FeatureCollection");
+    expect(fc.features.length).toBe(data.length);
+  });
+
+  it("corridor-wall needs re-check: the Cretaceous base moves from 145 to 143.1 Ma, 6.3 cm towards the present; re-pinning clears it", async () => {
+    const { body } = await load("corridor-wall", marrowby.designer);
+    expect(body.impact).not.toBeNull();
+    const row = body.impact!.report.rows.find((r) => r.intervalName === "Cretaceous")!;
+    // ICS chart 2023/09 vs 2024/12: base of the Cretaceous ~145.0 → 143.1 Ma.
+    expect(row).toMatchObject({ oldAgeMa: 145, newAgeMa: 143.1 });
+    // 1.9 Ma on an 18 m wall spanning 538.8 Ma.
+    expect(row.shiftMetres!).toBeCloseTo((1.9e6 * 18) / 538.8e6, 9);
+    const devonian = body.impact!.report.rows.find((r) => r.intervalName === "Devonian")!;
+    expect(devonian).toMatchObject({ oldAgeMa: 419.2, newAgeMa: 419.62 });
+    const res = await post("corridor-wall", { intent: "repin", revision: String(body.exhibit.revision) }, marrowby.designer);
+    expect(res.status).toBe(302);
+    const after = await load("corridor-wall", marrowby.designer);
+    expect(after.body.impact).toBeNull();
+    expect(after.body.edition.slug).toBe("ics-2024-12");
+    expect(after.body.markers.find((m) => m.intervalName === "Cretaceous")!.ageMa).toBe(143.1);
+  });
+});
