@@ -14,6 +14,10 @@ export default [
     route("switch-organisation", "routes/studio/switch-organisation.tsx"),
     route("editions", "routes/studio/editions.tsx"),
     route("editions/import", "routes/studio/editions.import.tsx"),
+    route("library", "routes/studio/library.tsx"),
+    route("library/new", "routes/studio/library.new.tsx"),
+    route("library/decay", "routes/studio/library.decay.tsx"),
+    route("library/:id", "routes/studio/library.$id.tsx"),
   ]),
   // Chart editions: readable by everyone (drafts only by editors and admins).
   layout("routes/editions.layout.tsx", [
@@ -27,6 +31,7 @@ export default [
     route("scale", "routes/api.scale.ts"),
     route("timescales", "routes/api.timescales.ts"),
     route("timescales/:slug", "routes/api.timescales.$slug.ts"),
+    route("events", "routes/api.events.ts"),
   ]),
   route("dev/mail", "routes/dev.mail.tsx"),
   route("*", "routes/not-found.tsx"),

@@ -430,6 +430,13 @@ const CorrectionSchema = z.strictObject({
   source: z.string().min(1),
 });
 
+const CSV_COLUMN_OF: Record<string, string> = {
+  baseMa: "base_ma",
+  baseUncertaintyMa: "base_uncertainty_ma",
+  topMa: "top_ma",
+  names: "names_json",
+};
+
 export interface ParsedUpload {
   format: ImportFormat;
   intervals: Interval[];
@@ -442,7 +449,9 @@ export interface ParsedUpload {
 export function parseUpload(format: ImportFormat, text: string): ParsedUpload {
   if (format === "csv") {
     const r = parseCsv(text);
-    return { format, intervals: r.intervals, problems: r.problems, corrections: [] };
+    // check() names Interval fields; in a CSV the person fixing the file looks for the column.
+    const problems = r.problems.map((p) => (CSV_COLUMN_OF[p.field] ? { ...p, field: CSV_COLUMN_OF[p.field] } : p));
+    return { format, intervals: r.intervals, problems, corrections: [] };
   }
   if (format === "turtle") {
     const r = parseTurtle(text);

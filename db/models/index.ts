@@ -1,6 +1,8 @@
 // All models and their associations. Import models from here so associations are always set up.
 import { AuditEvent } from "./audit-event.ts";
 import { ChartEdition } from "./chart-edition.ts";
+import { DatedEvent } from "./dated-event.ts";
+import { DecaySystem } from "./decay-system.ts";
 import { Interval } from "./interval.ts";
 import { Invitation } from "./invitation.ts";
 import { Membership } from "./membership.ts";
@@ -28,7 +30,10 @@ import { User } from "./user.ts";
   Interval.belongsTo(Interval, { foreignKey: "parentId", as: "parent" });
   ChartEdition.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
   ChartEdition.belongsTo(User, { foreignKey: "madeCurrentById", as: "madeCurrentBy" });
+  DatedEvent.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
+  DatedEvent.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
+  DatedEvent.belongsTo(User, { foreignKey: "updatedById", as: "updatedBy" });
 }
 
-export { AuditEvent, ChartEdition, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
+export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
 export { sequelize } from "../sequelize.ts";

@@ -196,9 +196,10 @@ describe("an import with problems saves nothing", () => {
     expect(res.status).toBe(422);
     const body = res.body as ImportData;
     expect(body.error).toMatch(/2 problems found\. Nothing has been saved/);
-    expect(body.preview!.problems.map((p) => [p.line, p.interval, p.rule])).toEqual([
-      [131, "Berriasian", "tiling-base"],
-      [131, "Berriasian", "rank-overlap"],
+    // Reported at the file line, under the CSV column name.
+    expect(body.preview!.problems.map((p) => [p.line, p.interval, p.field, p.rule])).toEqual([
+      [131, "Berriasian", "base_ma", "tiling-base"],
+      [131, "Berriasian", "base_ma", "rank-overlap"],
     ]);
     expect(body.preview!.confirm).toBeNull();
     expect(await ChartEdition.findOne({ where: { slug } })).toBeNull();

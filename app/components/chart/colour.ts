@@ -1,7 +1,10 @@
-// Text on the standard chart colours: pick ink or white, whichever contrasts more (WCAG 2.2
-// relative luminance). Most chart colours are pale, so most labels are ink.
+// Text on the standard chart colours: black or white, whichever contrasts more (WCAG 2.2
+// relative luminance). Black and white meet at a luminance of about 0.18, where each gives 4.58:1,
+// so every label on every chart colour reaches at least 4.5:1 (the site's ink, #1f2430, would not:
+// the Ordovician green gets 3.95:1 with ink and with white).
 
 export const INK = "#1f2430";
+export const BLACK = "#000000";
 export const WHITE = "#ffffff";
 
 function channel(c: number): number {
@@ -21,7 +24,7 @@ export function contrastRatio(a: string, b: string): number {
   return (hi + 0.05) / (lo + 0.05);
 }
 
-/** Ink or white on this background, whichever has the higher contrast ratio. */
+/** Black or white on this background, whichever has the higher contrast ratio (always ≥ 4.58:1). */
 export function textOn(background: string): string {
-  return contrastRatio(background, INK) >= contrastRatio(background, WHITE) ? INK : WHITE;
+  return contrastRatio(background, BLACK) >= contrastRatio(background, WHITE) ? BLACK : WHITE;
 }

@@ -35,7 +35,7 @@ export function ShiftChart({ rows, title }: { rows: readonly MovedBoundary[]; ti
             const x0 = x(Math.min(0, r.shiftMa));
             const x1 = x(Math.max(0, r.shiftMa));
             const extra = r.names.length - 1;
-            const label = `${r.names[0]}${extra ? ` +${extra}` : ""}`;
+            const label = `${r.names[0]}${extra ? ` & ${extra} more` : ""}`;
             const valueText = `${fmtShift(r.shiftMa)} Ma (${fmtMa(r.oldBaseMa)} → ${fmtMa(r.newBaseMa)})`;
             return (
               <g key={r.key}>

@@ -20,6 +20,7 @@ const SCALE_HEIGHT = 960;
 const AGE_COLUMN = 118;
 const AXIS = 56;
 const CHAR_WIDTH = 6.5;
+const LABEL_REPEAT = 480;
 
 export type Spacing = "even" | "scale";
 
@@ -30,6 +31,14 @@ interface Box {
   y: number;
   height: number;
   zoomable: boolean;
+}
+
+/** Centred in a short box; near the top of a tall one, repeated down a very tall one so it stays in view. */
+function labelPositions(y: number, height: number): number[] {
+  if (height <= 48) return [y + height / 2];
+  const out = [y + 13];
+  for (let at = y + 13 + LABEL_REPEAT; at < y + height - 20; at += LABEL_REPEAT) out.push(at);
+  return out;
 }
 
 function fitLabel(name: string, width: number): string | null {
@@ -86,14 +95,17 @@ export function TimescaleChart({
     const all = intervals.filter((iv) => Number.isFinite(iv.baseMa) && Number.isFinite(iv.topMa));
     const windowBase = focused ? focused.baseMa : Math.max(...all.map((iv) => iv.baseMa));
     const windowTop = focused ? focused.topMa : Math.min(...all.map((iv) => iv.topMa));
+    const inWindow = all.filter((iv) => visible.includes(iv.rank) && iv.baseMa > windowTop && iv.topMa < windowBase);
+    // Only columns with something in this span (the sub-period column exists only in the Carboniferous).
+    const columns = visible.filter((r) => inWindow.some((iv) => iv.rank === r));
+    const shown = inWindow;
     const columnX: number[] = [];
     let x = 0;
-    for (const r of visible) {
+    for (const r of columns) {
       columnX.push(x);
       x += COLUMN_WIDTH[r];
     }
     const columnsWidth = x;
-    const shown = all.filter((iv) => visible.includes(iv.rank) && iv.baseMa > windowTop && iv.topMa < windowBase);
 
     const ages = new Set<number>([round9(windowBase), round9(windowTop)]);
     for (const iv of shown) {
@@ -108,15 +120,15 @@ export function TimescaleChart({
         : scaleLinear<number>().domain([windowTop, windowBase]).range([0, SCALE_HEIGHT]);
 
     const boxes: Box[] = shown.map((iv) => {
-      const start = visible.indexOf(iv.rank);
-      const deeper = [...(model.below.get(iv.name) ?? [])].map((r) => visible.indexOf(r)).filter((i) => i > start);
-      const end = deeper.length ? Math.min(...deeper) - 1 : visible.length - 1;
+      const start = columns.indexOf(iv.rank);
+      const deeper = [...(model.below.get(iv.name) ?? [])].map((r) => columns.indexOf(r)).filter((i) => i > start);
+      const end = deeper.length ? Math.min(...deeper) - 1 : columns.length - 1;
       const top = y(Math.max(iv.topMa, windowTop));
       const bottom = y(Math.min(iv.baseMa, windowBase));
       return {
         iv,
         x: columnX[start],
-        width: columnX[end] + COLUMN_WIDTH[visible[end]] - columnX[start],
+        width: columnX[end] + COLUMN_WIDTH[columns[end]] - columnX[start],
         y: top,
         height: Math.max(0.5, bottom - top),
         zoomable: (model.children.get(iv.name)?.length ?? 0) > 0 && iv.name !== focused?.name,
@@ -137,7 +149,7 @@ export function TimescaleChart({
       ageLabels.push({ y: yy, text: a === 0 ? "0" : iv ? fmtBase(iv) : fmtMa(a) });
       last = yy;
     }
-    return { boxes, columnX, columnsWidth, height, y, ageLabels, windowBase, windowTop };
+    return { boxes, columns, columnX, columnsWidth, height, y, ageLabels, windowBase, windowTop };
   }, [intervals, focused, visible.join(","), spacing, model]);
 
   const axis = spacing === "scale" ? AXIS : 0;
@@ -234,9 +246,9 @@ export function TimescaleChart({
           className="font-sans"
           data-testid="timescale-chart"
         >
-          <title id={`${id}-title`}>{`${title}: ${visible.map((r) => RANK_LABELS[r].toLowerCase()).join(", ")}; ${spanText}; ${spacing === "even" ? "evenly spaced boundaries" : "to scale"}`}</title>
+          <title id={`${id}-title`}>{`${title}: ${layout.columns.map((r) => RANK_LABELS[r].toLowerCase()).join(", ")}; ${spanText}; ${spacing === "even" ? "evenly spaced boundaries" : "to scale"}`}</title>
           <Group left={axis} top={0}>
-            {visible.map((r, i) => (
+            {layout.columns.map((r, i) => (
               <text key={r} x={layout.columnX[i] + 6} y={19} fontSize={12} fontWeight={600} fill={INK}>
                 {RANK_LABELS[r]}
               </text>
@@ -270,11 +282,13 @@ export function TimescaleChart({
                 >
                   <title>{tip}</title>
                   <rect x={b.x + 0.5} y={b.y} width={b.width - 1} height={b.height} fill={b.iv.color} stroke={INK} strokeOpacity={0.45} strokeWidth={1} />
-                  {label ? (
-                    <text x={b.x + 6} y={b.y + b.height / 2} dominantBaseline="central" fontSize={12} fill={fg} pointerEvents="none">
-                      {label}
-                    </text>
-                  ) : null}
+                  {label
+                    ? labelPositions(b.y, b.height).map((ly) => (
+                        <text key={ly} x={b.x + 6} y={ly} dominantBaseline="central" fontSize={12} fill={fg} pointerEvents="none">
+                          {label}
+                        </text>
+                      ))
+                    : null}
                 </g>
               );
             })}

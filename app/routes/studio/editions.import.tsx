@@ -36,7 +36,8 @@ const DEFAULT_LICENCE = "CC BY 4.0 — Creative Commons Attribution 4.0 Internat
 export async function loader({ request }: Route.LoaderArgs) {
   await requireMember(request, EDITION_MANAGERS);
   const current = await currentEdition();
-  return { maxBytes: MAX_UPLOAD_BYTES, current: current ? { slug: current.slug, label: current.label } : null, columns: [...CSV_COLUMNS] };
+  // Server-side values are handed to the page here: the component must not import server code.
+  return { maxBytes: MAX_UPLOAD_BYTES, formatLabels: FORMAT_LABELS, current: current ? { slug: current.slug, label: current.label } : null, columns: [...CSV_COLUMNS] };
 }
 
 type Values = Partial<Record<"slug" | "label" | "source" | "licence" | "format", string>>;
@@ -104,7 +105,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function ImportEdition({ loaderData, actionData }: Route.ComponentProps) {
-  const { maxBytes, current, columns } = loaderData;
+  const { maxBytes, current, columns, formatLabels } = loaderData;
   const busy = useNavigation().state === "submitting";
   const preview = actionData?.preview ?? null;
   const fields = actionData?.fields ?? {};
@@ -130,7 +131,7 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
         <section className="card mt-6" aria-labelledby="preview-heading">
           <h2 id="preview-heading" className="text-2xl">Preview of {preview.fileName || "the file"}</h2>
           <p className="mt-1 font-sans text-sm text-ink-soft">
-            {FORMAT_LABELS[preview.format]} · {(preview.bytes / 1024).toFixed(1)} kB · {preview.intervals.length} intervals read
+            {formatLabels[preview.format]} · {(preview.bytes / 1024).toFixed(1)} kB · {preview.intervals.length} intervals read
           </p>
           <div className="mt-3"><RankCounts counts={preview.counts} /></div>
           {hasProblems ? (
@@ -203,9 +204,9 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
               <label htmlFor={`${id}-format`} className="mb-1 block text-sm font-semibold">Format</label>
               <select id={`${id}-format`} name="format" defaultValue={values.format ?? "auto"} className="field w-auto">
                 <option value="auto">Detect from the file name (.csv, .json, .ttl)</option>
-                <option value="csv">{FORMAT_LABELS.csv}</option>
-                <option value="json">{FORMAT_LABELS.json}</option>
-                <option value="turtle">{FORMAT_LABELS.turtle}</option>
+                <option value="csv">{formatLabels.csv}</option>
+                <option value="json">{formatLabels.json}</option>
+                <option value="turtle">{formatLabels.turtle}</option>
               </select>
               {fields.format ? <p className="mt-1 font-sans text-sm text-danger">{fields.format}</p> : null}
             </div>

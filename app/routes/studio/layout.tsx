@@ -28,6 +28,7 @@ export default function StudioLayout({ loaderData }: Route.ComponentProps) {
     { to: "/studio", label: "Overview", end: true, show: true },
     // Editors and admins manage editions here; everyone else reads them on the public pages.
     { to: role === "editor" || role === "admin" ? "/studio/editions" : "/editions", label: "Chart editions", show: true },
+    { to: "/studio/library", label: "Event library", show: true },
     { to: "/studio/team", label: "Team", show: role === "admin" },
     { to: "/studio/account", label: "Account", show: true },
   ];
