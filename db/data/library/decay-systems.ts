@@ -1,0 +1,191 @@
+// Decay systems for the "how we know" panels: parent → daughter, half-life ± and decay constant,
+// each with its published source. Seeded by db/seeders/reference/2026.12.01T02.00.01.decay-systems.ts.
+//
+// Half-lives and decay constants are exact decimal strings (Postgres NUMERIC). Where the source (or
+// the IUGS convention) fixes the decay constant, `decayConstantStated` is true and the half-life
+// shown is ln 2 / λ (worked out with `bc -l`, rounded to the digits of λ); otherwise λ = ln 2 / t½.
+import type { Verification } from "../../../app/lib/library.ts";
+
+export interface SeedDecaySystem {
+  slug: string;
+  parent: string;
+  daughter: string;
+  decayMode: string;
+  halfLifeYears: string;
+  halfLifeUncertaintyYears: string | null;
+  decayConstantPerYear: string;
+  decayConstantStated: boolean;
+  /** Partial decay constant of the branch that gives this daughter (branched decay only). */
+  branchConstantPerYear: string | null;
+  citation: string;
+  doi: string | null;
+  verification: Verification;
+  notes: string;
+  position: number;
+}
+
+const STEIGER_JAEGER_1977 =
+  "Steiger, R.H. & Jäger, E. (1977). Subcommission on geochronology: convention on the use of decay constants in geo- and cosmochronology. Earth and Planetary Science Letters 36(3), 359–362.";
+
+export const SEED_DECAY_SYSTEMS: readonly SeedDecaySystem[] = [
+  {
+    slug: "u238-pb206",
+    parent: "U-238",
+    daughter: "Pb-206",
+    decayMode: "α and β⁻ chain (8 α, 6 β⁻)",
+    halfLifeYears: "4468300000",
+    halfLifeUncertaintyYears: "4800000",
+    decayConstantPerYear: "1.55125e-10",
+    decayConstantStated: true,
+    branchConstantPerYear: null,
+    citation: "Jaffey, A.H., Flynn, K.F., Glendenin, L.E., Bentley, W.C. & Essling, A.M. (1971). Precision measurement of half-lives and specific activities of 235U and 238U. Physical Review C 4(5), 1889–1906.",
+    doi: "10.1103/PhysRevC.4.1889",
+    verification: "from memory",
+    notes: `± is 2σ (the paper's 1σ is ± 0.0024 Ga). The decay constant λ = 1.55125 × 10⁻¹⁰ a⁻¹ is the one adopted by the IUGS convention (${STEIGER_JAEGER_1977}) and used for U–Pb ages. The chain passes through short-lived intermediates (radium, radon), which reach equilibrium within about a million years.`,
+    position: 1,
+  },
+  {
+    slug: "u235-pb207",
+    parent: "U-235",
+    daughter: "Pb-207",
+    decayMode: "α and β⁻ chain (7 α, 4 β⁻)",
+    halfLifeYears: "703810000",
+    halfLifeUncertaintyYears: "960000",
+    decayConstantPerYear: "9.8485e-10",
+    decayConstantStated: true,
+    branchConstantPerYear: null,
+    citation: "Jaffey, A.H., Flynn, K.F., Glendenin, L.E., Bentley, W.C. & Essling, A.M. (1971). Precision measurement of half-lives and specific activities of 235U and 238U. Physical Review C 4(5), 1889–1906.",
+    doi: "10.1103/PhysRevC.4.1889",
+    verification: "from memory",
+    notes: `± is 2σ (the paper's 1σ is ± 0.48 Ma). λ = 9.8485 × 10⁻¹⁰ a⁻¹ as adopted by ${STEIGER_JAEGER_1977} Present-day ²³⁸U/²³⁵U = 137.88 in that convention.`,
+    position: 2,
+  },
+  {
+    slug: "th232-pb208",
+    parent: "Th-232",
+    daughter: "Pb-208",
+    decayMode: "α and β⁻ chain (6 α, 4 β⁻)",
+    halfLifeYears: "14010000000",
+    halfLifeUncertaintyYears: null,
+    decayConstantPerYear: "4.9475e-11",
+    decayConstantStated: true,
+    branchConstantPerYear: null,
+    citation: `Le Roux, L.J. & Glendenin, L.E. (1963). Half-life of thorium-232. Proceedings of the National Conference on Nuclear Energy, Pretoria, 83–94. Adopted by: ${STEIGER_JAEGER_1977}`,
+    doi: null,
+    verification: "from memory",
+    notes: "The convention states λ = 4.9475 × 10⁻¹¹ a⁻¹ without an uncertainty; the half-life shown is ln 2 / λ.",
+    position: 3,
+  },
+  {
+    slug: "rb87-sr87",
+    parent: "Rb-87",
+    daughter: "Sr-87",
+    decayMode: "β⁻",
+    halfLifeYears: "49610000000",
+    halfLifeUncertaintyYears: "160000000",
+    decayConstantPerYear: "1.3972e-11",
+    decayConstantStated: true,
+    branchConstantPerYear: null,
+    citation: "Villa, I.M., De Bièvre, P., Holden, N.E. & Renne, P.R. (2015). IUPAC-IUGS recommendation on the half life of 87Rb. Geochimica et Cosmochimica Acta 164, 382–385.",
+    doi: "10.1016/j.gca.2015.05.025",
+    verification: "from memory",
+    notes: `The current IUPAC–IUGS recommendation: t½ = 49.61 ± 0.16 Ga, λ = 1.3972 × 10⁻¹¹ a⁻¹. Much of the older literature uses the 1977 convention λ = 1.42 × 10⁻¹¹ a⁻¹ (t½ ≈ 48.8 Ga; ${STEIGER_JAEGER_1977}); Rb–Sr ages computed with it are about 1.6 % younger.`,
+    position: 4,
+  },
+  {
+    slug: "k40-ar40",
+    parent: "K-40",
+    daughter: "Ar-40",
+    decayMode: "Branched: electron capture (and a little β⁺) to ⁴⁰Ar, 10.5 %; β⁻ to ⁴⁰Ca, 89.5 %",
+    halfLifeYears: "1250490000",
+    halfLifeUncertaintyYears: null,
+    decayConstantPerYear: "5.543e-10",
+    decayConstantStated: true,
+    branchConstantPerYear: "5.81e-11",
+    citation: STEIGER_JAEGER_1977,
+    doi: "10.1016/0012-821X(77)90060-7",
+    verification: "from memory",
+    notes: "Total λ = 5.543 × 10⁻¹⁰ a⁻¹ = λₑ (to ⁴⁰Ar, 0.581 × 10⁻¹⁰) + λβ (to ⁴⁰Ca, 4.962 × 10⁻¹⁰); ⁴⁰K/K = 0.01167 atom %. Only the λₑ branch makes argon, so the K–Ar age is t = (1/λ) ln(1 + (λ/λₑ)·⁴⁰Ar*/⁴⁰K). Newer calibrations (Min et al. 2000, Geochimica et Cosmochimica Acta 64: 73–98; Renne et al. 2011, Geochimica et Cosmochimica Acta 75: 5097–5100) differ slightly; state which constants an age uses.",
+    position: 5,
+  },
+  {
+    slug: "sm147-nd143",
+    parent: "Sm-147",
+    daughter: "Nd-143",
+    decayMode: "α",
+    halfLifeYears: "105990000000",
+    halfLifeUncertaintyYears: null,
+    decayConstantPerYear: "6.54e-12",
+    decayConstantStated: true,
+    branchConstantPerYear: null,
+    citation: "Lugmair, G.W. & Marti, K. (1978). Lunar initial 143Nd/144Nd: differential evolution of the lunar crust and mantle. Earth and Planetary Science Letters 39(3), 349–357.",
+    doi: "10.1016/0012-821X(78)90021-3",
+    verification: "from memory",
+    notes: "λ = 6.54 × 10⁻¹² a⁻¹, the value Sm–Nd ages conventionally use (t½ ≈ 106 Ga).",
+    position: 6,
+  },
+  {
+    slug: "lu176-hf176",
+    parent: "Lu-176",
+    daughter: "Hf-176",
+    decayMode: "β⁻",
+    halfLifeYears: "37126000000",
+    halfLifeUncertaintyYears: "159000000",
+    decayConstantPerYear: "1.867e-11",
+    decayConstantStated: true,
+    branchConstantPerYear: null,
+    citation: "Söderlund, U., Patchett, P.J., Vervoort, J.D. & Isachsen, C.E. (2004). The 176Lu decay constant determined by Lu–Hf and U–Pb isotope systematics of Precambrian mafic intrusions. Earth and Planetary Science Letters 219(3–4), 311–324.",
+    doi: null,
+    verification: "from memory",
+    notes: "λ = 1.867 ± 0.008 × 10⁻¹¹ a⁻¹; the half-life and its ± are ln 2 / λ propagated.",
+    position: 7,
+  },
+  {
+    slug: "re187-os187",
+    parent: "Re-187",
+    daughter: "Os-187",
+    decayMode: "β⁻",
+    halfLifeYears: "41605000000",
+    halfLifeUncertaintyYears: "425000000",
+    decayConstantPerYear: "1.666e-11",
+    decayConstantStated: true,
+    branchConstantPerYear: null,
+    citation: "Smoliar, M.I., Walker, R.J. & Morgan, J.W. (1996). Re-Os ages of group IIA, IIIA, IVA, and IVB iron meteorites. Science 271(5252), 1099–1102.",
+    doi: "10.1126/science.271.5252.1099",
+    verification: "from memory",
+    notes: "λ = 1.666 ± 0.017 × 10⁻¹¹ a⁻¹ (calibrated against U–Pb-dated meteorites). Used for Re–Os pyrite and molybdenite ages, e.g. the 2316 Ma Rooihoogte pyrite.",
+    position: 8,
+  },
+  {
+    slug: "al26-mg26",
+    parent: "Al-26",
+    daughter: "Mg-26",
+    decayMode: "β⁺ and electron capture",
+    halfLifeYears: "705000",
+    halfLifeUncertaintyYears: "24000",
+    decayConstantPerYear: "9.832e-7",
+    decayConstantStated: false,
+    branchConstantPerYear: null,
+    citation: "Norris, T.L., Gancarz, A.J., Rokop, D.J. & Thomas, K.W. (1983). Half-life of 26Al. Journal of Geophysical Research 88 (Supplement), B331–B333.",
+    doi: null,
+    verification: "from memory",
+    notes: "Short-lived and long extinct in the Solar System: ²⁶Al–²⁶Mg dates the first few million years after the CAIs relative to them, not in years before present. Evaluated nuclear data give 0.717 Ma (from memory); state which half-life a relative age uses.",
+    position: 9,
+  },
+  {
+    slug: "c14-n14",
+    parent: "C-14",
+    daughter: "N-14",
+    decayMode: "β⁻",
+    halfLifeYears: "5730",
+    halfLifeUncertaintyYears: "40",
+    decayConstantPerYear: "1.2097e-4",
+    decayConstantStated: false,
+    branchConstantPerYear: null,
+    citation: "Godwin, H. (1962). Half-life of radiocarbon. Nature 195(4845), 984.",
+    doi: "10.1038/195984a0",
+    verification: "from memory",
+    notes: "The “Cambridge” half-life. Conventional radiocarbon ages are still computed with the Libby half-life of 5568 a (mean life 8033 a: Stuiver, M. & Polach, H.A. (1977). Discussion: reporting of 14C data. Radiocarbon 19(3), 355–363) and then calibrated to calendar years with a curve such as IntCal20 (Reimer et al. 2020, Radiocarbon 62: 725–757). Radiocarbon reaches back only about 50,000 years.",
+    position: 10,
+  },
+];

@@ -1,0 +1,54 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import { sequelize } from "../sequelize.ts";
+import { VERIFICATIONS, type Verification } from "../../app/lib/library.ts";
+
+/**
+ * A radioactive parent → daughter pair with its half-life ± and decay constant, for the "how we
+ * know" panels. Shared reference data (seeded, read-only). Numbers are NUMERIC, read back as
+ * decimal strings; use server/library.ts `toDecaySystemView()` for numbers.
+ */
+export class DecaySystem extends Model<InferAttributes<DecaySystem>, InferCreationAttributes<DecaySystem>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  /** "U-238" */
+  declare parent: string;
+  declare daughter: string;
+  declare decayMode: string;
+  declare halfLifeYears: string;
+  declare halfLifeUncertaintyYears: string | null;
+  /** Total λ per year; stated by the source when decayConstantStated, else ln 2 / t½. */
+  declare decayConstantPerYear: string;
+  declare decayConstantStated: boolean;
+  /** Partial λ of the branch that gives this daughter (⁴⁰K → ⁴⁰Ar: λₑ); null if all decays do. */
+  declare branchConstantPerYear: string | null;
+  declare citation: string;
+  declare doi: string | null;
+  declare verification: Verification;
+  declare notes: CreationOptional<string>;
+  declare position: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+DecaySystem.init(
+  {
+    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    slug: { type: DataTypes.STRING(40), allowNull: false, unique: true },
+    parent: { type: DataTypes.STRING(20), allowNull: false },
+    daughter: { type: DataTypes.STRING(20), allowNull: false },
+    decayMode: { type: DataTypes.STRING(200), allowNull: false },
+    halfLifeYears: { type: DataTypes.DECIMAL, allowNull: false },
+    halfLifeUncertaintyYears: { type: DataTypes.DECIMAL, allowNull: true },
+    decayConstantPerYear: { type: DataTypes.DECIMAL, allowNull: false },
+    decayConstantStated: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    branchConstantPerYear: { type: DataTypes.DECIMAL, allowNull: true },
+    citation: { type: DataTypes.TEXT, allowNull: false },
+    doi: { type: DataTypes.STRING(200), allowNull: true },
+    verification: { type: DataTypes.STRING(60), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
+    notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+    position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "decay_systems" },
+);
