@@ -11,8 +11,8 @@ import { queueEmail } from "./mail.ts";
 import { endUserSessions } from "./session.ts";
 import { hashToken, newToken } from "./tokens.ts";
 
-export const INVITATION_DAYS = 7;
-export const RESET_MINUTES = 60;
+import { INVITATION_DAYS, RESET_MINUTES } from "../app/lib/account-links.ts";
+export { INVITATION_DAYS, RESET_MINUTES };
 
 /** A refusal meant for the person using the form: a field (or "_form") and the reason. */
 export class AccountError extends Error {

@@ -3,7 +3,8 @@ import { z } from "zod";
 import { Field, FormMessage } from "~/components/forms";
 import { Wordmark } from "~/components/site-header";
 import { parseForm } from "~/lib/validation";
-import { requestPasswordReset, RESET_MINUTES } from "#server/accounts.ts";
+import { RESET_MINUTES } from "~/lib/account-links";
+import { requestPasswordReset } from "#server/accounts.ts";
 import type { Route } from "./+types/forgot-password";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Eonscale" }];

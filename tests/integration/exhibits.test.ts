@@ -212,9 +212,11 @@ describe("the demo exhibits", () => {
     expect(body.spec.insets.map((i) => i.label)).toContain("last 10,000 years at 1,000×");
     const kinds = body.markers.map((m) => m.kind);
     expect(kinds.filter((k) => k === "event").length).toBeGreaterThanOrEqual(10);
-    for (const name of ["Hadean", "Archean", "Proterozoic", "Phanerozoic", "Paleozoic", "Mesozoic", "Cenozoic", "Cambrian", "Cretaceous", "Quaternary"]) {
-      expect(body.markers.some((m) => m.intervalName === name)).toBe(true);
+    // The base of every eon, era and period; boundaries sharing an age share one marker.
+    for (const name of ["Hadean", "Archean", "Eoarchean", "Proterozoic", "Siderian", "Phanerozoic", "Paleozoic", "Cambrian", "Mesozoic", "Triassic", "Cenozoic", "Paleogene", "Cretaceous", "Quaternary"]) {
+      expect(body.markers.some((m) => m.kind === "boundary" && new RegExp(`\\b${name}\\b`).test(m.label))).toBe(true);
     }
+    expect(body.markers.find((m) => m.label === "Base of the Phanerozoic, Paleozoic and Cambrian")).toMatchObject({ intervalName: "Phanerozoic", ageMa: 538.8 });
   });
 
   it("the schedule CSV has the documented header and distances from the scale engine", async () => {
@@ -226,7 +228,7 @@ describe("the demo exhibits", () => {
     expect(header.join(",")).toBe("number,label,kind,interval,event,age_ma,age_uncertainty_ma,source,from_start_m,to_end_m,latitude,longitude,walk_minutes");
     const archean = data.find((r) => r[3] === "Archean")!;
     // Linear scale (common practice): (older − age) / (older − younger) × length.
-    expect(archean.slice(0, 6)).toEqual([archean[0], "Base of the Archean", "boundary", "Archean", "", "4031"]);
+    expect(archean.slice(0, 6)).toEqual([archean[0], "Base of the Archean and Eoarchean", "boundary", "Archean", "", "4031"]);
     expect(archean[8]).toBe((((4567 - 4031) / 4567) * 46).toFixed(3));
     expect(archean[9]).toBe(((4031 / 4567) * 46).toFixed(3));
     expect(archean.slice(10)).toEqual(["", "", ""]);

@@ -3,20 +3,39 @@
 import { describe, expect, it, beforeAll } from "vitest";
 import { createMember, createOrganisation, cookieFor, formRequest, getRequest, routeArgs, settle } from "../helpers/db.ts";
 import type { Organisation } from "../../db/models/index.ts";
+import type { RouteConfigEntry } from "@react-router/dev/routes";
+import routes from "../../app/routes.ts";
 
 type RouteModule = { loader?: (args: never) => unknown; action?: (args: never) => unknown };
-const modules = import.meta.glob<RouteModule>("../../app/routes/studio/**/*.tsx", { eager: true });
+const modules = import.meta.glob<RouteModule>("../../app/routes/studio/**/*.{tsx,ts}", { eager: true });
 
-// Which roles may open each studio route (everything not listed is open to every member).
-const ROLE_ONLY: Record<string, string[]> = { "team.tsx": ["admin"] };
-// Paths and params for routes with dynamic segments (added by later features).
-const PATHS: Record<string, string> = {};
+// Which roles may use each studio route (anything not listed is open to every member).
+const ROLE_ONLY: Record<string, { loader?: string[]; action?: string[] }> = {
+  "team.tsx": { loader: ["admin"], action: ["admin"] },
+  "editions.tsx": { loader: ["editor", "admin"], action: ["editor", "admin"] },
+  "editions.import.tsx": { loader: ["editor", "admin"], action: ["editor", "admin"] },
+  "exhibits.new.tsx": { loader: ["designer"], action: ["designer"] },
+  "exhibit.tsx": { action: ["designer"] },
+  "library.tsx": { action: ["editor", "admin"] },
+  "library.new.tsx": { loader: ["editor", "admin"], action: ["editor", "admin"] },
+  "library.$id.tsx": { action: ["editor", "admin"] },
+};
+
+// URL of each studio route module, read from the route table (":param" segments filled in).
+const PATHS = new Map<string, string>();
+(function walk(entries: RouteConfigEntry[], prefix: string) {
+  for (const e of entries) {
+    const path = e.index ? prefix : e.path ? `${prefix}/${e.path}` : prefix;
+    PATHS.set(e.file.replace(/^routes\/studio\//, ""), path.replace(/:(\w+)/g, "x").replace(/\/+/g, "/") || "/");
+    if (e.children) walk(e.children, path);
+  }
+})(routes, "");
 
 function pathFor(file: string) {
   const name = file.replace(/^.*app\/routes\/studio\//, "");
-  if (PATHS[name]) return PATHS[name];
-  if (name === "home.tsx" || name === "layout.tsx") return "/studio";
-  return `/studio/${name.replace(/\.tsx$/, "")}`;
+  const path = PATHS.get(name);
+  if (!path) throw new Error(`${name} is not in app/routes.ts`);
+  return path;
 }
 
 describe("studio guard", () => {
@@ -50,14 +69,14 @@ describe("studio guard", () => {
         expect(res.status).toBe(302);
         expect(res.headers.get("Location")).toBe(`/login?redirectTo=${encodeURIComponent(path)}`);
       });
-      const allowed = ROLE_ONLY[name];
+      const allowed = ROLE_ONLY[name]?.[kind];
       if (allowed) {
         for (const role of ["admin", "designer", "reviewer", "editor"].filter((r) => !allowed.includes(r))) {
           it(`${name} ${kind}: ${role} → 403`, async () => {
             const request = kind === "loader" ? getRequest(path, { cookie: cookies[role] }) : formRequest(path, {}, { cookie: cookies[role] });
             const res = await settle(() => fn(routeArgs(request)));
             expect(res.status).toBe(403);
-            expect(String((res.body as { message: string }).message)).toMatch(/This page is for admin members/);
+            expect(String((res.body as { message: string }).message)).toMatch(new RegExp(`This page is for ${allowed.join(" or ")} members`));
           });
         }
       }
@@ -76,7 +95,7 @@ describe("studio guard", () => {
   it("another organisation's membership cannot be changed or removed (404) and stays as it was", async () => {
     const team = modules["../../app/routes/studio/team.tsx"];
     const { membership } = await createMember(orgB, "designer");
-    for (const fields of [
+    for (const fields of <Record<string, string>[]>[
       { intent: "change-role", membershipId: String(membership.id), role: "admin" },
       { intent: "remove", membershipId: String(membership.id) },
     ]) {

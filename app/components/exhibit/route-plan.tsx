@@ -23,7 +23,7 @@ export function RoutePlan({ geometry, result, markers }: { geometry: LineStringG
   const last = coords[coords.length - 1];
   const byId = new Map(result?.points.map((p) => [p.id, p]) ?? []);
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label="Plan of the route with its start, end and markers" className="h-auto w-full rounded border border-rule bg-[#f2f5f3]">
+    <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label="Plan of the route with its start, end and markers" className="h-auto max-h-[420px] w-full rounded border border-rule bg-[#f2f5f3]">
       <path d={d} fill="none" stroke="#3d6b7a" strokeWidth={3} strokeLinejoin="round" />
       {markers.map((m) => {
         const p = byId.get(m.id)?.position;

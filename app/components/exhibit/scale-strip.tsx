@@ -9,6 +9,7 @@ import { formatLength, inkOn, type ResolvedMarker, type UnitsPreference } from "
 
 export interface Band {
   name: string;
+  rank: string;
   baseMa: number;
   topMa: number;
   color: string;
@@ -16,8 +17,8 @@ export interface Band {
 
 const W = 1000;
 const PAD = 24;
-const STRIP_Y = 44;
-const STRIP_H = 40;
+const STRIP_Y = 64;
+const STRIP_H = 54;
 const INSET_H = 30;
 const INSET_GAP = 86;
 
@@ -42,8 +43,11 @@ export function ScaleStrip({
   const youngerMa = scale.youngerYears / 1e6;
   const atMa = (ma: number) => x((olderMa - ma) * 1e6 * scale.metresPerYear);
   const byId = new Map(result.points.map((p) => [p.id, p]));
+  // One row per rank (eon above, finest below), so every part of the span is coloured.
+  const rankRows = [...new Set(bands.map((b) => b.rank))];
+  const rowH = STRIP_H / Math.max(1, rankRows.length);
   const visibleBands = bands
-    .map((b) => ({ ...b, base: Math.min(b.baseMa, olderMa), top: Math.max(b.topMa, youngerMa) }))
+    .map((b) => ({ ...b, base: Math.min(b.baseMa, olderMa), top: Math.max(b.topMa, youngerMa), row: rankRows.indexOf(b.rank) }))
     .filter((b) => b.base > b.top);
   const height = STRIP_Y + STRIP_H + 40 + result.insets.length * (INSET_GAP + INSET_H) + 10;
 
@@ -62,11 +66,11 @@ export function ScaleStrip({
             const w = Math.max(0.5, x1 - x0);
             return (
               <g key={b.name}>
-                <rect x={x0} width={w} height={STRIP_H} fill={b.color} stroke="#ffffff" strokeWidth={0.5}>
-                  <title>{`${b.name}: ${b.baseMa}–${b.topMa} Ma`}</title>
+                <rect x={x0} y={b.row * rowH} width={w} height={rowH} fill={b.color} stroke="#ffffff" strokeWidth={0.5}>
+                  <title>{`${b.name} (${b.rank}): ${b.baseMa}–${b.topMa} Ma`}</title>
                 </rect>
-                {w > b.name.length * 6.5 ? (
-                  <text x={x0 + w / 2} y={STRIP_H / 2 + 4} textAnchor="middle" fontSize={12} fill={inkOn(b.color)} fontFamily="IBM Plex Sans, sans-serif">
+                {w > b.name.length * 5.8 ? (
+                  <text x={x0 + w / 2} y={b.row * rowH + rowH / 2 + 3.5} textAnchor="middle" fontSize={Math.min(11, rowH - 5)} fill={inkOn(b.color)} fontFamily="IBM Plex Sans, sans-serif">
                     {b.name}
                   </text>
                 ) : null}
@@ -131,10 +135,10 @@ export function ScaleStrip({
             </g>
           );
         })}
-        <text x={PAD} y={16} fontSize={12} fill="#4a5160" fontFamily="IBM Plex Sans, sans-serif">
+        <text x={PAD} y={14} fontSize={12} fill="#4a5160" fontFamily="IBM Plex Sans, sans-serif">
           {`Start (older end): ${scale.olderYears >= 1e6 ? `${(scale.olderYears / 1e6).toLocaleString("en-GB")} million years ago` : `${scale.olderYears.toLocaleString("en-GB")} years ago`}`}
         </text>
-        <text x={W - PAD} y={16} fontSize={12} fill="#4a5160" textAnchor="end" fontFamily="IBM Plex Sans, sans-serif">
+        <text x={W - PAD} y={14} fontSize={12} fill="#4a5160" textAnchor="end" fontFamily="IBM Plex Sans, sans-serif">
           {`End (younger end): ${scale.youngerYears === 0 ? "the present" : `${scale.youngerYears.toLocaleString("en-GB")} years ago`}`}
         </text>
       </svg>

@@ -49,13 +49,16 @@ import type { Route } from "./+types/exhibit";
 
 export const meta: Route.MetaFunction = ({ loaderData }) => [{ title: `${loaderData?.exhibit.title ?? "Exhibit"} · Eonscale` }];
 
-/** The finest rank with at most `max` intervals inside the span, for the strip's colour bands. */
-function bandsFor(intervals: { name: string; rank: Rank; baseMa: number; topMa: number; color: string }[], olderMa: number, youngerMa: number, max = 24): Band[] {
-  for (const rank of [...RANKS].reverse()) {
+/** Colour bands for the strip: every rank from eon down that has at most `max` intervals in the span. */
+function bandsFor(intervals: { name: string; rank: Rank; baseMa: number; topMa: number; color: string }[], olderMa: number, youngerMa: number, max = 40): Band[] {
+  const bands: Band[] = [];
+  for (const rank of ["eon", "era", "period", "epoch", "age"] as Rank[]) {
     const inSpan = intervals.filter((i) => i.rank === rank && i.baseMa > youngerMa && i.topMa < olderMa);
-    if (inSpan.length > 0 && inSpan.length <= max) return inSpan.map(({ name, baseMa, topMa, color }) => ({ name, baseMa, topMa, color }));
+    if (inSpan.length === 0 || inSpan.length > max) continue;
+    bands.push(...inSpan.map(({ name, baseMa, topMa, color }) => ({ name, rank, baseMa, topMa, color })));
+    if (new Set(bands.map((b) => b.rank)).size === 3) break;
   }
-  return intervals.filter((i) => i.rank === "eon").map(({ name, baseMa, topMa, color }) => ({ name, baseMa, topMa, color }));
+  return bands;
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -561,13 +564,13 @@ function AddBoundaries({ revision, intervals, error }: { revision: number; inter
 interface FoundEvent {
   id: number;
   name: string;
-  ageMa: number;
-  uncertaintyMa: number | null;
+  ageText: string;
   citation: string;
+  scope: "shared" | "organisation";
 }
 
 function AddEvent({ revision, error }: { revision: number; error?: string }) {
-  const search = useFetcher<{ events: FoundEvent[] }>();
+  const search = useFetcher<{ results?: FoundEvent[]; error?: { message: string } }>();
   const [chosen, setChosen] = useState<FoundEvent | null>(null);
   return (
     <div className="card">
@@ -575,17 +578,18 @@ function AddEvent({ revision, error }: { revision: number; error?: string }) {
       <p className="mt-1 font-sans text-sm text-ink-soft">From the event library, each with its age, ± and citation.</p>
       {error ? <p className="mt-2 font-sans text-sm text-danger" role="alert">{error}</p> : null}
       <label className="mt-3 block font-sans text-sm"><span className="mb-1 block font-semibold">Search the library</span>
-        <input type="search" className="field" placeholder="e.g. zircon, extinction, Homo" onChange={(e) => search.load(`/studio/library/search?q=${encodeURIComponent(e.target.value)}`)} aria-controls="event-results" />
+        <input type="search" className="field" placeholder="e.g. zircon, extinction, Homo" onChange={(e) => search.load(`/api/events?q=${encodeURIComponent(e.target.value)}`)} aria-controls="event-results" />
       </label>
       <ul id="event-results" className="mt-2 max-h-56 space-y-1 overflow-y-auto font-sans text-sm" aria-live="polite">
-        {search.data?.events.map((ev) => (
+        {search.data?.results?.map((ev) => (
           <li key={ev.id}>
             <button type="button" onClick={() => setChosen(ev)} className={`w-full rounded border p-2 text-left ${chosen?.id === ev.id ? "border-sandstone-600 bg-sandstone-50" : "border-rule hover:bg-paper"}`}>
-              <span className="font-semibold">{ev.name}</span> <span className="text-ink-soft">{formatAgeMa(ev.ageMa)}{ev.uncertaintyMa ? ` ± ${formatAgeMa(ev.uncertaintyMa)}` : ""}</span>
+              <span className="font-semibold">{ev.name}</span> <span className="text-ink-soft">{ev.ageText}{ev.scope === "organisation" ? " · ours" : ""}</span>
             </button>
           </li>
         ))}
-        {search.data && search.data.events.length === 0 ? <li className="text-ink-soft">Nothing found.</li> : null}
+        {search.data?.results && search.data.results.length === 0 ? <li className="text-ink-soft">Nothing found.</li> : null}
+        {search.data?.error ? <li className="text-danger">{search.data.error.message}</li> : null}
       </ul>
       <Form method="post" className="mt-3 font-sans text-sm">
         <input type="hidden" name="intent" value="add-event" />

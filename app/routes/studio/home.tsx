@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import { ROLE_LABELS, ROLE_SUMMARIES, type Role } from "~/lib/roles";
 import { requireMember } from "#server/auth.ts";
-import { Invitation, Membership } from "#db/models/index.ts";
+import { ChartEdition, Exhibit, Invitation, Membership } from "#db/models/index.ts";
 import { Op } from "sequelize";
 import type { Route } from "./+types/home";
 
@@ -11,16 +11,18 @@ export async function loader({ request }: Route.LoaderArgs) {
   const member = await requireMember(request);
   const url = new URL(request.url);
   const orgId = member.organisation.id;
-  const [members, pending] = await Promise.all([
+  const [members, pending, exhibits, recheck] = await Promise.all([
     Membership.count({ where: { organisationId: orgId } }),
     Invitation.count({ where: { organisationId: orgId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } } }),
+    Exhibit.count({ where: { organisationId: orgId } }),
+    Exhibit.count({ where: { organisationId: orgId }, include: [{ model: ChartEdition, as: "edition", required: true, where: { status: { [Op.ne]: "current" } } }] }),
   ]);
   return {
     name: member.user.name,
     organisation: member.organisation.name,
     role: member.role,
     welcome: url.searchParams.get("welcome") === "1",
-    counts: { members, pending },
+    counts: { members, pending, exhibits, recheck },
   };
 }
 
@@ -29,10 +31,9 @@ interface NextStep {
   text: string;
   to?: string;
   cta?: string;
-  soon?: boolean;
 }
 
-function stepsFor(role: Role, counts: { members: number; pending: number }): NextStep[] {
+function stepsFor(role: Role, counts: { members: number; pending: number; exhibits: number; recheck: number }): NextStep[] {
   switch (role) {
     case "admin":
       return [
@@ -43,18 +44,20 @@ function stepsFor(role: Role, counts: { members: number; pending: number }): Nex
       ];
     case "designer":
       return [
-        { title: "Start your first exhibit", text: "Choose a span of the timescale, a medium — a length such as a wall or rope, or a real route as GeoJSON or GPX — and place the markers.", soon: true },
-        { title: "Try the scale engine now", text: "POST a span, a length or route and some ages to /api/scale to see distances, uncertainties and legibility warnings (see the README)." },
+        counts.exhibits === 0
+          ? { title: "Start your first exhibit", text: "Choose a span of the timescale, a medium — a length such as a wall or rope, or a real route as GeoJSON or GPX — and place the markers.", to: "/studio/exhibits/new", cta: "New exhibit" }
+          : { title: "Your exhibits", text: `${counts.exhibits} exhibit${counts.exhibits === 1 ? "" : "s"}${counts.recheck ? `, ${counts.recheck} pinned to an older chart edition and needing a re-check` : ""}.`, to: counts.recheck ? "/studio/exhibits?recheck=1" : "/studio/exhibits", cta: counts.recheck ? "See what needs re-checking" : "Open the exhibits" },
+        { title: "Start another exhibit", text: "A wall, a rope, a banner, or a real route from a GPX track: the preview shows every marker's place as you type.", to: "/studio/exhibits/new", cta: "New exhibit" },
       ];
     case "reviewer":
       return [
-        { title: "Nothing is waiting for review", text: "When a designer submits an exhibit, it appears here with the automatic checks already run against its pinned chart edition.", soon: true },
+        { title: "Exhibits of your organisation", text: `${counts.exhibits} exhibit${counts.exhibits === 1 ? "" : "s"} to read, each with its markers, sources and uncertainties${counts.recheck ? `; ${counts.recheck} pinned to an older chart edition` : ""}. Submitting and approving reviews arrives with the review workflow.`, to: "/studio/exhibits", cta: "Read the exhibits" },
       ];
     case "editor":
       return [
         { title: "Chart editions", text: "Compare editions of the International Chronostratigraphic Chart and make one current. Exhibits pinned to an older edition will be flagged for re-checking.", to: "/studio/editions", cta: "Manage chart editions" },
         { title: "Import a new edition", text: "Upload our CSV or JSON, or the ICS chart's Turtle file. You see every problem with its line before anything is saved; new imports are drafts.", to: "/studio/editions/import", cta: "Import an edition" },
-        { title: "Dated-event library", text: "Events that are not boundaries — oldest mineral grains, first land plants — each with age, uncertainty and citation.", soon: true },
+        { title: "Dated-event library", text: "Events that are not boundaries — oldest mineral grains, first land plants — each with age, uncertainty and citation.", to: "/studio/library", cta: "Open the library" },
       ];
   }
 }
@@ -79,7 +82,6 @@ export default function StudioHome({ loaderData }: Route.ComponentProps) {
             <h3 className="text-lg">{s.title}</h3>
             <p className="mt-2 text-ink-soft">{s.text}</p>
             {s.to ? <Link to={s.to} className="btn-quiet mt-4 no-underline">{s.cta}</Link> : null}
-            {s.soon ? <p className="mt-3 font-sans text-xs uppercase tracking-wide text-sandstone-700">Arriving in the studio soon</p> : null}
           </li>
         ))}
       </ul>

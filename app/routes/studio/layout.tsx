@@ -26,6 +26,7 @@ export default function StudioLayout({ loaderData }: Route.ComponentProps) {
   const { user, organisation, role, organisations, notice } = loaderData;
   const links = [
     { to: "/studio", label: "Overview", end: true, show: true },
+    { to: "/studio/exhibits", label: "Exhibits", show: true },
     // Editors and admins manage editions here; everyone else reads them on the public pages.
     { to: role === "editor" || role === "admin" ? "/studio/editions" : "/editions", label: "Chart editions", show: true },
     { to: "/studio/library", label: "Event library", show: true },

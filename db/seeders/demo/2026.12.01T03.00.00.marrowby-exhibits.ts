@@ -65,8 +65,17 @@ export const up: Migration = async () => {
       if (created) await ExhibitMedium.create({ exhibitId: exhibit.id, mediumType: e.mediumType, ...e.medium } as never, { transaction });
       return { exhibit, created };
     };
-    const addBoundaryMarkers = async (exhibitId: number, rows: InstanceType<typeof Interval>[]) =>
-      Marker.bulkCreate(rows.map((iv) => ({ exhibitId, kind: "boundary" as const, intervalId: iv.id, datedEventId: null, ageMa: null, uncertaintyMa: null, source: null, label: `Base of the ${iv.name}`, decaySystemId: null })), { transaction });
+    // Boundaries that share an age (the Archean and the Eoarchean both begin at 4031 Ma) become one
+    // marker on the coarsest interval, labelled with every name, as a sign would show them.
+    const addBoundaryMarkers = async (exhibitId: number, rows: InstanceType<typeof Interval>[]) => {
+      const byAge = new Map<string, InstanceType<typeof Interval>[]>();
+      for (const iv of rows) byAge.set(String(Number(iv.baseMa)), [...(byAge.get(String(Number(iv.baseMa))) ?? []), iv]);
+      const names = (ivs: InstanceType<typeof Interval>[]) => ivs.length === 1 ? ivs[0].name : `${ivs.slice(0, -1).map((i) => i.name).join(", ")} and ${ivs[ivs.length - 1].name}`;
+      return Marker.bulkCreate(
+        [...byAge.values()].map((ivs) => ({ exhibitId, kind: "boundary" as const, intervalId: ivs[0].id, datedEventId: null, ageMa: null, uncertaintyMa: null, source: null, label: `Base of the ${names(ivs)}`, decaySystemId: null })),
+        { transaction },
+      );
+    };
     const sharedEvents = async (olderMa: number, limit: number) =>
       DatedEvent.findAll({ where: { organisationId: null, ageMa: { [Op.lte]: olderMa } }, order: [["ageMa", "DESC"]], limit, transaction });
 
