@@ -18,6 +18,11 @@ export default [
     route("library/new", "routes/studio/library.new.tsx"),
     route("library/decay", "routes/studio/library.decay.tsx"),
     route("library/:id", "routes/studio/library.$id.tsx"),
+    route("exhibits", "routes/studio/exhibits.tsx"),
+    route("exhibits/new", "routes/studio/exhibits.new.tsx"),
+    route("exhibits/:slug", "routes/studio/exhibit.tsx"),
+    route("exhibits/:slug/schedule.csv", "routes/studio/exhibit.schedule-csv.ts"),
+    route("exhibits/:slug/points.geojson", "routes/studio/exhibit.points-geojson.ts"),
   ]),
   // Chart editions: readable by everyone (drafts only by editors and admins).
   layout("routes/editions.layout.tsx", [

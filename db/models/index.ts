@@ -3,6 +3,10 @@ import { AuditEvent } from "./audit-event.ts";
 import { ChartEdition } from "./chart-edition.ts";
 import { DatedEvent } from "./dated-event.ts";
 import { DecaySystem } from "./decay-system.ts";
+import { Exhibit } from "./exhibit.ts";
+import { ExhibitMedium } from "./exhibit-medium.ts";
+import { Inset } from "./inset.ts";
+import { Marker } from "./marker.ts";
 import { Interval } from "./interval.ts";
 import { Invitation } from "./invitation.ts";
 import { Membership } from "./membership.ts";
@@ -33,7 +37,14 @@ import { User } from "./user.ts";
   DatedEvent.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
   DatedEvent.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
   DatedEvent.belongsTo(User, { foreignKey: "updatedById", as: "updatedBy" });
+  Exhibit.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
+  Exhibit.belongsTo(ChartEdition, { foreignKey: "editionId", as: "edition" });
+  Exhibit.belongsTo(User, { foreignKey: "updatedById", as: "updatedBy" });
+  Exhibit.hasOne(ExhibitMedium, { foreignKey: "exhibitId", as: "medium" });
+  Exhibit.hasMany(Marker, { foreignKey: "exhibitId", as: "markers" });
+  Exhibit.hasMany(Inset, { foreignKey: "exhibitId", as: "insets" });
+  Marker.belongsTo(Interval, { foreignKey: "intervalId", as: "interval" });
 }
 
-export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
+export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, Inset, Interval, Marker, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
 export { sequelize } from "../sequelize.ts";
