@@ -132,7 +132,7 @@ export function EventForm({
           </div>
           <div>
             <label htmlFor={`${ageId}-unit`} className="mb-1 block font-sans text-sm">Unit</label>
-            <select id={`${ageId}-unit`} name="ageUnit" defaultValue={values.ageUnit} className="field w-auto" aria-invalid={errors.ageUnit ? true : undefined}>
+            <select id={`${ageId}-unit`} name="ageUnit" defaultValue={values.ageUnit} className="field w-auto min-w-20" aria-invalid={errors.ageUnit ? true : undefined}>
               {AGE_INPUT_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
             </select>
           </div>

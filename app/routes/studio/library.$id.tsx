@@ -131,8 +131,12 @@ export default function LibraryEntry({ loaderData, actionData }: Route.Component
           <dd className="figures text-base font-semibold">{event.ageText}</dd>
           <dt className="font-semibold">Kind of age</dt>
           <dd>{AGE_KIND_LABELS[event.ageKind]} — {AGE_KIND_HINTS[event.ageKind]}</dd>
-          <dt className="font-semibold">Stored as</dt>
-          <dd className="figures">{event.ageMa}{event.uncertaintyMa !== null ? ` ± ${event.uncertaintyMa}` : ""} Ma</dd>
+          {!/ Ma$/.test(event.ageText) ? (
+            <>
+              <dt className="font-semibold">In Ma</dt>
+              <dd className="figures">{event.ageMa}{event.uncertaintyMa !== null ? ` ± ${event.uncertaintyMa}` : ""} Ma</dd>
+            </>
+          ) : null}
           <dt className="font-semibold">Dating method</dt>
           <dd>{event.datingMethod ?? "Not stated"}</dd>
           <dt className="font-semibold">Source</dt>
@@ -150,12 +154,6 @@ export default function LibraryEntry({ loaderData, actionData }: Route.Component
             </>
           ) : null}
         </dl>
-        {event.scope === "shared" ? (
-          <div className="mt-4 font-sans text-sm text-ink-soft">
-            <p>Shared entries are read-only reference data, kept with their sources.</p>
-            {canManage ? <Link to={`/studio/library/new?from=${event.id}`} className="btn-quiet mt-3 no-underline">Copy into {organisation}'s library</Link> : null}
-          </div>
-        ) : null}
 
         {panels.length ? (
           <section className="mt-8" aria-labelledby="how-we-know">
@@ -198,7 +196,20 @@ export default function LibraryEntry({ loaderData, actionData }: Route.Component
           </>
         ) : event.scope === "organisation" ? (
           <div className="card font-sans text-sm text-ink-soft">Editors and admins of {organisation} can change this entry.</div>
-        ) : null}
+        ) : (
+          <div className="card">
+            <h2 className="text-lg">Shared reference entry</h2>
+            <p className="mt-1 font-sans text-sm text-ink-soft">
+              Shared entries are read-only reference data, kept with their sources for every organisation. Figures marked “from memory” still need checking against the paper before anything is printed.
+            </p>
+            {canManage ? (
+              <>
+                <p className="mt-3 font-sans text-sm text-ink-soft">Need a different figure or wording? Start your own entry from this one; the shared entry stays as it is.</p>
+                <Link to={`/studio/library/new?from=${event.id}`} className="btn-quiet mt-3 no-underline">Copy into {organisation}'s library</Link>
+              </>
+            ) : null}
+          </div>
+        )}
       </aside>
     </div>
   );

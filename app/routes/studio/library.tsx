@@ -86,7 +86,23 @@ export default function Library({ loaderData }: Route.ComponentProps) {
           {canManage && scope === "ours" && !q ? <Link to="/studio/library/new" className="btn mt-4 no-underline">Add an event</Link> : null}
         </div>
       ) : (
-        <div className="card mt-3 overflow-x-auto p-0">
+        <>
+        {/* Small screens: one card per entry. */}
+        <ul className="mt-3 grid gap-3 md:hidden">
+          {events.map((e) => (
+            <li key={e.id} className="card p-4">
+              <div className="flex flex-wrap items-center gap-2">
+                <Link to={`/studio/library/${e.id}`} className="font-sans font-semibold">{e.name}</Link>
+                <ScopeBadge scope={e.scope} />
+              </div>
+              <p className="mt-1 figures font-semibold">{e.ageText}{e.ageKind !== "point" ? <span className="ml-2 text-xs font-normal text-ink-soft">{AGE_KIND_LABELS[e.ageKind]}</span> : null}</p>
+              <p className="mt-1 line-clamp-3 text-sm text-ink-soft">{e.summary}</p>
+              {e.datingMethod ? <p className="mt-1 font-sans text-xs">{e.datingMethod}</p> : null}
+              <VerificationNote verification={e.verification} />
+            </li>
+          ))}
+        </ul>
+        <div className="card mt-3 hidden overflow-x-auto p-0 md:block">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Dated events, oldest first</caption>
             <thead className="border-b border-rule bg-paper">
@@ -121,6 +137,7 @@ export default function Library({ loaderData }: Route.ComponentProps) {
             </tbody>
           </table>
         </div>
+        </>
       )}
     </div>
   );
