@@ -3,6 +3,7 @@
 import { spawnSync } from "node:child_process";
 import { startServices } from "../fakes/services.ts";
 
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
 const config = await startServices();
 for (const [key, value] of Object.entries(config.env)) process.env[key] ??= value;
 process.env.NODE_ENV = "production";

@@ -37,9 +37,9 @@ export default function StudioLayout({ loaderData }: Route.ComponentProps) {
     <div className="min-h-screen">
       <header className="border-b border-rule bg-white">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-5 py-3">
-          <div className="flex items-center gap-6">
+          <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
             <Wordmark />
-            <nav aria-label="Studio" className="flex gap-1">
+            <nav aria-label="Studio" className="flex flex-wrap gap-1">
               {links.filter((l) => l.show).map((l) => (
                 <NavLink
                   key={l.to}

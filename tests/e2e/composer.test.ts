@@ -1,0 +1,118 @@
+// Browser test of the designer's day: a route exhibit from an uploaded GPX file, boundaries, a
+// library event and a custom age, a legibility warning fixed by the suggested inset, the schedule.
+import { readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { geodesicDirect } from "../../app/lib/geo/geodesic.ts";
+import { launchBrowser } from "../setup/chromium.ts";
+import { BASE, SHOTS, shot, signIn } from "./helpers.ts";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** An invented 2 km lakeside path as GPX: 200 legs of 10 m, gently curving. */
+function gpxFile(): string {
+  let lat = 55.1;
+  let lon = -3.2;
+  const pts = [`<trkpt lat="${lat}" lon="${lon}"><ele>120</ele></trkpt>`];
+  for (let i = 0; i < 200; i++) {
+    const next = geodesicDirect(lat, lon, 90 + 40 * Math.sin(i / 30), 10);
+    lat = next.lat2;
+    lon = next.lon2;
+    pts.push(`<trkpt lat="${lat.toFixed(8)}" lon="${lon.toFixed(8)}"><ele>${120 + i / 10}</ele></trkpt>`);
+  }
+  const file = path.join(SHOTS, "..", "lakeside-path.gpx");
+  writeFileSync(file, `<?xml version="1.0" encoding="UTF-8"?>\n<gpx version="1.1" creator="Eonscale test" xmlns="http://www.topografix.com/GPX/1/1"><trk><name>Lakeside path</name><trkseg>${pts.join("")}</trkseg></trk></gpx>`);
+  return file;
+}
+
+describe("the exhibit composer", () => {
+  it("builds a route exhibit from a GPX file and exports its schedule", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 1000 }, acceptDownloads: true });
+    const errors: string[] = [];
+    page.on("pageerror", (e) => errors.push(e.message));
+    await signIn(page, "designer@marrowby.example", "deep-time-demo");
+
+    await page.goto(`${BASE}/studio/exhibits/new`);
+    await page.getByLabel("Title").fill("Lakeside walk");
+    await page.getByLabel("A route (GeoJSON or GPX)").check();
+    await page.getByLabel("Route file").setInputFiles(gpxFile());
+    await shot(page, "composer-01-new-route");
+    await page.getByRole("button", { name: "Create the exhibit" }).click();
+    await page.waitForURL(`${BASE}/studio/exhibits/lakeside-walk`);
+    await page.getByText("Before anyone walks this route").waitFor();
+    await page.getByText("2.000 km on the WGS84 ellipsoid", { exact: false }).waitFor();
+    await shot(page, "composer-02-created");
+
+    // Every period base.
+    await page.getByLabel("All of a rank").selectOption("period");
+    await page.getByRole("button", { name: "Add all" }).click();
+    await page.getByText("Added 22 boundaries.").waitFor();
+    // A library event, found by searching as you type.
+    await page.getByLabel("Search the library").fill("zircon");
+    await page.locator("#event-results button").first().click();
+    await page.getByRole("button", { name: "Add the event" }).click();
+    await page.getByText(/^Added “.*”\.$/).waitFor();
+    // A custom age without a source is refused, with the reason; then with one it is added.
+    const custom = page.locator("form").filter({ has: page.getByRole("button", { name: "Add the age" }) });
+    await custom.locator("input[name=label]").fill("Boathouse built");
+    await custom.locator("input[name=ageValue]").fill("150");
+    await custom.locator("select[name=ageUnit]").selectOption("a");
+    await custom.getByRole("button", { name: "Add the age" }).click();
+    await page.getByText("Name the source of this age", { exact: false }).first().waitFor();
+    await shot(page, "composer-03-custom-needs-source");
+    await custom.locator("input[name=label]").fill("Boathouse built");
+    await custom.locator("input[name=ageValue]").fill("150");
+    await custom.locator("select[name=ageUnit]").selectOption("a");
+    await custom.locator("input[name=source]").fill("Estate records, 1875 (invented demo source)");
+    await custom.getByRole("button", { name: "Add the age" }).click();
+    await page.getByText("Added “Boathouse built”.").waitFor();
+    await shot(page, "composer-04-markers");
+
+    // The preview warns; the suggested inset is one click away.
+    const warning = page.getByText("markers too close:", { exact: false }).first();
+    await warning.waitFor();
+    await warning.scrollIntoViewIfNeeded();
+    await shot(page, "composer-05-warning");
+    const insetsBefore = await page.locator("#insets-h").innerText();
+    await page.getByRole("button", { name: /Add the suggested inset/ }).first().click();
+    await page.getByText(/^Inset added: /).waitFor();
+    expect(await page.locator("#insets-h").innerText()).not.toBe(insetsBefore);
+    await shot(page, "composer-06-inset-added");
+
+    // The preview follows the settings as they are typed, before saving.
+    await page.locator("input[name=spanOlderValue]").fill("541");
+    await page.getByText("Showing unsaved settings", { exact: false }).waitFor();
+    await page.locator("input[name=spanOlderValue]").fill("4567");
+
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Marker schedule (CSV)" }).click()]);
+    const file = path.join(SHOTS, "..", "lakeside-schedule.csv");
+    await download.saveAs(file);
+    const csv = readFileSync(file, "utf8").split(/\r?\n/);
+    expect(csv[0]).toBe("number,label,kind,interval,event,age_ma,age_uncertainty_ma,source,from_start_m,to_end_m,latitude,longitude,walk_minutes");
+    expect(csv.filter((l) => /,boundary,/.test(l))).toHaveLength(22);
+    expect(csv.some((l) => /,event,/.test(l))).toBe(true);
+    expect(csv.some((l) => l.startsWith(`${csv.length - 2},Boathouse built,custom`) || /Boathouse built,custom/.test(l))).toBe(true);
+    expect(errors).toEqual([]);
+  });
+
+  it("shows the corridor wall as needing a re-check, with the impact report", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
+    await signIn(page, "reviewer@marrowby.example", "deep-time-demo");
+    await page.goto(`${BASE}/studio/exhibits?recheck=1`);
+    await page.getByRole("link", { name: "The corridor of the Phanerozoic" }).waitFor();
+    await shot(page, "composer-07-list-recheck");
+    await page.getByRole("link", { name: "The corridor of the Phanerozoic" }).click();
+    await page.getByRole("heading", { name: /Edition impact: ICS 2023\/09 → ICS 2024\/12/ }).waitFor();
+    await page.getByRole("heading", { name: /Edition impact/ }).scrollIntoViewIfNeeded();
+    await shot(page, "composer-08-impact");
+    // A reviewer reads; only designers change exhibits.
+    expect(await page.getByRole("button", { name: /Re-pin/ }).count()).toBe(0);
+  });
+});
