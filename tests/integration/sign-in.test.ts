@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import * as login from "../../app/routes/login.tsx";
 import { Session } from "../../db/models/index.ts";
 import { SIGN_IN_FAILED } from "../../server/auth.ts";
+import { sessionCookie } from "../../server/session.ts";
 import { SIGN_IN_LIMITS } from "../../server/rate-limit.ts";
 import { sequelize } from "../../db/sequelize.ts";
 import { createMember, createOrganisation, formRequest, routeArgs, settle, TEST_PASSWORD, unique } from "../helpers/db.ts";
@@ -22,7 +23,11 @@ describe("sign-in", () => {
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);
     expect(cookie).not.toMatch(/Secure/i); // only in production over https
-    expect(cookie).not.toContain(String(user.id));
+    // The signed value is only the id of a server-side session row, not the session's data.
+    const id = await sessionCookie.parse(cookie.split(";")[0]);
+    expect(id).toMatch(/^[A-Za-z0-9_-]{32}$/);
+    const row = await Session.findByPk(id);
+    expect(row?.userId).toBe(user.id);
     expect(await Session.count({ where: { userId: user.id } })).toBe(1);
   });
 
