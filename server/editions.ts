@@ -25,6 +25,7 @@ import {
 import { audit } from "./audit.ts";
 import { env } from "./env.ts";
 import { getSession } from "./session.ts";
+import { BodyTooLargeError, readBodyBytes } from "./http.ts";
 
 /** Roles that manage chart editions (import, make current, retire). */
 export const EDITION_MANAGERS = ["editor", "admin"] as const satisfies readonly Role[];
@@ -372,27 +373,12 @@ export const ConfirmSchema = EditionMetaSchema.extend({
 export async function readLimitedFormData(request: Request, limit = MAX_IMPORT_REQUEST_BYTES): Promise<FormData> {
   const tooLarge = () =>
     new EditionError(`The upload is larger than ${megabytes(MAX_UPLOAD_BYTES)}. Upload a file of at most ${megabytes(MAX_UPLOAD_BYTES)}.`, "file", 413);
-  const declared = request.headers.get("content-length");
-  if (declared !== null && Number(declared) > limit) throw tooLarge();
-  if (!request.body) return request.formData();
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel().catch(() => {});
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  const body = new Uint8Array(total);
-  let offset = 0;
-  for (const c of chunks) {
-    body.set(c, offset);
-    offset += c.byteLength;
+  let body: Uint8Array<ArrayBuffer>;
+  try {
+    body = await readBodyBytes(request, limit);
+  } catch (error) {
+    if (error instanceof BodyTooLargeError) throw tooLarge();
+    throw error;
   }
   const headers = new Headers();
   const type = request.headers.get("content-type");

@@ -4,6 +4,7 @@
  */
 import type { Route } from "./+types/api.scale";
 import { computeScale, parseScaleRequest } from "~/lib/scale";
+import { BodyTooLargeError, readBodyBytes } from "#server/http.ts";
 
 /** Largest accepted request body: 5 MB. */
 export const MAX_BODY_BYTES = 5 * 1024 * 1024;
@@ -18,44 +19,15 @@ function errorBody(message: string, issues: { path: string; message: string }[] 
   return { error: { message, issues } };
 }
 
-class BodyTooLarge extends Error {}
-
-/** Read the body as text, refusing more than `limit` bytes (checks Content-Length first). */
-async function readBodyText(request: Request, limit: number): Promise<string> {
-  const declared = request.headers.get("content-length");
-  if (declared !== null && Number(declared) > limit) throw new BodyTooLarge();
-  if (!request.body) return "";
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel().catch(() => {});
-      throw new BodyTooLarge();
-    }
-    chunks.push(value);
-  }
-  const all = new Uint8Array(total);
-  let off = 0;
-  for (const c of chunks) {
-    all.set(c, off);
-    off += c.byteLength;
-  }
-  return new TextDecoder("utf-8").decode(all);
-}
-
 export async function action({ request }: Route.ActionArgs) {
   if (request.method !== "POST") {
     return json(405, errorBody(`Method ${request.method} is not allowed; POST a JSON scale request.`), { Allow: "POST" });
   }
   let text: string;
   try {
-    text = await readBodyText(request, MAX_BODY_BYTES);
+    text = new TextDecoder("utf-8").decode(await readBodyBytes(request, MAX_BODY_BYTES));
   } catch (err) {
-    if (err instanceof BodyTooLarge) {
+    if (err instanceof BodyTooLargeError) {
       return json(
         413,
         errorBody(`The request body is larger than ${MAX_BODY_BYTES / (1024 * 1024)} MB. Simplify the route (fewer vertices) or send fewer markers.`),

@@ -1,9 +1,9 @@
 // The frame of the public chart-edition pages (/editions…): readable by visitors and by every
 // signed-in member; editors and admins also see drafts and the management links.
-import { Link, NavLink, Outlet, data } from "react-router";
+import { Link, Outlet, data } from "react-router";
 import { GeneralErrorBoundary } from "~/components/error-boundary";
 import { FormMessage } from "~/components/forms";
-import { Wordmark } from "~/components/site-header";
+import { SiteNav } from "~/components/site-nav";
 import { viewerOf } from "#server/editions.ts";
 import { readNotice } from "#server/session.ts";
 import type { Route } from "./+types/editions.layout";
@@ -28,21 +28,7 @@ export default function EditionsLayout({ loaderData }: Route.ComponentProps) {
     <div className="min-h-screen">
       <header className="border-b border-rule bg-white">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-5 py-3">
-          <div className="flex items-center gap-6">
-            <Wordmark />
-            <nav aria-label="Chart editions" className="flex gap-1">
-              {links.map((l) => (
-                <NavLink
-                  key={l.to}
-                  to={l.to}
-                  end={l.end}
-                  className={({ isActive }) => `rounded px-3 py-2 no-underline ${isActive ? "bg-paper-deep font-semibold text-ink" : "text-ink-soft hover:bg-paper"}`}
-                >
-                  {l.label}
-                </NavLink>
-              ))}
-            </nav>
-          </div>
+          <SiteNav label="Chart editions" links={links} />
           <div className="flex items-center gap-3 font-sans text-sm">
             {viewer ? (
               <>

@@ -1,7 +1,7 @@
-import { Form, NavLink, Outlet, data } from "react-router";
+import { Form, Outlet, data } from "react-router";
 import { GeneralErrorBoundary } from "~/components/error-boundary";
 import { FormMessage } from "~/components/forms";
-import { Wordmark } from "~/components/site-header";
+import { SiteNav } from "~/components/site-nav";
 import { ROLE_LABELS } from "~/lib/roles";
 import { requireMember } from "#server/auth.ts";
 import { readNotice } from "#server/session.ts";
@@ -37,21 +37,7 @@ export default function StudioLayout({ loaderData }: Route.ComponentProps) {
     <div className="min-h-screen">
       <header className="border-b border-rule bg-white">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-5 py-3">
-          <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
-            <Wordmark />
-            <nav aria-label="Studio" className="flex flex-wrap gap-1">
-              {links.filter((l) => l.show).map((l) => (
-                <NavLink
-                  key={l.to}
-                  to={l.to}
-                  end={l.end}
-                  className={({ isActive }) => `rounded px-3 py-2 no-underline ${isActive ? "bg-paper-deep font-semibold text-ink" : "text-ink-soft hover:bg-paper"}`}
-                >
-                  {l.label}
-                </NavLink>
-              ))}
-            </nav>
-          </div>
+          <SiteNav label="Studio" links={links.filter((l) => l.show)} />
           <div className="flex items-center gap-3 font-sans text-sm">
             {organisations.length > 1 ? (
               <Form method="post" action="/studio/switch-organisation" className="flex items-center gap-2">

@@ -1,0 +1,34 @@
+// Request bodies with a size limit: Content-Length is checked first, then the stream is counted,
+// so a client that lies about (or omits) the length still cannot make the server buffer more.
+export class BodyTooLargeError extends Error {
+  constructor(public limit: number) {
+    super(`The request body is larger than ${limit} bytes.`);
+    this.name = "BodyTooLargeError";
+  }
+}
+
+export async function readBodyBytes(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
+  const declared = request.headers.get("content-length");
+  if (declared !== null && Number(declared) > limit) throw new BodyTooLargeError(limit);
+  if (!request.body) return new Uint8Array(new ArrayBuffer(0));
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > limit) {
+      await reader.cancel().catch(() => {});
+      throw new BodyTooLargeError(limit);
+    }
+    chunks.push(value);
+  }
+  const body = new Uint8Array(total);
+  let offset = 0;
+  for (const c of chunks) {
+    body.set(c, offset);
+    offset += c.byteLength;
+  }
+  return body;
+}
