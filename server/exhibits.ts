@@ -435,3 +435,20 @@ export function repinToCurrent(actor: Actor, slug: string, revision: number) {
     (r) => r,
   );
 }
+
+/**
+ * For the edition compare page: the organisation's exhibits pinned to `editionId` with a boundary
+ * marker on each interval (by the interval's name in that edition).
+ */
+export async function exhibitsByBoundary(organisationId: number, editionId: number): Promise<Map<string, { slug: string; title: string }[]>> {
+  const [rows] = (await sequelize.query(
+    `SELECT DISTINCT i.name AS interval, e.slug, e.title
+       FROM markers m JOIN exhibits e ON e.id = m.exhibit_id JOIN intervals i ON i.id = m.interval_id
+      WHERE e.organisation_id = $1 AND e.edition_id = $2 AND m.kind = 'boundary'
+      ORDER BY e.title`,
+    { bind: [organisationId, editionId] },
+  )) as [{ interval: string; slug: string; title: string }[], unknown];
+  const out = new Map<string, { slug: string; title: string }[]>();
+  for (const r of rows) out.set(r.interval, [...(out.get(r.interval) ?? []), { slug: r.slug, title: r.title }]);
+  return out;
+}

@@ -8,6 +8,7 @@ import { ShiftChart } from "~/components/chart/shift-chart";
 import { compare } from "~/lib/timescale";
 import { notFound } from "#server/auth.ts";
 import { listEditions, loadEdition, viewerOf } from "#server/editions.ts";
+import { exhibitsByBoundary } from "#server/exhibits.ts";
 import type { Route } from "./+types/editions.compare";
 
 export const meta: Route.MetaFunction = ({ data }) => [
@@ -29,7 +30,16 @@ export async function loader({ request }: Route.LoaderArgs) {
   if (!b) notFound(`There is no published chart edition "${toSlug}".`);
   if (fromSlug === toSlug) return { choices, fromSlug, toSlug, pair: null, same: true };
   const c = compare(a.intervals, b.intervals);
-  const moved = groupMoves(c.moved, b.intervals, a.intervals);
+  const grouped = groupMoves(c.moved, b.intervals, a.intervals);
+  // Signed-in members also see which of their organisation's exhibits (pinned to the older edition)
+  // have a marker on each moved boundary.
+  const pinned = viewer?.organisationId ? await exhibitsByBoundary(viewer.organisationId, a.edition.id) : null;
+  const moved = grouped.map((m) => {
+    const seen = new Map<string, { slug: string; title: string }>();
+    for (const name of m.names) for (const ex of pinned?.get(name) ?? []) seen.set(ex.slug, ex);
+    return { ...m, exhibits: [...seen.values()] };
+  });
+  const affected = new Set(moved.flatMap((m) => m.exhibits.map((e) => e.slug))).size;
   return {
     choices,
     fromSlug,
@@ -40,6 +50,8 @@ export async function loader({ request }: Route.LoaderArgs) {
       to: { slug: b.edition.slug, label: b.edition.label, status: b.edition.status },
       moved,
       movedIntervals: c.moved.length,
+      showExhibits: pinned !== null,
+      affected,
       uncertainty: groupUncertainty(c.uncertaintyChanged, b.intervals),
       uncertaintyIntervals: c.uncertaintyChanged.length,
       renamed: c.renamed,
@@ -114,6 +126,13 @@ export default function CompareEditions({ loaderData }: Route.ComponentProps) {
             ) : (
               <>
                 <p className="mb-3 mt-1 text-ink-soft">One row per boundary, youngest first; a boundary shared by several ranks is named by the shallowest (the others are in the table).</p>
+                {pair.showExhibits ? (
+                  <p className="mb-3 font-sans text-sm" data-testid="affected-summary">
+                    {pair.affected === 0
+                      ? `None of your organisation's exhibits pinned to ${pair.from.label} has a marker on a moved boundary.`
+                      : `${pair.affected} of your organisation's exhibits pinned to ${pair.from.label} ${pair.affected === 1 ? "has" : "have"} markers on moved boundaries; each is listed in the table and shows its impact report.`}
+                  </p>
+                ) : null}
                 <ShiftChart rows={pair.moved} title={`Boundaries moved from ${pair.from.label} to ${pair.to.label}, shift in Ma`} />
                 <div className="card mt-4 overflow-x-auto p-0">
                   <table className="w-full text-left text-sm" data-testid="moved-table">
@@ -126,6 +145,7 @@ export default function CompareEditions({ loaderData }: Route.ComponentProps) {
                         <th scope="col" className="px-3 py-2 text-right">{pair.to.label} (Ma)</th>
                         <th scope="col" className="px-3 py-2 text-right">Shift (Ma)</th>
                         <th scope="col" className="px-3 py-2 text-right">Shift (% of old)</th>
+                        {pair.showExhibits ? <th scope="col" className="px-3 py-2">Your exhibits affected</th> : null}
                       </tr>
                     </thead>
                     <tbody>
@@ -141,6 +161,11 @@ export default function CompareEditions({ loaderData }: Route.ComponentProps) {
                           <td className="num px-3 py-1.5 text-right">{fmtMa(m.newBaseMa)}{m.newUncertaintyMa !== null ? ` ± ${fmtMa(m.newUncertaintyMa)}` : ""}</td>
                           <td className="num px-3 py-1.5 text-right font-semibold">{fmtShift(m.shiftMa)}</td>
                           <td className="num px-3 py-1.5 text-right">{fmtPercent(m.shiftPercent)}</td>
+                          {pair.showExhibits ? (
+                            <td className="px-3 py-1.5">
+                              {m.exhibits.length === 0 ? <span className="text-ink-soft">none</span> : m.exhibits.map((e, i) => <span key={e.slug}>{i ? ", " : ""}<Link to={`/studio/exhibits/${e.slug}`}>{e.title}</Link></span>)}
+                            </td>
+                          ) : null}
                         </tr>
                       ))}
                     </tbody>

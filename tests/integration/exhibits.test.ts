@@ -7,6 +7,7 @@ import * as newExhibit from "../../app/routes/studio/exhibits.new.tsx";
 import * as list from "../../app/routes/studio/exhibits.tsx";
 import * as scheduleRoute from "../../app/routes/studio/exhibit.schedule-csv.ts";
 import * as pointsRoute from "../../app/routes/studio/exhibit.points-geojson.ts";
+import * as compareRoute from "../../app/routes/editions.compare.tsx";
 import { AuditEvent, DatedEvent, Exhibit, Marker, Membership, Organisation, User } from "../../db/models/index.ts";
 import { SCHEDULE_HEADER } from "../../app/lib/exhibit/exports.ts";
 import { readCsv } from "../../app/lib/timescale/csv.ts";
@@ -252,6 +253,18 @@ describe("the demo exhibits", () => {
     const fc = JSON.parse(await geo.text());
     expect(fc.type).toBe("FeatureCollection");
     expect(fc.features.length).toBe(data.length);
+  });
+
+  it("the edition compare page lists the organisation's exhibits each moved boundary affects", async () => {
+    const res = await settle(() => compareRoute.loader(routeArgs(getRequest("/editions/compare?from=ics-2023-09&to=ics-2024-12", { cookie: marrowby.designer }))));
+    const pair = (res.body as { pair: { moved: { names: string[]; exhibits: { slug: string }[] }[]; affected: number; showExhibits: boolean } }).pair;
+    expect(pair.showExhibits).toBe(true);
+    const cretaceous = pair.moved.find((m) => m.names.includes("Cretaceous"))!;
+    expect(cretaceous.exhibits.map((e) => e.slug)).toEqual(["corridor-wall"]);
+    expect(pair.affected).toBe(1);
+    // Visitors see the comparison but no exhibits.
+    const anon = await settle(() => compareRoute.loader(routeArgs(getRequest("/editions/compare?from=ics-2023-09&to=ics-2024-12"))));
+    expect((anon.body as { pair: { showExhibits: boolean } }).pair.showExhibits).toBe(false);
   });
 
   it("corridor-wall needs re-check: the Cretaceous base moves from 145 to 143.1 Ma, 6.3 cm towards the present; re-pinning clears it", async () => {
