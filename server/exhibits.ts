@@ -20,7 +20,8 @@ import type { ScaleResult } from "../app/lib/scale/compute.ts";
 import { toYears, type AgeUnit, type LengthUnit } from "../app/lib/units/index.ts";
 import type { MediumType } from "../app/lib/scale/legibility.ts";
 import type { Interval as DomainInterval, Rank } from "../app/lib/timescale/types.ts";
-import { ChartEdition, Exhibit, ExhibitMedium, Inset, Interval, Marker, sequelize, User } from "../db/models/index.ts";
+import { ChartEdition, DecaySystem, Exhibit, ExhibitMedium, Inset, Interval, Marker, sequelize, User } from "../db/models/index.ts";
+import { howWeKnow } from "../app/lib/decay/index.ts";
 import { audit } from "./audit.ts";
 import { currentEdition, editionIntervals } from "./editions.ts";
 import { eventsByIds, type LibraryEvent } from "./exhibit-events.ts";
@@ -362,11 +363,34 @@ async function markerOf(b: ExhibitBundle, markerId: number) {
   return row;
 }
 
-export function editMarker(actor: Actor, slug: string, revision: number, markerId: number, label: string, text: string) {
+export function editMarker(actor: Actor, slug: string, revision: number, markerId: number, label: string, text: string, decaySystemId: number | null = null) {
   return reviseExhibit(actor, slug, revision, "markers.edit", async (b, transaction) => {
-    await (await markerOf(b, markerId)).update({ label, text }, { transaction });
+    if (decaySystemId !== null && !(await DecaySystem.findByPk(decaySystemId, { transaction }))) throw new ExhibitError("That decay system is not in the library.", "decaySystemId");
+    await (await markerOf(b, markerId)).update({ label, text, decaySystemId }, { transaction });
     return markerId;
-  }, (id) => ({ markerId: id }));
+  }, (id) => ({ markerId: id, decaySystemId }));
+}
+
+/** "How we know" for markers with a decay system: how much of the parent is left after the marker's age. */
+export async function howWeKnowFor(bundle: ExhibitBundle): Promise<{ systems: { id: number; label: string }[]; byMarker: Map<string, string> }> {
+  const systems = await DecaySystem.findAll({ order: [["position", "ASC"], ["slug", "ASC"]] });
+  const byId = new Map(systems.map((s) => [s.id, s]));
+  const byMarker = new Map<string, string>();
+  for (const row of bundle.markerRows) {
+    const system = row.decaySystemId ? byId.get(row.decaySystemId) : undefined;
+    const marker = bundle.markers.find((m) => m.id === String(row.id));
+    if (!system || !marker) continue;
+    const h = howWeKnow(marker.ageMa * 1e6, {
+      parent: system.parent,
+      daughter: system.daughter,
+      halfLifeYears: Number(system.halfLifeYears),
+      halfLifeUncertaintyYears: system.halfLifeUncertaintyYears == null ? null : Number(system.halfLifeUncertaintyYears),
+      decayConstantPerYear: Number(system.decayConstantPerYear),
+      branchConstantPerYear: system.branchConstantPerYear == null ? null : Number(system.branchConstantPerYear),
+    });
+    byMarker.set(marker.id, `${h.sentence} (${system.citation.split(/[.;]/)[0]})`);
+  }
+  return { systems: systems.map((s) => ({ id: s.id, label: `${s.parent} → ${s.daughter}` })), byMarker };
 }
 
 export function removeMarker(actor: Actor, slug: string, revision: number, markerId: number) {

@@ -8,7 +8,7 @@ import * as list from "../../app/routes/studio/exhibits.tsx";
 import * as scheduleRoute from "../../app/routes/studio/exhibit.schedule-csv.ts";
 import * as pointsRoute from "../../app/routes/studio/exhibit.points-geojson.ts";
 import * as compareRoute from "../../app/routes/editions.compare.tsx";
-import { AuditEvent, DatedEvent, Exhibit, Marker, Membership, Organisation, User } from "../../db/models/index.ts";
+import { AuditEvent, DatedEvent, DecaySystem, Exhibit, Marker, Membership, Organisation, User } from "../../db/models/index.ts";
 import { SCHEDULE_HEADER } from "../../app/lib/exhibit/exports.ts";
 import { readCsv } from "../../app/lib/timescale/csv.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle } from "../helpers/db.ts";
@@ -134,6 +134,19 @@ describe("composing", () => {
     const { body } = await load("test-wall");
     const html = body.markers.find((m) => m.id === String(marker!.id))!.html;
     expect(html).not.toMatch(/script|onerror|javascript:/i);
+  });
+
+  it("a marker with a decay system says how much of the parent is left (Jaffey et al. 1971 half-life of U-238)", async () => {
+    const rev = await revisionOf("test-wall");
+    const cambrian = (await load("test-wall")).body.markers.find((m) => m.intervalName === "Cambrian")!;
+    const u238 = await DecaySystem.findOne({ where: { slug: "u238-pb206" } }) ?? (await DecaySystem.findAll()).find((d) => /238/.test(d.parent))!;
+    expect((await post("test-wall", { intent: "edit-marker", markerId: cambrian.id, label: cambrian.label, text: "", decaySystemId: String(u238.id), revision: String(rev) })).status).toBe(302);
+    const after = (await load("test-wall")).body.markers.find((m) => m.id === cambrian.id)!;
+    // e^(−ln2 · 538.8 / 4468.3) = 0.9198: about 92 % of the U-238 is left after 538.8 million years.
+    expect(after.howWeKnow).toMatch(/92(\.\d+)?\s?%/);
+    expect(after.decaySystemId).toBe(u238.id);
+    const bad = await post("test-wall", { intent: "edit-marker", markerId: cambrian.id, label: cambrian.label, text: "", decaySystemId: "999999", revision: String(rev + 1) });
+    expect((bad.body as Body).fields?.decaySystemId).toMatch(/not in the library/);
   });
 
   it.each([

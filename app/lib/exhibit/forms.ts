@@ -103,6 +103,7 @@ export const MarkerTextSchema = z.object({
   markerId: z.coerce.number({ error: "Missing marker." }).int().positive({ error: "Missing marker." }),
   label: z.string({ error: "Give the marker a label." }).trim().min(1, { error: "Give the marker a label." }).max(200, { error: "Keep the label under 200 characters." }),
   text: z.string().max(2000, { error: "Keep the text under 2,000 characters (about 75–100 words is the usual label length)." }).default(""),
+  decaySystemId: z.preprocess(blankToUndefined, z.coerce.number({ error: "Choose a decay system from the list." }).int().positive({ error: "Choose a decay system from the list." }).optional()),
 });
 
 export const InsetFormSchema = z

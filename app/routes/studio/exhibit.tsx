@@ -35,6 +35,7 @@ import {
   computeBundle,
   editMarker,
   ExhibitError,
+  howWeKnowFor,
   impactFor,
   removeInset,
   removeMarker,
@@ -65,13 +66,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request);
   const bundle = await requireBundle(member.organisation.id, params.slug);
   const computed = computeBundle(bundle);
-  const impact = computed.ok ? await impactFor(bundle, computed.result) : null;
+  const [impact, decay] = await Promise.all([computed.ok ? impactFor(bundle, computed.result) : null, howWeKnowFor(bundle)]);
   const e = bundle.exhibit;
   return {
     exhibit: { title: e.title, slug: e.slug, status: e.status, revision: e.revision, updatedAt: e.updatedAt.toISOString(), updatedBy: e.updatedBy?.name ?? null },
     edition: { slug: bundle.edition.slug, label: bundle.edition.label, status: bundle.edition.status },
     spec: bundle.spec,
-    markers: bundle.markers.map((m) => ({ ...m, html: renderMarkdown(m.text) })),
+    markers: bundle.markers.map((m) => ({ ...m, html: renderMarkdown(m.text), howWeKnow: decay.byMarker.get(m.id) ?? null, decaySystemId: bundle.markerRows.find((r) => String(r.id) === m.id)?.decaySystemId ?? null })),
+    decaySystems: decay.systems,
     insetIds: bundle.insets.map((i) => i.id),
     intervals: bundle.intervals.map((i) => ({ name: i.name, rank: i.rank, baseMa: i.baseMa, topMa: i.topMa, color: i.color })),
     impact,
@@ -138,7 +140,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       case "edit-marker": {
         const t = parseForm(MarkerTextSchema, form);
         if (!t.ok) return invalid(t);
-        await editMarker(actor, slug, revision, t.data.markerId, t.data.label, t.data.text);
+        await editMarker(actor, slug, revision, t.data.markerId, t.data.label, t.data.text, t.data.decaySystemId ?? null);
         message = "Marker saved.";
         break;
       }
@@ -234,7 +236,7 @@ export default function Composer({ loaderData, actionData }: Route.ComponentProp
 }
 
 function ComposerBody({ loaderData, actionData }: Pick<Route.ComponentProps, "loaderData" | "actionData">) {
-  const { exhibit, edition, markers, intervals, impact, canEdit } = loaderData;
+  const { exhibit, edition, markers, intervals, impact, canEdit, decaySystems } = loaderData;
   const [draft, setDraft] = useState<Draft>(() => draftOf(loaderData));
   const [lifeYears, setLifeYears] = useState("80");
   const set = (k: keyof Draft) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setDraft((d) => ({ ...d, [k]: e.target.value }));
@@ -417,6 +419,7 @@ function ComposerBody({ loaderData, actionData }: Pick<Route.ComponentProps, "lo
                       <span className="font-semibold">{m.label}</span>
                       <div className="text-xs text-ink-soft">{m.source}</div>
                       {m.html ? <div className="prose-sm mt-1 text-xs" dangerouslySetInnerHTML={{ __html: m.html }} /> : null}
+                      {m.howWeKnow ? <p className="mt-1 text-xs text-slate-river-700"><span className="font-semibold">How we know:</span> {m.howWeKnow}</p> : null}
                     </td>
                     <td className="p-2">{m.kind}</td>
                     <td className="num p-2">{m.approximate ? "~" : ""}{formatAgeMa(m.ageMa)}{m.uncertaintyMa ? ` ± ${formatAgeMa(m.uncertaintyMa)}` : ""}</td>
@@ -439,6 +442,12 @@ function ComposerBody({ loaderData, actionData }: Pick<Route.ComponentProps, "lo
                             <input type="hidden" name="markerId" value={m.id} />
                             <label className="block text-xs font-semibold">Label<input name="label" defaultValue={m.label} className="field" /></label>
                             <label className="block text-xs font-semibold">Text (Markdown)<textarea name="text" defaultValue={m.text} rows={3} className="field" /></label>
+                            <label className="block text-xs font-semibold">How we know (decay system)
+                              <select name="decaySystemId" defaultValue={m.decaySystemId ?? ""} className="field">
+                                <option value="">none</option>
+                                {decaySystems.map((d) => <option key={d.id} value={d.id}>{d.label}</option>)}
+                              </select>
+                            </label>
                             <button type="submit" className="btn-quiet">Save marker</button>
                           </Form>
                           <Form method="post" className="mt-2">
