@@ -290,6 +290,15 @@ export function updateSettings(actor: Actor, slug: string, revision: number, s: 
   });
 }
 
+/** Replaces a route exhibit's route (a new GPX or GeoJSON upload); markers keep their ages and move with it. */
+export function replaceRoute(actor: Actor, slug: string, revision: number, route: Extract<MediumInput, { kind: "route" }>) {
+  return reviseExhibit(actor, slug, revision, "route.replace", async (b, transaction) => {
+    if (b.medium.kind !== "route") throw new ExhibitError("This exhibit is a straight length, not a route.", "routeFile");
+    await b.medium.update(mediumColumns(route, b.medium.mediumType), { transaction });
+    return { sourceName: route.sourceName, lengthMetres: route.lengthMetres };
+  }, (r) => r);
+}
+
 /** Adds the base of one interval, or of every interval of a rank inside the span (skipping ones already there). */
 export function addBoundaries(actor: Actor, slug: string, revision: number, pick: { intervalName?: string; rank?: Rank }) {
   return reviseExhibit(

@@ -101,6 +101,20 @@ describe("creating an exhibit", () => {
     expect(medium.kind === "route" && Math.abs(medium.lengthMetres - ref)).toBeLessThan(1e-6);
   });
 
+  it("replaces the route of a route exhibit from the composer; a broken file changes nothing", async () => {
+    const rev = await revisionOf("test-route");
+    const geojson = JSON.stringify({ type: "Feature", properties: {}, geometry: { type: "LineString", coordinates: [[-3, 54], [-3, 54.01]] } });
+    const ok = await settle(() => composer.action(routeArgs(multipart("/studio/exhibits/test-route", { intent: "replace-route", revision: String(rev) }, { name: "new.geojson", text: geojson }, designerCookie), { slug: "test-route" })));
+    expect(ok.status).toBe(302);
+    const { body } = await load("test-route");
+    const g = geodesic.Geodesic.WGS84;
+    expect(body.spec.medium.kind === "route" && Math.abs(body.spec.medium.lengthMetres - g.Inverse(54, -3, 54.01, -3).s12!)).toBeLessThan(1e-6);
+    const bad = await settle(() => composer.action(routeArgs(multipart("/studio/exhibits/test-route", { intent: "replace-route", revision: String(rev + 1) }, { name: "bad.geojson", text: "{" }, designerCookie), { slug: "test-route" })));
+    expect(bad.status).toBe(400);
+    expect((bad.body as Body).fields?.routeFile).toMatch(/neither GPX nor valid GeoJSON/);
+    expect(await revisionOf("test-route")).toBe(rev + 1);
+  });
+
   it("refuses a broken route file with the reason", async () => {
     const res = await create({ ...wall, slug: "broken-route", mediumKind: "route", mediumType: "trail" }, { name: "x.geojson", text: '{"type":"LineString","coordinates":[[200,10],[1,2]]}' });
     expect(res.status).toBe(400);

@@ -14,6 +14,7 @@ import {
   formatLength,
   InsetFormSchema,
   MarkerTextSchema,
+  readRouteFile,
   RevisionSchema,
   SettingsSchema,
   LengthMediumSchema,
@@ -39,12 +40,14 @@ import {
   impactFor,
   removeInset,
   removeMarker,
+  replaceRoute,
   repinToCurrent,
   requireBundle,
   updateSettings,
   type Actor,
 } from "#server/exhibits.ts";
 import { noticeHeader } from "#server/session.ts";
+import { readLimitedFormData } from "#server/editions.ts";
 import { z } from "zod";
 import type { Route } from "./+types/exhibit";
 
@@ -90,7 +93,12 @@ function insetIdNumber(id: string) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const member = await requireMember(request, ["designer"]);
-  const form = await request.formData();
+  let form: FormData;
+  try {
+    form = await readLimitedFormData(request);
+  } catch (error) {
+    return data({ intent: "replace-route", error: (error as Error).message, fields: { routeFile: (error as Error).message } as Record<string, string> }, { status: 413 });
+  }
   const intent = String(form.get("intent") ?? "");
   const rev = RevisionSchema.safeParse(form.get("revision"));
   if (!rev.success) return data({ intent, error: rev.error.issues[0].message, fields: {} as Record<string, string> }, { status: 400 });
@@ -166,6 +174,15 @@ export async function action({ request, params }: Route.ActionArgs) {
         if (!id.success) return data({ intent, error: "Missing inset.", fields: {} as Record<string, string> }, { status: 400 });
         await removeInset(actor, slug, revision, id.data);
         message = "Inset removed.";
+        break;
+      }
+      case "replace-route": {
+        const file = form.get("routeFile");
+        if (!(file instanceof File) || file.size === 0) return data({ intent, error: "Upload the new route as a GeoJSON or GPX file.", fields: { routeFile: "Upload the new route as a GeoJSON or GPX file." } as Record<string, string> }, { status: 400 });
+        const r = readRouteFile(file.name, await file.text());
+        if (!r.ok) return data({ intent, error: r.message, fields: { routeFile: r.message } as Record<string, string> }, { status: 400 });
+        await replaceRoute(actor, slug, revision, { kind: "route", geometry: r.geometry, lengthMetres: r.lengthMetres, vertexCount: r.vertexCount, sourceName: file.name });
+        message = `Route replaced by ${file.name} (${formatLength(r.lengthMetres, "metric", 0.01)}); every marker moved with it.`;
         break;
       }
       case "repin": {
@@ -359,6 +376,17 @@ function ComposerBody({ loaderData, actionData }: Pick<Route.ComponentProps, "lo
               <h3 className="font-serif text-lg">Route</h3>
               <p className="mt-1">{spec.medium.sourceName ?? "uploaded route"}: {formatLength(spec.medium.lengthMetres, units, 0.01)} on the WGS84 ellipsoid, {(spec.medium.geometry.coordinates as unknown[]).length.toLocaleString("en-GB")} points.</p>
               <p className="mt-1 text-ink-soft">The walk starts at the route's first point (the older end) and ends at its last point (the present).</p>
+              {canEdit ? (
+                <Form method="post" encType="multipart/form-data" className="mt-4 space-y-2">
+                  <input type="hidden" name="intent" value="replace-route" />
+                  <input type="hidden" name="revision" value={exhibit.revision} />
+                  <label className="block"><span className="mb-1 block font-semibold">Replace the route (GPX or GeoJSON)</span>
+                    <input type="file" name="routeFile" accept=".gpx,.geojson,.json" className="field" />
+                  </label>
+                  {err("replace-route", "routeFile") ? <p className="text-danger">{err("replace-route", "routeFile")}</p> : null}
+                  <button type="submit" className="btn-quiet">Upload the new route</button>
+                </Form>
+              ) : null}
             </div>
           </div>
         ) : null}
