@@ -408,7 +408,7 @@ function ComposerBody({ loaderData, actionData }: Pick<Route.ComponentProps, "lo
                       <td className="num p-2">{r.oldAgeMa} Ma{r.oldUncertaintyMa != null ? ` ± ${r.oldUncertaintyMa}` : ""}</td>
                       <td className="num p-2">{r.newAgeMa == null ? "not in the new edition" : `${r.newAgeMa} Ma${r.newUncertaintyMa != null ? ` ± ${r.newUncertaintyMa}` : ""}`}</td>
                       <td className="num p-2">{r.shiftMa == null ? "—" : `${r.shiftMa > 0 ? "+" : ""}${Number(r.shiftMa.toFixed(6))} Ma`}</td>
-                      <td className="num p-2">{r.shiftMetres == null ? "—" : r.shiftMetres === 0 ? "no move (± changed)" : `${formatLength(Math.abs(r.shiftMetres), units, 0.001)} towards the ${r.shiftMetres > 0 ? "younger" : "older"} end`}</td>
+                      <td className="num p-2">{r.shiftMetres == null ? "—" : r.shiftMetres === 0 ? "no move (± changed)" : `${formatLength(Math.abs(r.shiftMetres), units, Math.min(0.001, Math.abs(r.shiftMetres) / 10))} towards the ${r.shiftMetres > 0 ? "younger" : "older"} end`}</td>
                     </tr>
                   ))}
                 </tbody>
