@@ -14,7 +14,7 @@ import { createDraftEdition, discardDraft, editionIntervals } from "../../server
 import { createMember, createOrganisation, routeArgs, unique } from "../helpers/db.ts";
 import { SEEDED_CURRENT, SEEDED_RETIRED, TEST_META } from "../helpers/editions.ts";
 
-import { SEEDS } from "../fixtures/ics-chart-check-values.ts";
+import { SEEDS, type Seed } from "../fixtures/ics-chart-check-values.ts";
 
 type ApiInterval = {
   name: string;
