@@ -3,6 +3,7 @@
 import { Op, type Transaction } from "sequelize";
 import { z } from "zod";
 import { Invitation, Membership, Organisation, PasswordReset, sequelize, User } from "../db/models/index.ts";
+import { INVITATION_DAYS, RESET_MINUTES } from "../app/lib/account-links.ts";
 import { ROLE_LABELS, ROLES, type Role } from "../app/lib/roles.ts";
 import { audit } from "./audit.ts";
 import { hashPassword, NewPasswordSchema, notFound, verifyPassword } from "./auth.ts";
@@ -11,7 +12,6 @@ import { queueEmail } from "./mail.ts";
 import { endUserSessions } from "./session.ts";
 import { hashToken, newToken } from "./tokens.ts";
 
-import { INVITATION_DAYS, RESET_MINUTES } from "../app/lib/account-links.ts";
 export { INVITATION_DAYS, RESET_MINUTES };
 
 /** A refusal meant for the person using the form: a field (or "_form") and the reason. */
@@ -229,7 +229,7 @@ export async function resetPassword(token: string, password: string) {
     await user.update({ passwordHash: await hashPassword(password) }, { transaction });
     await state.reset.update({ usedAt: new Date() }, { transaction });
     await audit({ actorId: user.id, action: "password.reset", objectType: "user", objectId: user.id }, transaction);
-    await endUserSessions(user.id);
+    await endUserSessions(user.id, undefined, transaction);
     return user;
   });
 }
@@ -239,8 +239,8 @@ export async function changePassword(user: User, sessionId: string, current: str
   await sequelize.transaction(async (transaction) => {
     await user.update({ passwordHash: await hashPassword(password) }, { transaction });
     await audit({ actorId: user.id, action: "password.change", objectType: "user", objectId: user.id }, transaction);
+    await endUserSessions(user.id, sessionId, transaction);
   });
-  await endUserSessions(user.id, sessionId);
 }
 
 function escapeHtml(s: string) {

@@ -2,7 +2,7 @@
 // the cookie holds only a signed random id. A separate short cookie carries one-time notices.
 import { randomBytes } from "node:crypto";
 import { createCookie, createCookieSessionStorage, createSessionStorage } from "react-router";
-import { Op } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import { Session } from "../db/models/index.ts";
 import { env } from "./env.ts";
 
@@ -61,8 +61,8 @@ export function getSession(request: Request) {
 }
 
 /** Ends every session of a user (after a password change or reset), optionally keeping one. */
-export async function endUserSessions(userId: number, keepSessionId?: string) {
-  await Session.destroy({ where: { userId, ...(keepSessionId ? { id: { [Op.ne]: keepSessionId } } : {}) } });
+export async function endUserSessions(userId: number, keepSessionId?: string, transaction?: Transaction) {
+  await Session.destroy({ where: { userId, ...(keepSessionId ? { id: { [Op.ne]: keepSessionId } } : {}) }, transaction });
 }
 
 // One-time notices ("Invitation sent") shown after a redirect.
