@@ -1,9 +1,11 @@
 // Background workers started by each app server (RUN_WORKERS=true): they share one pg-boss queue.
 import { startMailWorker } from "./mail.ts";
 import { getBoss } from "./queue.ts";
+import { startSweeps } from "./sweeps.ts";
 
 export async function startWorkers() {
   const boss = await getBoss();
   await startMailWorker(boss);
+  await startSweeps(boss);
   return boss;
 }
