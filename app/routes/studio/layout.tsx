@@ -49,10 +49,11 @@ export default function StudioLayout({ loaderData }: Route.ComponentProps) {
                 </select>
                 <button type="submit" className="btn-quiet">Switch</button>
               </Form>
-            ) : (
-              <span>{organisation.name}</span>
-            )}
-            <span className="text-ink-soft" title={user.email}>{user.name} · {ROLE_LABELS[role]}</span>
+            ) : null}
+            <div className="flex flex-col text-right leading-tight">
+              {organisations.length > 1 ? null : <span className="font-semibold">{organisation.name}</span>}
+              <span className="text-ink-soft" title={user.email}>{user.name} · {ROLE_LABELS[role]}</span>
+            </div>
             <Form method="post" action="/logout">
               <button type="submit" className="btn-quiet">Sign out</button>
             </Form>
