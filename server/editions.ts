@@ -25,7 +25,8 @@ import {
 import { audit } from "./audit.ts";
 import { env } from "./env.ts";
 import { getSession } from "./session.ts";
-import { BodyTooLargeError, readBodyBytes } from "./http.ts";
+import { BodyTooLargeError, megabytes, readLimitedFormData as readFormDataWithin } from "./http.ts";
+import type { Transaction } from "sequelize";
 
 /** Roles that manage chart editions (import, make current, retire). */
 export const EDITION_MANAGERS = ["editor", "admin"] as const satisfies readonly Role[];
@@ -179,10 +180,15 @@ export async function listEditions(opts: { includeDrafts: boolean }): Promise<Ed
 }
 
 /** The intervals of an edition in chart order. */
-export async function editionIntervals(editionId: number): Promise<Interval[]> {
-  const rows = await IntervalRow.findAll({ where: { editionId }, order: [["chartOrder", "ASC"]] });
+export async function editionIntervals(editionId: number, transaction?: Transaction): Promise<Interval[]> {
+  return (await editionIntervalRows(editionId, transaction)).map((r) => r.interval);
+}
+
+/** The edition's intervals in chart order, each with its database id (for rows that reference one). */
+export async function editionIntervalRows(editionId: number, transaction?: Transaction): Promise<{ id: number; interval: Interval }[]> {
+  const rows = await IntervalRow.findAll({ where: { editionId }, order: [["chartOrder", "ASC"]], transaction });
   const nameOf = new Map(rows.map((r) => [r.id, r.name] as const));
-  return rows.map((r) => toInterval(r, r.parentId === null ? null : (nameOf.get(r.parentId) ?? null)));
+  return rows.map((r) => ({ id: r.id, interval: toInterval(r, r.parentId === null ? null : (nameOf.get(r.parentId) ?? null)) }));
 }
 
 export interface LoadedEdition {
@@ -342,7 +348,6 @@ export type EditionMetaInput = z.output<typeof EditionMetaSchema>;
 
 const FormatChoice = z.enum(["auto", ...IMPORT_FORMATS], { error: "Choose the file format: CSV, JSON or Turtle." });
 
-const megabytes = (n: number) => `${(n / (1024 * 1024)).toFixed(1).replace(/\.0$/, "")} MB`;
 
 export const UploadSchema = EditionMetaSchema.extend({
   format: FormatChoice.default("auto"),
@@ -370,20 +375,16 @@ export const ConfirmSchema = EditionMetaSchema.extend({
 });
 
 /** Read a form body of at most `limit` bytes (by header, then by counting the stream). */
+/** The import form (file text travels base64 in the confirm step, hence the larger limit). */
 export async function readLimitedFormData(request: Request, limit = MAX_IMPORT_REQUEST_BYTES): Promise<FormData> {
-  const tooLarge = () =>
-    new EditionError(`The upload is larger than ${megabytes(MAX_UPLOAD_BYTES)}. Upload a file of at most ${megabytes(MAX_UPLOAD_BYTES)}.`, "file", 413);
-  let body: Uint8Array<ArrayBuffer>;
   try {
-    body = await readBodyBytes(request, limit);
+    return await readFormDataWithin(request, limit);
   } catch (error) {
-    if (error instanceof BodyTooLargeError) throw tooLarge();
+    if (error instanceof BodyTooLargeError) {
+      throw new EditionError(`The upload is larger than ${megabytes(MAX_UPLOAD_BYTES)}. Upload a file of at most ${megabytes(MAX_UPLOAD_BYTES)}.`, "file", 413);
+    }
     throw error;
   }
-  const headers = new Headers();
-  const type = request.headers.get("content-type");
-  if (type) headers.set("content-type", type);
-  return new Request(request.url, { method: "POST", headers, body }).formData();
 }
 
 export function detectFormat(fileName: string, text: string): ImportFormat {

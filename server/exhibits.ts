@@ -9,6 +9,7 @@ import {
   computeExhibit,
   colourAt,
   impactReport,
+  metresPerYearOf,
   standardDurations,
   type ExhibitSpec,
   type InsetSpec,
@@ -20,11 +21,12 @@ import type { ScaleResult } from "../app/lib/scale/compute.ts";
 import { toYears, type AgeUnit, type LengthUnit } from "../app/lib/units/index.ts";
 import type { MediumType } from "../app/lib/scale/legibility.ts";
 import type { Interval as DomainInterval, Rank } from "../app/lib/timescale/types.ts";
-import { ChartEdition, DecaySystem, Exhibit, ExhibitMedium, Inset, Interval, Marker, sequelize, User } from "../db/models/index.ts";
+import { ChartEdition, DecaySystem, Exhibit, ExhibitMedium, Inset, Marker, sequelize, User } from "../db/models/index.ts";
 import { howWeKnow } from "../app/lib/decay/index.ts";
 import { audit } from "./audit.ts";
-import { currentEdition, editionIntervals } from "./editions.ts";
-import { eventsByIds, type LibraryEvent } from "./exhibit-events.ts";
+import { BodyTooLargeError, megabytes, readLimitedFormData } from "./http.ts";
+import { currentEdition, editionIntervalRows, editionIntervals } from "./editions.ts";
+import { eventsByIds, type LibraryEvent } from "./library.ts";
 
 export class ExhibitError extends Error {
   constructor(message: string, public field = "_form", public status = 400) {
@@ -61,17 +63,12 @@ export interface ExhibitBundle {
 }
 
 async function intervalsWithIds(editionId: number, transaction?: Transaction) {
-  const [domain, rows] = await Promise.all([
-    editionIntervals(editionId),
-    Interval.findAll({ where: { editionId }, attributes: ["id", "name"], transaction }),
-  ]);
-  const byName = new Map(domain.map((iv) => [iv.name, iv]));
-  const ids = new Map<number, DomainInterval>();
-  for (const r of rows) {
-    const iv = byName.get(r.name);
-    if (iv) ids.set(r.id, iv);
-  }
-  return { domain, ids, rowsByName: new Map(rows.map((r) => [r.name, r.id])) };
+  const rows = await editionIntervalRows(editionId, transaction);
+  return {
+    domain: rows.map((r) => r.interval),
+    ids: new Map(rows.map((r) => [r.id, r.interval])),
+    rowsByName: new Map(rows.map((r) => [r.interval.name, r.id])),
+  };
 }
 
 export function mediumSpecOf(m: ExhibitMedium): MediumSpec {
@@ -385,9 +382,10 @@ export async function howWeKnowFor(bundle: ExhibitBundle): Promise<{ systems: { 
   const systems = await DecaySystem.findAll({ order: [["position", "ASC"], ["slug", "ASC"]] });
   const byId = new Map(systems.map((s) => [s.id, s]));
   const byMarker = new Map<string, string>();
+  const markers = new Map(bundle.markers.map((m) => [m.id, m]));
   for (const row of bundle.markerRows) {
     const system = row.decaySystemId ? byId.get(row.decaySystemId) : undefined;
-    const marker = bundle.markers.find((m) => m.id === String(row.id));
+    const marker = markers.get(String(row.id));
     if (!system || !marker) continue;
     const h = howWeKnow(marker.ageMa * 1e6, {
       parent: system.parent,
@@ -430,11 +428,11 @@ export function removeInset(actor: Actor, slug: string, revision: number, insetI
 
 // ---------- edition impact ----------
 
-export async function impactFor(bundle: ExhibitBundle, result: ScaleResult) {
+export async function impactFor(bundle: ExhibitBundle) {
   const current = await currentEdition();
   if (!current || current.id === bundle.edition.id) return null;
   const target = await editionIntervals(current.id);
-  return { edition: { slug: current.slug, label: current.label }, report: impactReport(bundle.markers, bundle.intervals, target, result.scale.metresPerYear) };
+  return { edition: { slug: current.slug, label: current.label }, report: impactReport(bundle.markers, bundle.intervals, target, metresPerYearOf(bundle.spec)) };
 }
 
 /** Re-pins the exhibit to the current edition: boundary markers follow their interval (by name, or its rename). */
@@ -484,4 +482,17 @@ export async function exhibitsByBoundary(organisationId: number, editionId: numb
   const out = new Map<string, { slug: string; title: string }[]>();
   for (const r of rows) out.set(r.interval, [...(out.get(r.interval) ?? []), { slug: r.slug, title: r.title }]);
   return out;
+}
+
+/** Exhibit forms, including a route file upload (GPS tracks of 10⁵ points are a few MB). */
+export const MAX_EXHIBIT_FORM_BYTES = 8 * 1024 * 1024;
+
+/** readLimitedFormData with the exhibit forms' limit; a too-large body → a message for the route-file field. */
+export async function readExhibitForm(request: Request): Promise<{ ok: true; form: FormData } | { ok: false; message: string }> {
+  try {
+    return { ok: true, form: await readLimitedFormData(request, MAX_EXHIBIT_FORM_BYTES) };
+  } catch (error) {
+    if (error instanceof BodyTooLargeError) return { ok: false, message: `The upload is larger than ${megabytes(MAX_EXHIBIT_FORM_BYTES)}. Simplify the route (fewer points) or split it.` };
+    throw error;
+  }
 }

@@ -32,3 +32,17 @@ export async function readBodyBytes(request: Request, limit: number): Promise<Ui
   }
   return body;
 }
+
+/** The request's form data (urlencoded or multipart), refusing bodies over `limit` bytes. */
+export async function readLimitedFormData(request: Request, limit: number): Promise<FormData> {
+  const body = await readBodyBytes(request, limit);
+  const headers = new Headers();
+  const type = request.headers.get("content-type");
+  if (type) headers.set("content-type", type);
+  return new Request(request.url, { method: "POST", headers, body }).formData();
+}
+
+export function megabytes(bytes: number): string {
+  return `${(bytes / (1024 * 1024)).toFixed(1).replace(/\.0$/, "")} MB`;
+}
+

@@ -8,6 +8,7 @@ import { DatedEvent, DecaySystem, sequelize } from "../db/models/index.ts";
 import { formatAge, type DatedEventInput, type DatedEventView, type Verification } from "../app/lib/library.ts";
 import type { Role } from "../app/lib/roles.ts";
 import { audit } from "./audit.ts";
+import type { SeedDecaySystem } from "../db/data/library/decay-systems.ts";
 
 /** Roles that manage their organisation's library entries. Everyone else reads. */
 export const LIBRARY_MANAGERS = ["editor", "admin"] as const satisfies readonly Role[];
@@ -115,6 +116,23 @@ export async function findVisibleEvent(organisationId: number, id: number): Prom
   return DatedEvent.findOne({ where: { id, ...visibleTo(organisationId) } });
 }
 
+export interface LibraryEvent {
+  id: number;
+  name: string;
+  ageMa: number;
+  uncertaintyMa: number | null;
+  citation: string;
+}
+
+/** The visible events among `ids` (what an exhibit's event markers point at), by id. */
+export async function eventsByIds(ids: number[], organisationId: number): Promise<Map<number, LibraryEvent>> {
+  if (ids.length === 0) return new Map();
+  const rows = await DatedEvent.findAll({ where: { id: ids, ...visibleTo(organisationId) } });
+  return new Map(
+    rows.map((r) => [r.id, { id: r.id, name: r.name, ageMa: Number(r.ageMa), uncertaintyMa: r.uncertaintyMa == null ? null : Number(r.uncertaintyMa), citation: r.citation }]),
+  );
+}
+
 /** An entry the organisation may change: its own. Shared → 403, another organisation's or none → 404. */
 async function findOwnEvent(organisationId: number, id: number, transaction?: import("sequelize").Transaction): Promise<DatedEvent> {
   const row = Number.isSafeInteger(id) && id > 0 ? await DatedEvent.findByPk(id, { transaction, lock: transaction ? true : undefined }) : null;
@@ -211,23 +229,8 @@ export async function deleteEvent(actor: Actor, organisationId: number, id: numb
 // Decay systems
 // ------------------------------------------------------------------------------------------
 
-export interface DecaySystemView {
-  id: number;
-  slug: string;
-  parent: string;
-  daughter: string;
-  decayMode: string;
-  /** Exact decimal strings, as stored. */
-  halfLifeYears: string;
-  halfLifeUncertaintyYears: string | null;
-  decayConstantPerYear: string;
-  decayConstantStated: boolean;
-  branchConstantPerYear: string | null;
-  citation: string;
-  doi: string | null;
-  verification: Verification;
-  notes: string;
-}
+/** A decay system as pages show it: the seed file's fields (exact decimal strings) and its id. */
+export type DecaySystemView = Omit<SeedDecaySystem, "position"> & { id: number };
 
 export function toDecaySystemView(row: DecaySystem): DecaySystemView {
   return {

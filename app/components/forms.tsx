@@ -42,3 +42,16 @@ export function FormMessage({ kind = "error", children }: { kind?: "error" | "su
     </div>
   );
 }
+
+/** A unit picker beside a number field (ages: a, ka, Ma, Ga; lengths: mm … mi). */
+export function UnitSelect({ name, label, units, ...rest }: { name: string; label: string; units: readonly string[]; value?: string; defaultValue?: string; onChange?: (v: string) => void }) {
+  const { onChange, ...props } = rest;
+  return (
+    <div className="mb-4">
+      <label htmlFor={name} className="mb-1 block text-sm font-semibold">{label}</label>
+      <select id={name} name={name} className="field w-24" {...props} onChange={onChange ? (e) => onChange(e.target.value) : undefined}>
+        {units.map((u) => <option key={u} value={u}>{u}</option>)}
+      </select>
+    </div>
+  );
+}

@@ -3,6 +3,7 @@ import { parseScaleRequest, type ScaleRequest } from "../scale/schema";
 import { computeScale, type ScaleResult } from "../scale/compute";
 import type { PreparedRoute } from "../geo/route";
 import { intervalsAt } from "../timescale/lookup";
+import { toMetres, toYears } from "../units";
 import type { Interval, Rank } from "../timescale/types";
 import type { DurationSpec, ExhibitSpec, ResolvedMarker } from "./types";
 
@@ -61,6 +62,12 @@ export function computeExhibit(spec: ExhibitSpec, markers: ResolvedMarker[], dur
     return { ok: true, request, route: cache!.route, result: computeScale(request, { route: cache!.route }) };
   }
   return { ok: true, request: parsed.request, route: parsed.route, result: computeScale(parsed.request, { route: parsed.route }) };
+}
+
+/** Metres per year of an exhibit from its stored figures (a route's length was measured on upload). */
+export function metresPerYearOf(spec: ExhibitSpec): number {
+  const metres = spec.medium.kind === "route" ? spec.medium.lengthMetres : toMetres(spec.medium.length);
+  return metres / (toYears(spec.spanOlder) - toYears(spec.spanYounger));
 }
 
 const COLOUR_RANKS: Rank[] = ["age", "epoch", "subperiod", "period", "era", "eon"];

@@ -4,7 +4,7 @@ import { useMemo, useState } from "react";
 import { data, Form, Link, redirect, useFetcher, useNavigation } from "react-router";
 import { FormMessage } from "~/components/forms";
 import { RoutePlan } from "~/components/exhibit/route-plan";
-import { ScaleStrip, type Band } from "~/components/exhibit/scale-strip";
+import { bandsFor, ScaleStrip } from "~/components/exhibit/scale-strip";
 import {
   BoundaryMarkersSchema,
   computeExhibit,
@@ -33,7 +33,6 @@ import {
   addCustom,
   addEvent,
   addInset,
-  computeBundle,
   editMarker,
   ExhibitError,
   howWeKnowFor,
@@ -42,45 +41,33 @@ import {
   removeMarker,
   replaceRoute,
   repinToCurrent,
+  readExhibitForm,
   requireBundle,
   updateSettings,
   type Actor,
 } from "#server/exhibits.ts";
 import { noticeHeader } from "#server/session.ts";
-import { readLimitedFormData } from "#server/editions.ts";
 import { z } from "zod";
 import type { Route } from "./+types/exhibit";
 
 export const meta: Route.MetaFunction = ({ loaderData }) => [{ title: `${loaderData?.exhibit.title ?? "Exhibit"} · Eonscale` }];
 
-/** Colour bands for the strip: every rank from eon down that has at most `max` intervals in the span. */
-function bandsFor(intervals: { name: string; rank: Rank; baseMa: number; topMa: number; color: string }[], olderMa: number, youngerMa: number, max = 40): Band[] {
-  const bands: Band[] = [];
-  for (const rank of ["eon", "era", "period", "epoch", "age"] as Rank[]) {
-    const inSpan = intervals.filter((i) => i.rank === rank && i.baseMa > youngerMa && i.topMa < olderMa);
-    if (inSpan.length === 0 || inSpan.length > max) continue;
-    bands.push(...inSpan.map(({ name, baseMa, topMa, color }) => ({ name, rank, baseMa, topMa, color })));
-    if (new Set(bands.map((b) => b.rank)).size === 3) break;
-  }
-  return bands;
-}
-
 export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request);
   const bundle = await requireBundle(member.organisation.id, params.slug);
-  const computed = computeBundle(bundle);
-  const [impact, decay] = await Promise.all([computed.ok ? impactFor(bundle, computed.result) : null, howWeKnowFor(bundle)]);
+  // The preview is computed in the browser; the server needs only the impact report here.
+  const [impact, decay] = await Promise.all([impactFor(bundle), howWeKnowFor(bundle)]);
+  const decayOf = new Map(bundle.markerRows.map((r) => [String(r.id), r.decaySystemId]));
   const e = bundle.exhibit;
   return {
     exhibit: { title: e.title, slug: e.slug, status: e.status, revision: e.revision, updatedAt: e.updatedAt.toISOString(), updatedBy: e.updatedBy?.name ?? null },
     edition: { slug: bundle.edition.slug, label: bundle.edition.label, status: bundle.edition.status },
     spec: bundle.spec,
-    markers: bundle.markers.map((m) => ({ ...m, html: renderMarkdown(m.text), howWeKnow: decay.byMarker.get(m.id) ?? null, decaySystemId: bundle.markerRows.find((r) => String(r.id) === m.id)?.decaySystemId ?? null })),
+    markers: bundle.markers.map((m) => ({ ...m, html: renderMarkdown(m.text), howWeKnow: decay.byMarker.get(m.id) ?? null, decaySystemId: decayOf.get(m.id) ?? null })),
     decaySystems: decay.systems,
     insetIds: bundle.insets.map((i) => i.id),
     intervals: bundle.intervals.map((i) => ({ name: i.name, rank: i.rank, baseMa: i.baseMa, topMa: i.topMa, color: i.color })),
     impact,
-    computeError: computed.ok ? null : computed.message,
     canEdit: member.role === "designer",
   };
 }
@@ -93,12 +80,9 @@ function insetIdNumber(id: string) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const member = await requireMember(request, ["designer"]);
-  let form: FormData;
-  try {
-    form = await readLimitedFormData(request);
-  } catch (error) {
-    return data({ intent: "replace-route", error: (error as Error).message, fields: { routeFile: (error as Error).message } as Record<string, string> }, { status: 413 });
-  }
+  const read = await readExhibitForm(request);
+  if (!read.ok) return data({ intent: "replace-route", error: read.message, fields: { routeFile: read.message } as Record<string, string> }, { status: 413 });
+  const form = read.form;
   const intent = String(form.get("intent") ?? "");
   const rev = RevisionSchema.safeParse(form.get("revision"));
   if (!rev.success) return data({ intent, error: rev.error.issues[0].message, fields: {} as Record<string, string> }, { status: 400 });
@@ -298,7 +282,6 @@ function ComposerBody({ loaderData, actionData }: Pick<Route.ComponentProps, "lo
       </div>
 
       {actionData?.error ? <div className="mt-4"><FormMessage>{actionData.error}</FormMessage></div> : null}
-      {loaderData.computeError ? <div className="mt-4"><FormMessage>{loaderData.computeError}</FormMessage></div> : null}
 
       {isRoute ? (
         <aside className="mt-4 rounded-lg border-l-4 border-warn bg-sandstone-50 p-4 font-sans text-sm" aria-label="Cautions for route exhibits">

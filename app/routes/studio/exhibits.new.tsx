@@ -1,14 +1,14 @@
 import { useState } from "react";
 import { data, Form, redirect, useNavigation } from "react-router";
-import { Field, FormMessage } from "~/components/forms";
+import { Field, FormMessage, UnitSelect } from "~/components/forms";
 import { LengthMediumSchema, NewExhibitSchema, readRouteFile, SettingsSchema, slugify } from "~/lib/exhibit";
 import { MEDIUM_TYPES } from "~/lib/scale/legibility";
 import { AGE_UNITS, LENGTH_UNITS } from "~/lib/units";
 import { parseForm } from "~/lib/validation";
 import { ChartEdition } from "#db/models/index.ts";
 import { requireMember } from "#server/auth.ts";
-import { currentEdition, editionIntervals, readLimitedFormData } from "#server/editions.ts";
-import { createExhibit, ExhibitError, type MediumInput } from "#server/exhibits.ts";
+import { currentEdition, editionIntervals } from "#server/editions.ts";
+import { createExhibit, ExhibitError, readExhibitForm, type MediumInput } from "#server/exhibits.ts";
 import { noticeHeader } from "#server/session.ts";
 import { Op } from "sequelize";
 import type { Route } from "./+types/exhibits.new";
@@ -30,12 +30,9 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const member = await requireMember(request, ["designer"]);
-  let form: FormData;
-  try {
-    form = await readLimitedFormData(request);
-  } catch (error) {
-    return data({ error: (error as Error).message, fields: { file: (error as Error).message } as Record<string, string> }, { status: 413 });
-  }
+  const read = await readExhibitForm(request);
+  if (!read.ok) return data({ error: read.message, fields: { routeFile: read.message } as Record<string, string> }, { status: 413 });
+  const form = read.form;
   const fields: Record<string, string> = {};
   const base = parseForm(NewExhibitSchema, form);
   const settings = parseForm(SettingsSchema, form);
@@ -141,18 +138,6 @@ export default function NewExhibit({ loaderData, actionData }: Route.ComponentPr
         </div>
         <button type="submit" className="btn" disabled={busy}>{busy ? "Creating…" : "Create the exhibit"}</button>
       </Form>
-    </div>
-  );
-}
-
-export function UnitSelect({ name, label, units, ...rest }: { name: string; label: string; units: readonly string[]; value?: string; defaultValue?: string; onChange?: (v: string) => void }) {
-  const { onChange, ...props } = rest;
-  return (
-    <div className="mb-4">
-      <label htmlFor={name} className="mb-1 block text-sm font-semibold">{label}</label>
-      <select id={name} name={name} className="field w-24" {...props} onChange={onChange ? (e) => onChange(e.target.value) : undefined}>
-        {units.map((u) => <option key={u} value={u}>{u}</option>)}
-      </select>
     </div>
   );
 }
