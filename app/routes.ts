@@ -20,9 +20,9 @@ export default [
     route("library/:id", "routes/studio/library.$id.tsx"),
     route("exhibits", "routes/studio/exhibits.tsx"),
     route("exhibits/new", "routes/studio/exhibits.new.tsx"),
-    route("exhibits/:slug", "routes/studio/exhibit.tsx"),
-    route("exhibits/:slug/schedule.csv", "routes/studio/exhibit.schedule-csv.ts"),
-    route("exhibits/:slug/points.geojson", "routes/studio/exhibit.points-geojson.ts"),
+    route("exhibits/:slug", "routes/studio/exhibits.$slug.tsx"),
+    route("exhibits/:slug/schedule.csv", "routes/studio/exhibits.$slug.schedule-csv.ts"),
+    route("exhibits/:slug/points.geojson", "routes/studio/exhibits.$slug.points-geojson.ts"),
   ]),
   // Chart editions: readable by everyone (drafts only by editors and admins).
   layout("routes/editions.layout.tsx", [

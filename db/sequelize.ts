@@ -1,6 +1,6 @@
 // The one Sequelize instance of a process (kept across dev-server reloads).
 import { Sequelize } from "sequelize";
-import { env } from "../server/env.ts";
+import { env } from "../server/env.server.ts";
 
 const globalForDb = globalThis as unknown as { __eonscaleSequelize?: Sequelize };
 

@@ -9,9 +9,9 @@ import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import type { ServerBuild } from "react-router";
 import { sequelize } from "../db/sequelize.ts";
-import { CLIENT_IP_HEADER } from "./auth.ts";
-import { env } from "./env.ts";
-import { logger } from "./logger.ts";
+import { CLIENT_IP_HEADER } from "./auth.server.ts";
+import { env } from "./env.server.ts";
+import { logger } from "./logger.server.ts";
 
 declare module "react-router" {
   interface AppLoadContext {

@@ -3,10 +3,10 @@
 import type { Server } from "node:http";
 import { sequelize } from "../db/sequelize.ts";
 import { createApp } from "./app.ts";
-import { env, loadEnv } from "./env.ts";
-import { logger } from "./logger.ts";
-import { stopBoss } from "./queue.ts";
-import { startWorkers } from "./workers.ts";
+import { env, loadEnv } from "./env.server.ts";
+import { logger } from "./logger.server.ts";
+import { stopBoss } from "./queue.server.ts";
+import { startWorkers } from "./workers.server.ts";
 
 export async function startServer(opts: { dev?: boolean } = {}): Promise<Server> {
   try {

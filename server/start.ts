@@ -21,7 +21,7 @@ if (!process.argv.includes("--no-build")) {
 }
 
 const { startServer } = await import("./index.ts");
-const { env } = await import("./env.ts");
+const { env } = await import("./env.server.ts");
 await startServer();
 const url = `http://${env().HOST}:${env().PORT}`;
 console.log(`

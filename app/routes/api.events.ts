@@ -6,8 +6,8 @@
  * 200 { query, count, limit, results: DatedEventView[] }; signed out → 401; no organisation → 403.
  */
 import type { Route } from "./+types/api.events";
-import { requireMember } from "#server/auth.ts";
-import { SEARCH_LIMIT, searchEvents } from "#server/library.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { SEARCH_LIMIT, searchEvents } from "#server/dated-events.server.ts";
 
 const HEADERS = { "Content-Type": "application/json; charset=utf-8", "Cache-Control": "private, no-store", Vary: "Cookie" };
 

@@ -4,7 +4,7 @@
  */
 import type { Route } from "./+types/api.scale";
 import { computeScale, parseScaleRequest } from "~/lib/scale";
-import { BodyTooLargeError, readBodyBytes } from "#server/http.ts";
+import { BodyTooLargeError, readBodyBytes } from "#server/http.server.ts";
 
 /** Largest accepted request body: 5 MB. */
 export const MAX_BODY_BYTES = 5 * 1024 * 1024;

@@ -5,7 +5,7 @@
  * English names; ages in Ma; baseUncertaintyMa null where the chart gives none; gssp null where the
  * source does not say. Unknown slug or a draft → 404 { "error": { "message" } }. ETag / 304.
  */
-import { apiEditionBody, cachedJson, jsonError } from "#server/editions.ts";
+import { apiEditionBody, cachedJson, jsonError } from "#server/editions.server.ts";
 import type { Route } from "./+types/api.timescales.$slug";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

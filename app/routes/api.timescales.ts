@@ -3,7 +3,7 @@
  * { "editions": [{ "slug", "label", "status", "source", "licence" }, …] }, current first.
  * Cacheable: ETag, and 304 for a matching If-None-Match.
  */
-import { apiEditionMeta, cachedJson, listEditions } from "#server/editions.ts";
+import { apiEditionMeta, cachedJson, listEditions } from "#server/editions.server.ts";
 import type { Route } from "./+types/api.timescales";
 
 export async function loader({ request }: Route.LoaderArgs) {

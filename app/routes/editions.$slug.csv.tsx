@@ -1,5 +1,5 @@
 // GET /editions/:slug/intervals.csv — the edition in Eonscale interval CSV (reads back identically on import).
-import { exportResponse } from "#server/editions.ts";
+import { exportResponse } from "#server/editions.server.ts";
 import type { Route } from "./+types/editions.$slug.csv";
 
 export function loader({ request, params }: Route.LoaderArgs) {

@@ -3,8 +3,8 @@ import { Form, Link, useNavigation } from "react-router";
 import { CorrectionList, RankCounts, StatusBadge } from "~/components/chart/edition-bits";
 import { IntervalTable } from "~/components/chart/interval-table";
 import { TimescaleChart } from "~/components/chart/timescale-chart";
-import { notFound } from "#server/auth.ts";
-import { listEditions, loadEdition, viewerOf } from "#server/editions.ts";
+import { notFound } from "#server/auth.server.ts";
+import { listEditions, loadEdition, viewerOf } from "#server/editions.server.ts";
 import type { Route } from "./+types/editions.$slug";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: data ? `${data.edition.label} · Chart editions · Eonscale` : "Chart edition · Eonscale" }];

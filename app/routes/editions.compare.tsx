@@ -1,14 +1,14 @@
 // /editions/compare?from=…&to=… — what changed between two editions: moved boundaries (table and
 // chart), changed uncertainties, renamed, added and removed intervals, colours, GSSP flags.
 import { Form, Link } from "react-router";
-import { groupMoves, groupUncertainty } from "~/components/chart/compare-model";
+import { groupMoves, groupUncertainty } from "~/lib/chart/compare-model";
 import { StatusBadge } from "~/components/chart/edition-bits";
-import { RANK_LABELS, fmtGssp, fmtMa, fmtPercent, fmtShift } from "~/components/chart/format";
+import { RANK_LABELS, fmtGssp, fmtMa, fmtPercent, fmtShift } from "~/lib/chart/format";
 import { ShiftChart } from "~/components/chart/shift-chart";
 import { compare } from "~/lib/timescale";
-import { notFound } from "#server/auth.ts";
-import { listEditions, loadEdition, viewerOf } from "#server/editions.ts";
-import { exhibitsByBoundary } from "#server/exhibits.ts";
+import { notFound } from "#server/auth.server.ts";
+import { listEditions, loadEdition, viewerOf } from "#server/editions.server.ts";
+import { exhibitsByBoundary } from "#server/exhibits.server.ts";
 import type { Route } from "./+types/editions.compare";
 
 export const meta: Route.MetaFunction = ({ data }) => [

@@ -1,7 +1,7 @@
 // /editions — every published chart edition (and, for editors and admins, the drafts).
 import { Link } from "react-router";
 import { RankCounts, StatusBadge } from "~/components/chart/edition-bits";
-import { listEditions, viewerOf } from "#server/editions.ts";
+import { listEditions, viewerOf } from "#server/editions.server.ts";
 import type { Route } from "./+types/editions.index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Chart editions · Eonscale" }];

@@ -4,8 +4,8 @@ import { Link, Outlet, data } from "react-router";
 import { GeneralErrorBoundary } from "~/components/error-boundary";
 import { FormMessage } from "~/components/forms";
 import { SiteNav } from "~/components/site-nav";
-import { viewerOf } from "#server/editions.ts";
-import { readNotice } from "#server/session.ts";
+import { viewerOf } from "#server/editions.server.ts";
+import { readNotice } from "#server/session.server.ts";
 import type { Route } from "./+types/editions.layout";
 
 export async function loader({ request }: Route.LoaderArgs) {

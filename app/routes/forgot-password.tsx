@@ -4,7 +4,7 @@ import { Field, FormMessage } from "~/components/forms";
 import { Wordmark } from "~/components/site-header";
 import { parseForm } from "~/lib/validation";
 import { RESET_MINUTES } from "~/lib/account-links";
-import { requestPasswordReset } from "#server/accounts.ts";
+import { requestPasswordReset } from "#server/accounts.server.ts";
 import type { Route } from "./+types/forgot-password";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Eonscale" }];

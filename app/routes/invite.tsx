@@ -2,8 +2,8 @@ import { data, Form, Link, redirect } from "react-router";
 import { Field, FormMessage } from "~/components/forms";
 import { Wordmark } from "~/components/site-header";
 import { ROLE_LABELS, ROLE_SUMMARIES } from "~/lib/roles";
-import { AccountError, acceptInvitation, checkInvitation } from "#server/accounts.ts";
-import { startSession } from "#server/auth.ts";
+import { AccountError, acceptInvitation, checkInvitation } from "#server/accounts.server.ts";
+import { startSession } from "#server/auth.server.ts";
 import type { Route } from "./+types/invite";
 
 export const meta: Route.MetaFunction = () => [{ title: "Accept an invitation · Eonscale" }];

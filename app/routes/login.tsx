@@ -2,8 +2,8 @@ import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { safeRedirect } from "remix-utils/safe-redirect";
 import { Field, FormMessage } from "~/components/forms";
 import { Wordmark } from "~/components/site-header";
-import { authenticator, getUser, SignInError, startSession } from "#server/auth.ts";
-import { RateLimitedError } from "#server/rate-limit.ts";
+import { authenticator, getUser, SignInError, startSession } from "#server/auth.server.ts";
+import { RateLimitedError } from "#server/rate-limit.server.ts";
 import type { Route } from "./+types/login";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Eonscale" }];

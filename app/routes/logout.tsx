@@ -1,5 +1,5 @@
 import { redirect } from "react-router";
-import { getSession, sessionStorage } from "#server/session.ts";
+import { getSession, sessionStorage } from "#server/session.server.ts";
 import type { Route } from "./+types/logout";
 
 export async function loader() {

@@ -2,7 +2,7 @@ import { data, Form, Link, redirect } from "react-router";
 import { Field, FormMessage } from "~/components/forms";
 import { Wordmark } from "~/components/site-header";
 import { parseForm } from "~/lib/validation";
-import { AccountError, checkResetToken, resetPassword, ResetSchema } from "#server/accounts.ts";
+import { AccountError, checkResetToken, resetPassword, ResetSchema } from "#server/accounts.server.ts";
 import type { Route } from "./+types/reset-password";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Eonscale" }];

@@ -8,7 +8,7 @@ import {
   type NonAttribute,
 } from "sequelize";
 import { sequelize } from "../sequelize.ts";
-import { AGE_KINDS, VERIFICATIONS, type AgeKind, type Verification } from "../../app/lib/library.ts";
+import { AGE_KINDS, VERIFICATIONS, type AgeKind, type Verification } from "../../app/lib/dated-events.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
 

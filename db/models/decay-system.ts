@@ -1,11 +1,11 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "../sequelize.ts";
-import { VERIFICATIONS, type Verification } from "../../app/lib/library.ts";
+import { VERIFICATIONS, type Verification } from "../../app/lib/dated-events.ts";
 
 /**
  * A radioactive parent → daughter pair with its half-life ± and decay constant, for the "how we
  * know" panels. Shared reference data (seeded, read-only). Numbers are NUMERIC, read back as
- * decimal strings; use server/library.ts `toDecaySystemView()` for numbers.
+ * decimal strings; use server/dated-events.server.ts `toDecaySystemView()` for numbers.
  */
 export class DecaySystem extends Model<InferAttributes<DecaySystem>, InferCreationAttributes<DecaySystem>> {
   declare id: CreationOptional<number>;

@@ -14,7 +14,7 @@ import type { ChartEdition } from "./chart-edition.ts";
 /**
  * One interval (eon … age) of a chart edition. Ages are NUMERIC without a scale, so Postgres keeps
  * exactly the decimal the chart gives (251.902, 0.0117); pg hands them back as strings, which
- * `Number()` turns into the same double the import read. Use server/editions.ts `toInterval()`.
+ * `Number()` turns into the same double the import read. Use server/editions.server.ts `toInterval()`.
  */
 export class Interval extends Model<InferAttributes<Interval>, InferCreationAttributes<Interval>> {
   declare id: CreationOptional<number>;

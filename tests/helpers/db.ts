@@ -2,7 +2,7 @@
 import { randomBytes } from "node:crypto";
 import { Membership, Organisation, User } from "../../db/models/index.ts";
 import type { Role } from "../../app/lib/roles.ts";
-import { hashPassword, startSession } from "../../server/auth.ts";
+import { hashPassword, startSession } from "../../server/auth.server.ts";
 
 export const TEST_PASSWORD = "correct horse battery";
 

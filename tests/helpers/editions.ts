@@ -4,7 +4,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { ChartEdition } from "../../db/models/index.ts";
-import { makeCurrent } from "../../server/editions.ts";
+import { makeCurrent } from "../../server/editions.server.ts";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 

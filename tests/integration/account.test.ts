@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import * as account from "../../app/routes/studio/account.tsx";
 import * as logout from "../../app/routes/logout.tsx";
 import { Session } from "../../db/models/index.ts";
-import { verifyPassword } from "../../server/auth.ts";
+import { verifyPassword } from "../../server/auth.server.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, routeArgs, settle, TEST_PASSWORD } from "../helpers/db.ts";
 
 describe("account", () => {

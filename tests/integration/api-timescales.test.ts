@@ -10,7 +10,7 @@ import { RANKS, type Rank } from "../../app/lib/timescale/index.ts";
 import { loader as listLoader } from "../../app/routes/api.timescales.ts";
 import { loader as editionLoader } from "../../app/routes/api.timescales.$slug.ts";
 import { ChartEdition } from "../../db/models/index.ts";
-import { createDraftEdition, discardDraft, editionIntervals } from "../../server/editions.ts";
+import { createDraftEdition, discardDraft, editionIntervals } from "../../server/editions.server.ts";
 import { createMember, createOrganisation, routeArgs, unique } from "../helpers/db.ts";
 import { SEEDED_CURRENT, SEEDED_RETIRED, TEST_META } from "../helpers/editions.ts";
 

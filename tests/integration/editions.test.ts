@@ -13,7 +13,7 @@ import * as manageRoute from "../../app/routes/studio/editions.tsx";
 import { exportCsv } from "../../app/lib/timescale/index.ts";
 import { AuditEvent, ChartEdition, Interval, sequelize } from "../../db/models/index.ts";
 import * as seedModule from "../../db/seeders/reference/2026.12.01T01.00.00.ics-editions.ts";
-import { MAX_UPLOAD_BYTES, editionIntervals, makeCurrent } from "../../server/editions.ts";
+import { MAX_UPLOAD_BYTES, editionIntervals, makeCurrent } from "../../server/editions.server.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle, unique } from "../helpers/db.ts";
 import { SEEDED_CURRENT, SEEDED_RETIRED, TEST_META, fixture, multipartRequest, restoreSeededCurrent } from "../helpers/editions.ts";
 import type { Organisation, User } from "../../db/models/index.ts";

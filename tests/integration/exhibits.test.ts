@@ -2,11 +2,11 @@
 // validation that saves nothing, roles and organisations, optimistic locking, edition impact.
 import geodesic from "geographiclib-geodesic";
 import { beforeAll, describe, expect, it } from "vitest";
-import * as composer from "../../app/routes/studio/exhibit.tsx";
+import * as composer from "../../app/routes/studio/exhibits.$slug.tsx";
 import * as newExhibit from "../../app/routes/studio/exhibits.new.tsx";
 import * as list from "../../app/routes/studio/exhibits.tsx";
-import * as scheduleRoute from "../../app/routes/studio/exhibit.schedule-csv.ts";
-import * as pointsRoute from "../../app/routes/studio/exhibit.points-geojson.ts";
+import * as scheduleRoute from "../../app/routes/studio/exhibits.$slug.schedule-csv.ts";
+import * as pointsRoute from "../../app/routes/studio/exhibits.$slug.points-geojson.ts";
 import * as compareRoute from "../../app/routes/editions.compare.tsx";
 import { AuditEvent, DatedEvent, DecaySystem, Exhibit, Marker, Membership, Organisation, User } from "../../db/models/index.ts";
 import { SCHEDULE_HEADER } from "../../app/lib/exhibit/exports.ts";

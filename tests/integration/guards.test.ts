@@ -15,7 +15,7 @@ const ROLE_ONLY: Record<string, { loader?: string[]; action?: string[] }> = {
   "editions.tsx": { loader: ["editor", "admin"], action: ["editor", "admin"] },
   "editions.import.tsx": { loader: ["editor", "admin"], action: ["editor", "admin"] },
   "exhibits.new.tsx": { loader: ["designer"], action: ["designer"] },
-  "exhibit.tsx": { action: ["designer"] },
+  "exhibits.$slug.tsx": { action: ["designer"] },
   "library.tsx": { action: ["editor", "admin"] },
   "library.new.tsx": { loader: ["editor", "admin"], action: ["editor", "admin"] },
   "library.$id.tsx": { action: ["editor", "admin"] },

@@ -9,9 +9,9 @@ import * as entryPage from "../../app/routes/studio/library.$id.tsx";
 import * as decayPage from "../../app/routes/studio/library.decay.tsx";
 import * as api from "../../app/routes/api.events.ts";
 import { AuditEvent, DatedEvent, DecaySystem, type Organisation } from "../../db/models/index.ts";
-import { SEED_DATED_EVENTS } from "../../db/data/library/dated-events.ts";
-import { SEED_DECAY_SYSTEMS } from "../../db/data/library/decay-systems.ts";
-import type { DatedEventView } from "../../app/lib/library.ts";
+import { SEED_DATED_EVENTS } from "../../db/data/dated-events/dated-events.ts";
+import { SEED_DECAY_SYSTEMS } from "../../db/data/dated-events/decay-systems.ts";
+import type { DatedEventView } from "../../app/lib/dated-events.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle, unique } from "../helpers/db.ts";
 
 const GOOD = {

@@ -4,8 +4,8 @@ import { afterAll, describe, expect, it } from "vitest";
 import { OutboxMessage, sequelize } from "../../db/models/index.ts";
 import { clearInbox, waitForMessage } from "../../fakes/inbox.ts";
 import { startServices, stopServices } from "../../fakes/services.ts";
-import { MAIL_QUEUE, queueEmail, startMailWorker } from "../../server/mail.ts";
-import { getBoss } from "../../server/queue.ts";
+import { MAIL_QUEUE, queueEmail, startMailWorker } from "../../server/mail.server.ts";
+import { getBoss } from "../../server/queue.server.ts";
 import { unique } from "../helpers/db.ts";
 
 async function jobsFor(outboxId: number) {

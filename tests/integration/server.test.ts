@@ -4,7 +4,7 @@ import { once } from "node:events";
 import type { AddressInfo } from "node:net";
 import { describe, expect, it } from "vitest";
 import { createApp, healthCheck } from "../../server/app.ts";
-import { loadEnv } from "../../server/env.ts";
+import { loadEnv } from "../../server/env.server.ts";
 import { createSequelize } from "../../db/sequelize.ts";
 import { migrator } from "../../db/migrator.ts";
 import { dropDatabase, ensureDatabase } from "../../fakes/services.ts";

@@ -3,9 +3,9 @@
 import { describe, expect, it } from "vitest";
 import * as login from "../../app/routes/login.tsx";
 import { Session } from "../../db/models/index.ts";
-import { SIGN_IN_FAILED } from "../../server/auth.ts";
-import { sessionCookie } from "../../server/session.ts";
-import { SIGN_IN_LIMITS } from "../../server/rate-limit.ts";
+import { SIGN_IN_FAILED } from "../../server/auth.server.ts";
+import { sessionCookie } from "../../server/session.server.ts";
+import { SIGN_IN_LIMITS } from "../../server/rate-limit.server.ts";
 import { sequelize } from "../../db/sequelize.ts";
 import { createMember, createOrganisation, formRequest, routeArgs, settle, TEST_PASSWORD, unique } from "../helpers/db.ts";
 

@@ -5,9 +5,9 @@ import * as invite from "../../app/routes/invite.tsx";
 import * as resetRoute from "../../app/routes/reset-password.tsx";
 import * as forgot from "../../app/routes/forgot-password.tsx";
 import { Invitation, Membership, OutboxMessage, PasswordReset, Session, User } from "../../db/models/index.ts";
-import { inviteMember, requestPasswordReset } from "../../server/accounts.ts";
-import { verifyPassword } from "../../server/auth.ts";
-import { hashToken, newToken } from "../../server/tokens.ts";
+import { inviteMember, requestPasswordReset } from "../../server/accounts.server.ts";
+import { verifyPassword } from "../../server/auth.server.ts";
+import { hashToken, newToken } from "../../server/tokens.server.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle, TEST_PASSWORD, unique } from "../helpers/db.ts";
 
 function tokenFromOutbox(text: string, path: string) {

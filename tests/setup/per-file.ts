@@ -6,7 +6,7 @@ applyTestEnv();
 if (!process.env.DATABASE_URL?.endsWith(`/${TEST_DATABASE}`)) throw new Error("Integration tests must run against the test database");
 
 afterAll(async () => {
-  const { stopBoss } = await import("../../server/queue.ts");
+  const { stopBoss } = await import("../../server/queue.server.ts");
   const { sequelize } = await import("../../db/sequelize.ts");
   await stopBoss();
   await sequelize.close();

@@ -1,6 +1,6 @@
 // Small pieces shared by the edition pages: status badge, rank counts, corrections, problems.
 import { RANKS, type Correction, type EditionStatus, type Problem, type Rank } from "~/lib/timescale";
-import { RANK_LABELS } from "./format";
+import { RANK_LABELS } from "~/lib/chart/format";
 
 const STATUS_STYLE: Record<EditionStatus, string> = {
   current: "border-ok bg-green-50 text-ok",

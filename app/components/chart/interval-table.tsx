@@ -1,7 +1,7 @@
 // The intervals of an edition as a table: filter by name, rank and GSSP; sort by any column.
 import { useId, useMemo, useState } from "react";
 import { RANKS, rankDepth, type Interval, type Rank } from "~/lib/timescale";
-import { RANK_LABELS, fmtGssp, fmtMa } from "./format";
+import { RANK_LABELS, fmtGssp, fmtMa } from "~/lib/chart/format";
 
 type SortKey = "order" | "name" | "rank" | "base" | "top" | "uncertainty" | "gssp";
 type GsspFilter = "all" | "yes" | "no" | "unknown";

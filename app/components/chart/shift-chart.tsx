@@ -4,9 +4,9 @@
 import { AxisBottom } from "@visx/axis";
 import { Group } from "@visx/group";
 import { scaleLinear } from "d3-scale";
-import { INK } from "./colour";
-import type { MovedBoundary } from "./compare-model";
-import { fmtMa, fmtShift } from "./format";
+import { INK } from "~/lib/chart/colour";
+import type { MovedBoundary } from "~/lib/chart/compare-model";
+import { fmtMa, fmtShift } from "~/lib/chart/format";
 
 const ROW = 24;
 const LABEL = 250;

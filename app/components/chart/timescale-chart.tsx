@@ -10,8 +10,8 @@ import { scaleLinear } from "d3-scale";
 import { useId, useMemo, useState } from "react";
 import { RANKS, rankDepth, type Interval, type Rank } from "~/lib/timescale";
 import { round9 } from "~/lib/timescale/numbers";
-import { INK, textOn } from "./colour";
-import { RANK_LABELS, fmtBase, fmtMa } from "./format";
+import { INK, textOn } from "~/lib/chart/colour";
+import { RANK_LABELS, fmtBase, fmtMa } from "~/lib/chart/format";
 
 const COLUMN_WIDTH: Record<Rank, number> = { eon: 96, era: 122, period: 116, subperiod: 120, epoch: 136, age: 140 };
 const HEADER = 30;

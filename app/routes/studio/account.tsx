@@ -2,9 +2,9 @@ import { data, Form, redirect } from "react-router";
 import { Field, FormMessage } from "~/components/forms";
 import { ROLE_LABELS } from "~/lib/roles";
 import { parseForm } from "~/lib/validation";
-import { AccountError, changePassword, ChangePasswordSchema } from "#server/accounts.ts";
-import { requireMember } from "#server/auth.ts";
-import { noticeHeader } from "#server/session.ts";
+import { AccountError, changePassword, ChangePasswordSchema } from "#server/accounts.server.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/account";
 
 export const meta: Route.MetaFunction = () => [{ title: "Account · Eonscale" }];

@@ -10,7 +10,7 @@ import { TimescaleChart } from "~/components/chart/timescale-chart";
 import { Field, FormMessage } from "~/components/forms";
 import { CSV_COLUMNS } from "~/lib/timescale";
 import { parseForm } from "~/lib/validation";
-import { requireMember } from "#server/auth.ts";
+import { requireMember } from "#server/auth.server.ts";
 import {
   ConfirmSchema,
   EDITION_MANAGERS,
@@ -25,8 +25,8 @@ import {
   previewImport,
   readLimitedFormData,
   type ImportPreview,
-} from "#server/editions.ts";
-import { noticeHeader } from "#server/session.ts";
+} from "#server/editions.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/editions.import";
 
 export const meta: Route.MetaFunction = () => [{ title: "Import a chart edition · Eonscale" }];

@@ -6,9 +6,9 @@ import { z } from "zod";
 import { StatusBadge } from "~/components/chart/edition-bits";
 import { FormMessage } from "~/components/forms";
 import { parseForm } from "~/lib/validation";
-import { requireMember } from "#server/auth.ts";
-import { EDITION_MANAGERS, EditionError, discardDraft, listEditions, makeCurrent, retireEdition } from "#server/editions.ts";
-import { noticeHeader } from "#server/session.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { EDITION_MANAGERS, EditionError, discardDraft, listEditions, makeCurrent, retireEdition } from "#server/editions.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/editions";
 
 export const meta: Route.MetaFunction = () => [{ title: "Manage chart editions · Eonscale" }];

@@ -6,10 +6,10 @@ import { MEDIUM_TYPES } from "~/lib/scale/legibility";
 import { AGE_UNITS, LENGTH_UNITS } from "~/lib/units";
 import { parseForm } from "~/lib/validation";
 import { ChartEdition } from "#db/models/index.ts";
-import { requireMember } from "#server/auth.ts";
-import { currentEdition, editionIntervals } from "#server/editions.ts";
-import { createExhibit, ExhibitError, readExhibitForm, type MediumInput } from "#server/exhibits.ts";
-import { noticeHeader } from "#server/session.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { currentEdition, editionIntervals } from "#server/editions.server.ts";
+import { createExhibit, ExhibitError, readExhibitForm, type MediumInput } from "#server/exhibits.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import { Op } from "sequelize";
 import type { Route } from "./+types/exhibits.new";
 

@@ -2,7 +2,7 @@ import { Form, Link, useSearchParams } from "react-router";
 import { formatLength } from "~/lib/exhibit";
 import { toMetres } from "~/lib/units";
 import { ChartEdition, Exhibit, ExhibitMedium, Marker, User } from "#db/models/index.ts";
-import { requireMember } from "#server/auth.ts";
+import { requireMember } from "#server/auth.server.ts";
 import { sequelize } from "#db/sequelize.ts";
 import type { Route } from "./+types/exhibits";
 

@@ -1,6 +1,6 @@
 import { Link } from "react-router";
 import { ROLE_LABELS, ROLE_SUMMARIES, type Role } from "~/lib/roles";
-import { requireMember } from "#server/auth.ts";
+import { requireMember } from "#server/auth.server.ts";
 import { ChartEdition, Exhibit, Invitation, Membership } from "#db/models/index.ts";
 import { Op } from "sequelize";
 import type { Route } from "./+types/home";

@@ -3,8 +3,8 @@ import { GeneralErrorBoundary } from "~/components/error-boundary";
 import { FormMessage } from "~/components/forms";
 import { SiteNav } from "~/components/site-nav";
 import { ROLE_LABELS } from "~/lib/roles";
-import { requireMember } from "#server/auth.ts";
-import { readNotice } from "#server/session.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { readNotice } from "#server/session.server.ts";
 import type { Route } from "./+types/layout";
 
 export async function loader({ request }: Route.LoaderArgs) {

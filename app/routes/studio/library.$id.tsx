@@ -3,14 +3,14 @@
 // entries. Shared entries are read-only (403 on any change); another organisation's entry is 404.
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { FormMessage } from "~/components/forms";
-import { EventForm, formValues, ScopeBadge, VerificationNote, type EventFormValues } from "~/components/library/event-form";
+import { EventForm, formValues, ScopeBadge, VerificationNote, type EventFormValues } from "~/components/dated-events/event-form";
 import { decaySystemsForMethod, howWeKnow } from "~/lib/decay";
-import { AGE_KIND_HINTS, AGE_KIND_LABELS, DatedEventFormSchema, displayUnit, fromMa } from "~/lib/library";
+import { AGE_KIND_HINTS, AGE_KIND_LABELS, DatedEventFormSchema, displayUnit, fromMa } from "~/lib/dated-events";
 import { parseForm } from "~/lib/validation";
 import { User } from "#db/models/index.ts";
-import { notFound, requireMember } from "#server/auth.ts";
-import { canManageLibrary, deleteEvent, findVisibleEvent, LIBRARY_MANAGERS, LibraryError, listDecaySystems, SHARED_READ_ONLY, toEventView, updateEvent } from "#server/library.ts";
-import { noticeHeader } from "#server/session.ts";
+import { notFound, requireMember } from "#server/auth.server.ts";
+import { canManageLibrary, deleteEvent, findVisibleEvent, LIBRARY_MANAGERS, LibraryError, listDecaySystems, SHARED_READ_ONLY, toEventView, updateEvent } from "#server/dated-events.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/library.$id";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.event.name ?? "Entry"} · Event library · Eonscale` }];

@@ -3,11 +3,11 @@
 // calculator runs the pure decay code in the browser.
 import { useMemo, useState } from "react";
 import { Link } from "react-router";
-import { VerificationNote } from "~/components/library/event-form";
+import { VerificationNote } from "~/components/dated-events/event-form";
 import { formatScientific, howWeKnow } from "~/lib/decay";
-import { AGE_INPUT_UNITS, DECIMAL_PATTERN, formatYears, toMa, type AgeInputUnit } from "~/lib/library";
-import { requireMember } from "#server/auth.ts";
-import { listDecaySystems } from "#server/library.ts";
+import { AGE_INPUT_UNITS, DECIMAL_PATTERN, formatYears, toMa, type AgeInputUnit } from "~/lib/dated-events";
+import { requireMember } from "#server/auth.server.ts";
+import { listDecaySystems } from "#server/dated-events.server.ts";
 import type { Route } from "./+types/library.decay";
 
 export const meta: Route.MetaFunction = () => [{ title: "Decay systems · Event library · Eonscale" }];

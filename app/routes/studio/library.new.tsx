@@ -2,12 +2,12 @@
 // ?from=<id> starts from a copy of a visible entry (e.g. a shared one whose figure they want to
 // state differently).
 import { data, Link, redirect, useNavigation } from "react-router";
-import { EMPTY_EVENT_FORM, EventForm, formValues, type EventFormValues } from "~/components/library/event-form";
-import { DatedEventFormSchema, displayUnit, fromMa } from "~/lib/library";
+import { EMPTY_EVENT_FORM, EventForm, formValues, type EventFormValues } from "~/components/dated-events/event-form";
+import { DatedEventFormSchema, displayUnit, fromMa } from "~/lib/dated-events";
 import { parseForm } from "~/lib/validation";
-import { requireMember } from "#server/auth.ts";
-import { createEvent, findVisibleEvent, LIBRARY_MANAGERS, LibraryError } from "#server/library.ts";
-import { noticeHeader } from "#server/session.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { createEvent, findVisibleEvent, LIBRARY_MANAGERS, LibraryError } from "#server/dated-events.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/library.new";
 
 export const meta: Route.MetaFunction = () => [{ title: "Add an event · Event library · Eonscale" }];

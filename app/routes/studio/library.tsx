@@ -2,10 +2,10 @@
 // organisation's own. Everyone reads; editors and admins add, edit and delete their own entries.
 import { useEffect, useRef } from "react";
 import { Form, Link, useSubmit } from "react-router";
-import { ScopeBadge, VerificationNote } from "~/components/library/event-form";
-import { AGE_KIND_LABELS } from "~/lib/library";
-import { requireMember } from "#server/auth.ts";
-import { canManageLibrary, LIBRARY_SCOPES, listEvents, type LibraryScope } from "#server/library.ts";
+import { ScopeBadge, VerificationNote } from "~/components/dated-events/event-form";
+import { AGE_KIND_LABELS } from "~/lib/dated-events";
+import { requireMember } from "#server/auth.server.ts";
+import { canManageLibrary, LIBRARY_SCOPES, listEvents, type LibraryScope } from "#server/dated-events.server.ts";
 import type { Route } from "./+types/library";
 
 export const meta: Route.MetaFunction = () => [{ title: "Event library · Eonscale" }];

@@ -1,8 +1,8 @@
 import { data, redirect } from "react-router";
 import { z } from "zod";
 import { parseForm } from "~/lib/validation";
-import { requireMember } from "#server/auth.ts";
-import { getSession, noticeHeader, sessionStorage } from "#server/session.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { getSession, noticeHeader, sessionStorage } from "#server/session.server.ts";
 import type { Route } from "./+types/switch-organisation";
 
 const Schema = z.object({ organisationId: z.coerce.number({ error: "Choose an organisation." }).int().positive({ error: "Choose an organisation." }) });

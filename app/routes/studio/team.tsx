@@ -4,9 +4,9 @@ import { Field, FormMessage } from "~/components/forms";
 import { ROLE_LABELS, ROLES } from "~/lib/roles";
 import { parseForm } from "~/lib/validation";
 import { Membership, User } from "#db/models/index.ts";
-import { AccountError, changeRole, inviteMember, InviteSchema, pendingInvitations, removeMember, revokeInvitation } from "#server/accounts.ts";
-import { requireMember } from "#server/auth.ts";
-import { noticeHeader } from "#server/session.ts";
+import { AccountError, changeRole, inviteMember, InviteSchema, pendingInvitations, removeMember, revokeInvitation } from "#server/accounts.server.ts";
+import { requireMember } from "#server/auth.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/team";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Eonscale" }];

@@ -1,10 +1,10 @@
-// Reference data: the shared dated-event library (db/data/library/dated-events.ts; sources and
+// Reference data: the shared dated-event library (db/data/dated-events/dated-events.ts; sources and
 // verification levels in its README). Shared entries have organisation_id NULL.
 //
 // Idempotent: entries are matched by slug among the shared entries and updated in place, so ids
 // (which exhibit markers point at) survive a re-seed.
-import { SEED_DATED_EVENTS } from "../../data/library/dated-events.ts";
-import { DatedEventFormSchema, fromMa } from "../../../app/lib/library.ts";
+import { SEED_DATED_EVENTS } from "../../data/dated-events/dated-events.ts";
+import { DatedEventFormSchema, fromMa } from "../../../app/lib/dated-events.ts";
 import type { Migration } from "../../migrator.ts";
 
 /** Every seeded entry passes the same validation as the studio form (a typo fails the seed). */

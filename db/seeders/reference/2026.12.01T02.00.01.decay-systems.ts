@@ -1,6 +1,6 @@
 // Reference data: decay systems with published half-lives and decay constants
-// (db/data/library/decay-systems.ts; sources in its README). Idempotent: matched by slug.
-import { SEED_DECAY_SYSTEMS } from "../../data/library/decay-systems.ts";
+// (db/data/dated-events/decay-systems.ts; sources in its README). Idempotent: matched by slug.
+import { SEED_DECAY_SYSTEMS } from "../../data/dated-events/decay-systems.ts";
 import type { Migration } from "../../migrator.ts";
 
 /** λ and t½ must agree (λ·t½ = ln 2 to the digits given) — a typo in either fails the seed. */

@@ -1,8 +1,8 @@
 // The "how we know" helper for marker pages, with the seeded decay systems.
 import { describe, expect, it } from "vitest";
 import { decaySystemsForMethod, formatPercent, formatScientific, howWeKnow } from "../../../app/lib/decay";
-import { SEED_DECAY_SYSTEMS } from "../../../db/data/library/decay-systems.ts";
-import { SEED_DATED_EVENTS } from "../../../db/data/library/dated-events.ts";
+import { SEED_DECAY_SYSTEMS } from "../../../db/data/dated-events/decay-systems.ts";
+import { SEED_DATED_EVENTS } from "../../../db/data/dated-events/dated-events.ts";
 
 function system(slug: string) {
   const s = SEED_DECAY_SYSTEMS.find((d) => d.slug === slug)!;

@@ -4,7 +4,7 @@
 // Half-lives and decay constants are exact decimal strings (Postgres NUMERIC). Where the source (or
 // the IUGS convention) fixes the decay constant, `decayConstantStated` is true and the half-life
 // shown is ln 2 / λ (worked out with `bc -l`, rounded to the digits of λ); otherwise λ = ln 2 / t½.
-import type { Verification } from "../../../app/lib/library.ts";
+import type { Verification } from "../../../app/lib/dated-events.ts";
 
 export interface SeedDecaySystem {
   slug: string;

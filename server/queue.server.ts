@@ -2,8 +2,8 @@
 // shares it; any server with RUN_WORKERS=true takes jobs.
 import PgBoss from "pg-boss";
 import type { Transaction } from "sequelize";
-import { env } from "./env.ts";
-import { logger } from "./logger.ts";
+import { env } from "./env.server.ts";
+import { logger } from "./logger.server.ts";
 
 const globalForBoss = globalThis as unknown as { __eonscaleBoss?: Promise<PgBoss> };
 

@@ -26,8 +26,8 @@ import type { PreparedRoute } from "~/lib/geo/route";
 import { RANKS, type Rank } from "~/lib/timescale/types";
 import { AGE_UNITS, LENGTH_UNITS, toYears, type AgeUnit, type LengthUnit } from "~/lib/units";
 import { parseForm } from "~/lib/validation";
-import { renderMarkdown } from "#server/markdown.ts";
-import { requireMember } from "#server/auth.ts";
+import { renderMarkdown } from "#server/markdown.server.ts";
+import { requireMember } from "#server/auth.server.ts";
 import {
   addBoundaries,
   addCustom,
@@ -45,10 +45,10 @@ import {
   requireBundle,
   updateSettings,
   type Actor,
-} from "#server/exhibits.ts";
-import { noticeHeader } from "#server/session.ts";
+} from "#server/exhibits.server.ts";
+import { noticeHeader } from "#server/session.server.ts";
 import { z } from "zod";
-import type { Route } from "./+types/exhibit";
+import type { Route } from "./+types/exhibits.$slug";
 
 export const meta: Route.MetaFunction = ({ loaderData }) => [{ title: `${loaderData?.exhibit.title ?? "Exhibit"} · Eonscale` }];
 

@@ -22,10 +22,10 @@ import {
   type Problem,
   type Rank,
 } from "../app/lib/timescale/index.ts";
-import { audit } from "./audit.ts";
-import { env } from "./env.ts";
-import { getSession } from "./session.ts";
-import { BodyTooLargeError, megabytes, readLimitedFormData as readFormDataWithin } from "./http.ts";
+import { audit } from "./audit.server.ts";
+import { env } from "./env.server.ts";
+import { getSession } from "./session.server.ts";
+import { BodyTooLargeError, megabytes, readLimitedFormData as readFormDataWithin } from "./http.server.ts";
 import type { Transaction } from "sequelize";
 
 /** Roles that manage chart editions (import, make current, retire). */

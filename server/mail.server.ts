@@ -5,9 +5,9 @@ import nodemailer, { type Transporter } from "nodemailer";
 import type PgBoss from "pg-boss";
 import type { Transaction } from "sequelize";
 import { OutboxMessage } from "../db/models/index.ts";
-import { env } from "./env.ts";
-import { logger } from "./logger.ts";
-import { getBoss, inTransaction } from "./queue.ts";
+import { env } from "./env.server.ts";
+import { logger } from "./logger.server.ts";
+import { getBoss, inTransaction } from "./queue.server.ts";
 
 export const MAIL_QUEUE = "mail-deliver";
 

@@ -5,12 +5,12 @@ import { z } from "zod";
 import { Invitation, Membership, Organisation, PasswordReset, sequelize, User } from "../db/models/index.ts";
 import { INVITATION_DAYS, RESET_MINUTES } from "../app/lib/account-links.ts";
 import { ROLE_LABELS, ROLES, type Role } from "../app/lib/roles.ts";
-import { audit } from "./audit.ts";
-import { hashPassword, NewPasswordSchema, notFound, verifyPassword } from "./auth.ts";
-import { env } from "./env.ts";
-import { queueEmail } from "./mail.ts";
-import { endUserSessions } from "./session.ts";
-import { hashToken, newToken } from "./tokens.ts";
+import { audit } from "./audit.server.ts";
+import { hashPassword, NewPasswordSchema, notFound, verifyPassword } from "./auth.server.ts";
+import { env } from "./env.server.ts";
+import { queueEmail } from "./mail.server.ts";
+import { endUserSessions } from "./session.server.ts";
+import { hashToken, newToken } from "./tokens.server.ts";
 
 export { INVITATION_DAYS, RESET_MINUTES };
 

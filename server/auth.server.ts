@@ -6,8 +6,8 @@ import { FormStrategy } from "remix-auth-form";
 import { z } from "zod";
 import { Membership, Organisation, User } from "../db/models/index.ts";
 import type { Role } from "../app/lib/roles.ts";
-import { assertSignInAllowed, clearFailedSignIns, recordFailedSignIn } from "./rate-limit.ts";
-import { getSession, sessionStorage } from "./session.ts";
+import { assertSignInAllowed, clearFailedSignIns, recordFailedSignIn } from "./rate-limit.server.ts";
+import { getSession, sessionStorage } from "./session.server.ts";
 
 export const CLIENT_IP_HEADER = "x-eonscale-client-ip";
 export const BCRYPT_COST = 10;

@@ -11,7 +11,7 @@ import {
   VERIFICATIONS,
   type AgeKind,
   type Verification,
-} from "~/lib/library";
+} from "~/lib/dated-events";
 
 /** The form's text values (what the inputs show). */
 export interface EventFormValues {

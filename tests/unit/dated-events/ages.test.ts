@@ -1,7 +1,7 @@
 // Exact decimal ages, their display and the dated-event form schema (pure).
 import { describe, expect, it } from "vitest";
-import { DatedEventFormSchema, formatAge, formatYears, fromMa, normaliseDoi, shiftDecimal, slugify, toMa } from "../../../app/lib/library";
-import { SEED_DATED_EVENTS } from "../../../db/data/library/dated-events.ts";
+import { DatedEventFormSchema, formatAge, formatYears, fromMa, normaliseDoi, shiftDecimal, slugify, toMa } from "../../../app/lib/dated-events";
+import { SEED_DATED_EVENTS } from "../../../db/data/dated-events/dated-events.ts";
 
 describe("exact decimals", () => {
   it("moves the decimal point without floating-point noise", () => {

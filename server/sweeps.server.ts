@@ -4,7 +4,7 @@
 import type PgBoss from "pg-boss";
 import { Op } from "sequelize";
 import { PasswordReset, Session, sequelize } from "../db/models/index.ts";
-import { logger } from "./logger.ts";
+import { logger } from "./logger.server.ts";
 
 export const SWEEP_QUEUE = "housekeeping-sweep";
 

@@ -1,7 +1,7 @@
 // Background workers started by each app server (RUN_WORKERS=true): they share one pg-boss queue.
-import { startMailWorker } from "./mail.ts";
-import { getBoss } from "./queue.ts";
-import { startSweeps } from "./sweeps.ts";
+import { startMailWorker } from "./mail.server.ts";
+import { getBoss } from "./queue.server.ts";
+import { startSweeps } from "./sweeps.server.ts";
 
 export async function startWorkers() {
   const boss = await getBoss();

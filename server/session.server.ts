@@ -4,7 +4,7 @@ import { randomBytes } from "node:crypto";
 import { createCookie, createCookieSessionStorage, createSessionStorage } from "react-router";
 import { Op, type Transaction } from "sequelize";
 import { Session } from "../db/models/index.ts";
-import { env } from "./env.ts";
+import { env } from "./env.server.ts";
 
 const SESSION_DAYS = 14;
 

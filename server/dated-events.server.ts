@@ -2,13 +2,13 @@
 // entries plus the organisation's own), creating, editing and deleting an organisation's entries
 // (each in one transaction with its audit event), and the read-only decay-system table.
 //
-// Shared entries (organisation_id NULL) are reference data from db/data/library: read-only here.
+// Shared entries (organisation_id NULL) are reference data from db/data/dated-events: read-only here.
 import { ForeignKeyConstraintError, Op, UniqueConstraintError, type WhereOptions } from "sequelize";
 import { DatedEvent, DecaySystem, sequelize } from "../db/models/index.ts";
-import { formatAge, type DatedEventInput, type DatedEventView, type Verification } from "../app/lib/library.ts";
+import { formatAge, type DatedEventInput, type DatedEventView, type Verification } from "../app/lib/dated-events.ts";
 import type { Role } from "../app/lib/roles.ts";
-import { audit } from "./audit.ts";
-import type { SeedDecaySystem } from "../db/data/library/decay-systems.ts";
+import { audit } from "./audit.server.ts";
+import type { SeedDecaySystem } from "../db/data/dated-events/decay-systems.ts";
 
 /** Roles that manage their organisation's library entries. Everyone else reads. */
 export const LIBRARY_MANAGERS = ["editor", "admin"] as const satisfies readonly Role[];

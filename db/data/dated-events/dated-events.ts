@@ -3,7 +3,7 @@
 // db/seeders/reference/2026.12.01T02.00.00.dated-events.ts; see README.md in this folder for the
 // verification levels and the conventions (ages in Ma as exact decimal strings; "±" as the source
 // reports it, usually 2σ).
-import type { AgeKind, Verification } from "../../../app/lib/library.ts";
+import type { AgeKind, Verification } from "../../../app/lib/dated-events.ts";
 
 export interface SeedDatedEvent {
   slug: string;

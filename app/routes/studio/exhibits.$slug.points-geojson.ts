@@ -1,9 +1,9 @@
 // GET /studio/exhibits/:slug/points.geojson — marker points of a route exhibit for GIS and setting out.
 import { data } from "react-router";
 import { markerPointsGeoJson } from "~/lib/exhibit";
-import { requireMember } from "#server/auth.ts";
-import { requireBundle, resultOf } from "#server/exhibits.ts";
-import type { Route } from "./+types/exhibit.points-geojson";
+import { requireMember } from "#server/auth.server.ts";
+import { requireBundle, resultOf } from "#server/exhibits.server.ts";
+import type { Route } from "./+types/exhibits.$slug.points-geojson";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request);

@@ -23,10 +23,10 @@ import type { MediumType } from "../app/lib/scale/legibility.ts";
 import type { Interval as DomainInterval, Rank } from "../app/lib/timescale/types.ts";
 import { ChartEdition, DecaySystem, Exhibit, ExhibitMedium, Inset, Marker, sequelize, User } from "../db/models/index.ts";
 import { howWeKnow } from "../app/lib/decay/index.ts";
-import { audit } from "./audit.ts";
-import { BodyTooLargeError, megabytes, readLimitedFormData } from "./http.ts";
-import { currentEdition, editionIntervalRows, editionIntervals } from "./editions.ts";
-import { eventsByIds, type LibraryEvent } from "./library.ts";
+import { audit } from "./audit.server.ts";
+import { BodyTooLargeError, megabytes, readLimitedFormData } from "./http.server.ts";
+import { currentEdition, editionIntervalRows, editionIntervals } from "./editions.server.ts";
+import { eventsByIds, type LibraryEvent } from "./dated-events.server.ts";
 
 export class ExhibitError extends Error {
   constructor(message: string, public field = "_form", public status = 400) {

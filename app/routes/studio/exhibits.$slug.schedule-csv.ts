@@ -1,8 +1,8 @@
 // GET /studio/exhibits/:slug/schedule.csv — the marker schedule for fabrication and installation.
 import { scheduleCsv, scheduleRows } from "~/lib/exhibit";
-import { requireMember } from "#server/auth.ts";
-import { requireBundle, resultOf } from "#server/exhibits.ts";
-import type { Route } from "./+types/exhibit.schedule-csv";
+import { requireMember } from "#server/auth.server.ts";
+import { requireBundle, resultOf } from "#server/exhibits.server.ts";
+import type { Route } from "./+types/exhibits.$slug.schedule-csv";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request);
