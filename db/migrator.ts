@@ -1,10 +1,10 @@
 // umzug runners: one for schema migrations (table migration_meta), one each for the reference-data
-// and demo seeders (table seeder_meta, names prefixed by their folder).
+// and demo seeders (table seeder_meta, names prefixed by their folder). The caller passes the
+// Sequelize instance; migrations and seeders get it in their context.
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { QueryInterface, Sequelize } from "sequelize";
 import { SequelizeStorage, Umzug } from "umzug";
-import { sequelize as defaultSequelize } from "./sequelize.ts";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 
@@ -29,19 +29,24 @@ function runner(folder: string, modelName: string, db: Sequelize, quiet: boolean
   });
 }
 
-export function migrator(db: Sequelize = defaultSequelize, quiet = false) {
+export function migrator(db: Sequelize, quiet = false) {
   return runner("migrations", "migration_meta", db, quiet);
 }
 
-export function seeder(kind: "reference" | "demo", db: Sequelize = defaultSequelize, quiet = false) {
+export function seeder(kind: "reference" | "demo", db: Sequelize, quiet = false) {
   return runner(path.join("seeders", kind), "seeder_meta", db, quiet);
 }
 
-export async function migrateAndSeed(opts: { demo: boolean; db?: Sequelize; quiet?: boolean }) {
-  const db = opts.db ?? defaultSequelize;
+export async function migrateAndSeed(opts: { demo: boolean; db: Sequelize; quiet?: boolean }) {
+  const { db } = opts;
   await migrator(db, opts.quiet).up();
   await seeder("reference", db, opts.quiet).up();
   if (opts.demo) await seeder("demo", db, opts.quiet).up();
 }
 
 export type Migration = (ctx: MigrationContext) => Promise<void>;
+
+/** Migrations in db/migrations that the database has not run yet (empty when up to date). */
+export async function pendingMigrations(db: Sequelize): Promise<string[]> {
+  return (await migrator(db, true).pending()).map((m) => m.name);
+}

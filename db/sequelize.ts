@@ -1,16 +1,17 @@
-// The one Sequelize instance of a process (kept across dev-server reloads).
+// Makes a Sequelize instance for a Postgres URL. db/ never reads the environment: whoever runs
+// the code (the server from its validated env, the migration CLI, tests) passes the URL in.
 import { Sequelize } from "sequelize";
-import { env } from "../server/env.server.ts";
 
-const globalForDb = globalThis as unknown as { __eonscaleSequelize?: Sequelize };
+export interface SequelizeOptions {
+  /** Most connections the pool opens (default 10). */
+  poolMax?: number;
+}
 
-export function createSequelize(url = env().DATABASE_URL) {
+export function createSequelize(url: string, options: SequelizeOptions = {}) {
   return new Sequelize(url, {
     dialect: "postgres",
     logging: false,
-    pool: { max: env().DATABASE_POOL_MAX, min: 0, idle: 10_000, acquire: 20_000 },
+    pool: { max: options.poolMax ?? 10, min: 0, idle: 10_000, acquire: 20_000 },
     define: { underscored: true },
   });
 }
-
-export const sequelize: Sequelize = (globalForDb.__eonscaleSequelize ??= createSequelize());

@@ -2,9 +2,10 @@
 // runs in one transaction together with its audit event and any e-mail it sends (outbox).
 import { Op, type Transaction } from "sequelize";
 import { z } from "zod";
-import { Invitation, Membership, Organisation, PasswordReset, sequelize, User } from "../db/models/index.ts";
+import { Invitation, Membership, Organisation, PasswordReset, User } from "../db/models/index.ts";
+import { sequelize } from "./db.server.ts";
 import { INVITATION_DAYS, RESET_MINUTES } from "../app/lib/account-links.ts";
-import { ROLE_LABELS, ROLES, type Role } from "../app/lib/roles.ts";
+import { normaliseRoles, ROLES, rolesInWords, type Role } from "../app/lib/roles.ts";
 import { audit } from "./audit.server.ts";
 import { hashPassword, NewPasswordSchema, notFound, verifyPassword } from "./auth.server.ts";
 import { env } from "./env.server.ts";
@@ -24,9 +25,18 @@ export class AccountError extends Error {
 
 const EmailSchema = z.email({ error: "Enter an e-mail address, like name@example.org." }).transform((e) => e.trim().toLowerCase());
 
+/** One or more roles from a form's checkboxes (repeated `roles` fields, or one). Never empty. */
+export const RoleSetSchema = z.preprocess(
+  (v) => (v === undefined || v === null || v === "" ? [] : Array.isArray(v) ? v : [v]),
+  z
+    .array(z.enum(ROLES, { error: `Roles: choose from ${ROLES.join(", ")}.` }), { error: "Roles: choose at least one role." })
+    .min(1, { error: "Roles: choose at least one role." })
+    .transform((roles) => normaliseRoles(roles)),
+);
+
 export const InviteSchema = z.object({
   email: z.preprocess((v) => (typeof v === "string" ? v.trim() : v), EmailSchema),
-  role: z.enum(ROLES, { error: `Choose a role: ${ROLES.join(", ")}.` }),
+  roles: RoleSetSchema,
 });
 
 export const NewAccountSchema = z
@@ -55,8 +65,11 @@ function link(path: string) {
 
 // ---------- invitations ----------
 
-export async function inviteMember(input: { organisation: Organisation; inviter: User; email: string; role: Role }) {
-  const { organisation, inviter, email, role } = input;
+export async function inviteMember(input: { organisation: Organisation; inviter: User; email: string; roles: Role[] }) {
+  const { organisation, inviter, email } = input;
+  const roles = normaliseRoles(input.roles);
+  if (!roles.length) throw new AccountError("Roles: choose at least one role.", "roles");
+  const as = rolesInWords(roles, { lower: true });
   const existing = await User.findOne({ where: { email } });
   if (existing && (await Membership.findOne({ where: { userId: existing.id, organisationId: organisation.id } }))) {
     throw new AccountError(`${email} is already a member of ${organisation.name}.`, "email");
@@ -70,7 +83,7 @@ export async function inviteMember(input: { organisation: Organisation; inviter:
       { where: { organisationId: organisation.id, email, acceptedAt: null, revokedAt: null }, transaction },
     );
     const invitation = await Invitation.create(
-      { organisationId: organisation.id, invitedById: inviter.id, email, role, tokenHash: hash, expiresAt, acceptedAt: null, revokedAt: null },
+      { organisationId: organisation.id, invitedById: inviter.id, email, roles, tokenHash: hash, expiresAt, acceptedAt: null, revokedAt: null },
       { transaction },
     );
     const url = link(`/invite/${token}`);
@@ -79,18 +92,18 @@ export async function inviteMember(input: { organisation: Organisation; inviter:
         to: email,
         subject: `You're invited to ${organisation.name} on Eonscale`,
         text: [
-          `${inviter.name} has invited you to join ${organisation.name} on Eonscale as ${ROLE_LABELS[role].toLowerCase()}.`,
+          `${inviter.name} has invited you to join ${organisation.name} on Eonscale as ${as}.`,
           "",
           `Accept the invitation and choose a password here (the link works once, for ${INVITATION_DAYS} days):`,
           url,
           "",
           "If you did not expect this, you can ignore this message.",
         ].join("\n"),
-        html: `<p>${escapeHtml(inviter.name)} has invited you to join <strong>${escapeHtml(organisation.name)}</strong> on Eonscale as ${escapeHtml(ROLE_LABELS[role].toLowerCase())}.</p><p><a href="${url}">Accept the invitation</a> (the link works once, for ${INVITATION_DAYS} days).</p><p>If you did not expect this, you can ignore this message.</p>`,
+        html: `<p>${escapeHtml(inviter.name)} has invited you to join <strong>${escapeHtml(organisation.name)}</strong> on Eonscale as ${escapeHtml(as)}.</p><p><a href="${url}">Accept the invitation</a> (the link works once, for ${INVITATION_DAYS} days).</p><p>If you did not expect this, you can ignore this message.</p>`,
       },
       transaction,
     );
-    await audit({ organisationId: organisation.id, actorId: inviter.id, action: "invitation.create", objectType: "invitation", objectId: invitation.id, details: { email, role } }, transaction);
+    await audit({ organisationId: organisation.id, actorId: inviter.id, action: "invitation.create", objectType: "invitation", objectId: invitation.id, details: { email, roles } }, transaction);
     return invitation;
   });
 }
@@ -132,9 +145,9 @@ export async function acceptInvitation(token: string, form: Record<string, unkno
       }
       user = await User.create({ email: invitation.email, name: parsed.data.name, passwordHash: await hashPassword(parsed.data.password), lastSignInAt: null }, { transaction });
     }
-    await Membership.create({ userId: user.id, organisationId: organisation.id, role: invitation.role }, { transaction });
+    await Membership.create({ userId: user.id, organisationId: organisation.id, roles: normaliseRoles(invitation.roles) }, { transaction });
     await invitation.update({ acceptedAt: new Date() }, { transaction });
-    await audit({ organisationId: organisation.id, actorId: user.id, action: "invitation.accept", objectType: "invitation", objectId: invitation.id, details: { email: invitation.email, role: invitation.role } }, transaction);
+    await audit({ organisationId: organisation.id, actorId: user.id, action: "invitation.accept", objectType: "invitation", objectId: invitation.id, details: { email: invitation.email, roles: invitation.roles } }, transaction);
     return { user, organisation };
   });
 }
@@ -158,34 +171,53 @@ export function pendingInvitations(organisationId: number) {
 
 // ---------- members ----------
 
-async function adminCount(organisationId: number, transaction: Transaction) {
-  return Membership.count({ where: { organisationId, role: "admin" }, transaction });
+/**
+ * Serialises every change to an organisation's memberships: the organisation's row is locked
+ * (SELECT … FOR UPDATE) for the rest of the transaction, so two admins demoting or removing each
+ * other at the same moment run one after the other, and the second sees the first's result.
+ */
+async function lockOrganisation(organisationId: number, actor: User, transaction: Transaction) {
+  await Organisation.findOne({ where: { id: organisationId }, attributes: ["id"], transaction, lock: transaction.LOCK.UPDATE });
+  // The guard ran before the lock: an admin demoted meanwhile by another admin may no longer act.
+  const still = await Membership.count({ where: { organisationId, userId: actor.id, roles: { [Op.contains]: ["admin"] } }, transaction });
+  if (!still) throw new AccountError("You are no longer an admin of this organisation; nothing was changed.");
 }
 
-export async function changeRole(organisation: Organisation, actor: User, membershipId: number, role: Role) {
+async function otherAdmins(organisationId: number, membershipId: number, transaction: Transaction) {
+  return Membership.count({ where: { organisationId, id: { [Op.ne]: membershipId }, roles: { [Op.contains]: ["admin"] } }, transaction });
+}
+
+const LAST_ADMIN = "An organisation needs at least one admin. Make someone else admin first.";
+
+/** Replace a member's role set (admin only; never leaves the organisation without an admin). */
+export async function setRoles(organisation: Organisation, actor: User, membershipId: number, roles: Role[]) {
+  const to = normaliseRoles(roles);
+  if (!to.length) throw new AccountError("Roles: choose at least one role.", "roles");
   return sequelize.transaction(async (transaction) => {
-    const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction, lock: transaction.LOCK.UPDATE });
+    await lockOrganisation(organisation.id, actor, transaction);
+    const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction });
     if (!m) notFound("That person is not a member of this organisation.");
-    if (m.role === role) return m;
-    if (m.role === "admin" && (await adminCount(organisation.id, transaction)) <= 1) {
-      throw new AccountError("An organisation needs at least one admin. Make someone else admin first.");
+    const from = normaliseRoles(m.roles);
+    if (from.join() === to.join()) return m;
+    if (from.includes("admin") && !to.includes("admin") && (await otherAdmins(organisation.id, m.id, transaction)) === 0) {
+      throw new AccountError(LAST_ADMIN, "roles");
     }
-    const from = m.role;
-    await m.update({ role }, { transaction });
-    await audit({ organisationId: organisation.id, actorId: actor.id, action: "membership.role", objectType: "membership", objectId: m.id, details: { from, to: role } }, transaction);
+    await m.update({ roles: to }, { transaction });
+    await audit({ organisationId: organisation.id, actorId: actor.id, action: "membership.roles", objectType: "membership", objectId: m.id, details: { from, to } }, transaction);
     return m;
   });
 }
 
 export async function removeMember(organisation: Organisation, actor: User, membershipId: number) {
   return sequelize.transaction(async (transaction) => {
-    const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction, lock: transaction.LOCK.UPDATE });
+    await lockOrganisation(organisation.id, actor, transaction);
+    const m = await Membership.findOne({ where: { id: membershipId, organisationId: organisation.id }, transaction });
     if (!m) notFound("That person is not a member of this organisation.");
-    if (m.role === "admin" && (await adminCount(organisation.id, transaction)) <= 1) {
+    if (m.roles.includes("admin") && (await otherAdmins(organisation.id, m.id, transaction)) === 0) {
       throw new AccountError("You cannot remove the last admin. Make someone else admin first.");
     }
     await m.destroy({ transaction });
-    await audit({ organisationId: organisation.id, actorId: actor.id, action: "membership.remove", objectType: "membership", objectId: m.id, details: { userId: m.userId, role: m.role } }, transaction);
+    await audit({ organisationId: organisation.id, actorId: actor.id, action: "membership.remove", objectType: "membership", objectId: m.id, details: { userId: m.userId, roles: m.roles } }, transaction);
   });
 }
 

@@ -8,7 +8,7 @@ import express, { type Request, type Response, type NextFunction } from "express
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import type { ServerBuild } from "react-router";
-import { sequelize } from "../db/sequelize.ts";
+import { sequelize } from "./db.server.ts";
 import { CLIENT_IP_HEADER } from "./auth.server.ts";
 import { env } from "./env.server.ts";
 import { logger } from "./logger.server.ts";

@@ -4,7 +4,8 @@
 //
 // Shared entries (organisation_id NULL) are reference data from db/data/dated-events: read-only here.
 import { ForeignKeyConstraintError, Op, UniqueConstraintError, type WhereOptions } from "sequelize";
-import { DatedEvent, DecaySystem, sequelize } from "../db/models/index.ts";
+import { DatedEvent, DecaySystem } from "../db/models/index.ts";
+import { sequelize } from "./db.server.ts";
 import { formatAge, type DatedEventInput, type DatedEventView, type Verification } from "../app/lib/dated-events.ts";
 import type { Role } from "../app/lib/roles.ts";
 import { audit } from "./audit.server.ts";

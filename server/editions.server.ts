@@ -3,7 +3,8 @@
 // changes (make current, retire, discard a draft), each in one transaction with its audit event.
 import { createHash, createHmac, timingSafeEqual } from "node:crypto";
 import { z } from "zod";
-import { ChartEdition, Interval as IntervalRow, Membership, sequelize, User } from "../db/models/index.ts";
+import { ChartEdition, Interval as IntervalRow, Membership, User } from "../db/models/index.ts";
+import { sequelize } from "./db.server.ts";
 import type { Role } from "../app/lib/roles.ts";
 import {
   CORRECTABLE_FIELDS,
@@ -25,7 +26,7 @@ import {
 import { audit } from "./audit.server.ts";
 import { env } from "./env.server.ts";
 import { getSession } from "./session.server.ts";
-import { BodyTooLargeError, megabytes, readLimitedFormData as readFormDataWithin } from "./http.server.ts";
+import { BodyTooLargeError, jsonError, megabytes, readLimitedFormData as readFormDataWithin } from "./http.server.ts";
 import type { Transaction } from "sequelize";
 
 /** Roles that manage chart editions (import, make current, retire). */
@@ -278,11 +279,9 @@ export function cachedJson(request: Request, body: unknown, extra: Record<string
   return new Response(text, { status: 200, headers: { ...headers, "Content-Type": "application/json; charset=utf-8" } });
 }
 
-export function jsonError(status: number, message: string): Response {
-  return new Response(JSON.stringify({ error: { message } }), {
-    status,
-    headers: { "Content-Type": "application/json; charset=utf-8", "Cache-Control": "no-store", "Access-Control-Allow-Origin": "*" },
-  });
+/** A JSON error of the public timescale API (readable from any origin). */
+export function publicJsonError(status: number, message: string): Response {
+  return jsonError(status, message, { "Access-Control-Allow-Origin": "*" });
 }
 
 /** The CSV or JSON download of an edition (exactly what the importer reads back). */

@@ -1,7 +1,7 @@
 // Node entry: validates the environment, serves the React Router build (or Vite in --dev),
 // runs the background workers and shuts down gracefully on SIGTERM/SIGINT.
 import type { Server } from "node:http";
-import { sequelize } from "../db/sequelize.ts";
+import { sequelize } from "./db.server.ts";
 import { createApp } from "./app.ts";
 import { env, loadEnv } from "./env.server.ts";
 import { logger } from "./logger.server.ts";

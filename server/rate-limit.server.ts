@@ -1,6 +1,6 @@
 // Failed sign-in counters kept in Postgres (rate-limiter-flexible), so every app server shares them.
 import { RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
-import { sequelize } from "../db/sequelize.ts";
+import { sequelize } from "./db.server.ts";
 
 const WINDOW_SECONDS = 15 * 60;
 

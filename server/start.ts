@@ -11,7 +11,10 @@ process.env.EONSCALE_LOCAL = "1"; // production build, local stand-ins: keeps /d
 process.env.INBOX_URL ??= config.INBOX_URL;
 
 const { migrateAndSeed } = await import("../db/migrator.ts");
-await migrateAndSeed({ demo: true, quiet: true });
+const { createSequelize } = await import("../db/sequelize.ts");
+const db = createSequelize(process.env.DATABASE_URL!);
+await migrateAndSeed({ demo: true, quiet: true, db });
+await db.close();
 const { DEMO_PASSWORD, DEMO_USERS, DEMO_ORGANISATION } = await import("../db/seeders/demo/2026.12.01T00.00.00.marrowby-team.ts");
 
 if (!process.argv.includes("--no-build")) {

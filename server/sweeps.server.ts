@@ -3,7 +3,8 @@
 // on one server only, however many app servers there are.
 import type PgBoss from "pg-boss";
 import { Op } from "sequelize";
-import { PasswordReset, Session, sequelize } from "../db/models/index.ts";
+import { PasswordReset, Session } from "../db/models/index.ts";
+import { sequelize } from "./db.server.ts";
 import { logger } from "./logger.server.ts";
 
 export const SWEEP_QUEUE = "housekeeping-sweep";

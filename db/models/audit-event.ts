@@ -6,7 +6,7 @@ import {
   type InferAttributes,
   type InferCreationAttributes,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
 
@@ -22,16 +22,19 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
   declare createdAt: CreationOptional<Date>;
 }
 
-AuditEvent.init(
-  {
-    id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
-    organisationId: { type: DataTypes.INTEGER, allowNull: true },
-    actorId: { type: DataTypes.INTEGER, allowNull: true },
-    action: { type: DataTypes.STRING(100), allowNull: false },
-    objectType: { type: DataTypes.STRING(60), allowNull: false },
-    objectId: { type: DataTypes.STRING(100), allowNull: true },
-    details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "audit_events", updatedAt: false },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initAuditEvent(sequelize: Sequelize) {
+  AuditEvent.init(
+    {
+      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      organisationId: { type: DataTypes.INTEGER, allowNull: true },
+      actorId: { type: DataTypes.INTEGER, allowNull: true },
+      action: { type: DataTypes.STRING(100), allowNull: false },
+      objectType: { type: DataTypes.STRING(60), allowNull: false },
+      objectId: { type: DataTypes.STRING(100), allowNull: true },
+      details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      createdAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "audit_events", updatedAt: false },
+  );
+}

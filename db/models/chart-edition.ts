@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import type { Correction, EditionStatus } from "../../app/lib/timescale/types.ts";
 import type { Interval } from "./interval.ts";
 import type { User } from "./user.ts";
@@ -42,22 +42,25 @@ export class ChartEdition extends Model<InferAttributes<ChartEdition>, InferCrea
   declare madeCurrentBy?: NonAttribute<User | null>;
 }
 
-ChartEdition.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    slug: { type: DataTypes.STRING(60), allowNull: false, unique: true },
-    label: { type: DataTypes.STRING(100), allowNull: false },
-    status: { type: DataTypes.ENUM(...EDITION_STATUSES), allowNull: false, defaultValue: "draft" },
-    source: { type: DataTypes.TEXT, allowNull: false },
-    licence: { type: DataTypes.TEXT, allowNull: false },
-    sourceFile: { type: DataTypes.STRING(300), allowNull: true },
-    corrections: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-    createdById: { type: DataTypes.INTEGER, allowNull: true },
-    madeCurrentById: { type: DataTypes.INTEGER, allowNull: true },
-    madeCurrentAt: { type: DataTypes.DATE, allowNull: true },
-    retiredAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "chart_editions" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initChartEdition(sequelize: Sequelize) {
+  ChartEdition.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      slug: { type: DataTypes.STRING(60), allowNull: false, unique: true },
+      label: { type: DataTypes.STRING(100), allowNull: false },
+      status: { type: DataTypes.ENUM(...EDITION_STATUSES), allowNull: false, defaultValue: "draft" },
+      source: { type: DataTypes.TEXT, allowNull: false },
+      licence: { type: DataTypes.TEXT, allowNull: false },
+      sourceFile: { type: DataTypes.STRING(300), allowNull: true },
+      corrections: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      createdById: { type: DataTypes.INTEGER, allowNull: true },
+      madeCurrentById: { type: DataTypes.INTEGER, allowNull: true },
+      madeCurrentAt: { type: DataTypes.DATE, allowNull: true },
+      retiredAt: { type: DataTypes.DATE, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "chart_editions" },
+  );
+}

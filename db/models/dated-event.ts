@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import { AGE_KINDS, VERIFICATIONS, type AgeKind, type Verification } from "../../app/lib/dated-events.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
@@ -42,25 +42,28 @@ export class DatedEvent extends Model<InferAttributes<DatedEvent>, InferCreation
   declare updatedBy?: NonAttribute<User | null>;
 }
 
-DatedEvent.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    organisationId: { type: DataTypes.INTEGER, allowNull: true },
-    slug: { type: DataTypes.STRING(80), allowNull: false },
-    name: { type: DataTypes.STRING(160), allowNull: false },
-    summary: { type: DataTypes.TEXT, allowNull: false },
-    ageMa: { type: DataTypes.DECIMAL, allowNull: false },
-    uncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
-    ageKind: { type: DataTypes.ENUM(...AGE_KINDS), allowNull: false, defaultValue: "point" },
-    citation: { type: DataTypes.TEXT, allowNull: false },
-    doi: { type: DataTypes.STRING(200), allowNull: true },
-    url: { type: DataTypes.STRING(500), allowNull: true },
-    datingMethod: { type: DataTypes.STRING(200), allowNull: true },
-    verification: { type: DataTypes.STRING(60), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
-    createdById: { type: DataTypes.INTEGER, allowNull: true },
-    updatedById: { type: DataTypes.INTEGER, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "dated_events" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initDatedEvent(sequelize: Sequelize) {
+  DatedEvent.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      organisationId: { type: DataTypes.INTEGER, allowNull: true },
+      slug: { type: DataTypes.STRING(80), allowNull: false },
+      name: { type: DataTypes.STRING(160), allowNull: false },
+      summary: { type: DataTypes.TEXT, allowNull: false },
+      ageMa: { type: DataTypes.DECIMAL, allowNull: false },
+      uncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
+      ageKind: { type: DataTypes.ENUM(...AGE_KINDS), allowNull: false, defaultValue: "point" },
+      citation: { type: DataTypes.TEXT, allowNull: false },
+      doi: { type: DataTypes.STRING(200), allowNull: true },
+      url: { type: DataTypes.STRING(500), allowNull: true },
+      datingMethod: { type: DataTypes.STRING(200), allowNull: true },
+      verification: { type: DataTypes.STRING(60), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
+      createdById: { type: DataTypes.INTEGER, allowNull: true },
+      updatedById: { type: DataTypes.INTEGER, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "dated_events" },
+  );
+}

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import { VERIFICATIONS, type Verification } from "../../app/lib/dated-events.ts";
 
 /**
@@ -30,25 +30,28 @@ export class DecaySystem extends Model<InferAttributes<DecaySystem>, InferCreati
   declare updatedAt: CreationOptional<Date>;
 }
 
-DecaySystem.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    slug: { type: DataTypes.STRING(40), allowNull: false, unique: true },
-    parent: { type: DataTypes.STRING(20), allowNull: false },
-    daughter: { type: DataTypes.STRING(20), allowNull: false },
-    decayMode: { type: DataTypes.STRING(200), allowNull: false },
-    halfLifeYears: { type: DataTypes.DECIMAL, allowNull: false },
-    halfLifeUncertaintyYears: { type: DataTypes.DECIMAL, allowNull: true },
-    decayConstantPerYear: { type: DataTypes.DECIMAL, allowNull: false },
-    decayConstantStated: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-    branchConstantPerYear: { type: DataTypes.DECIMAL, allowNull: true },
-    citation: { type: DataTypes.TEXT, allowNull: false },
-    doi: { type: DataTypes.STRING(200), allowNull: true },
-    verification: { type: DataTypes.STRING(60), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
-    notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
-    position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "decay_systems" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initDecaySystem(sequelize: Sequelize) {
+  DecaySystem.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      slug: { type: DataTypes.STRING(40), allowNull: false, unique: true },
+      parent: { type: DataTypes.STRING(20), allowNull: false },
+      daughter: { type: DataTypes.STRING(20), allowNull: false },
+      decayMode: { type: DataTypes.STRING(200), allowNull: false },
+      halfLifeYears: { type: DataTypes.DECIMAL, allowNull: false },
+      halfLifeUncertaintyYears: { type: DataTypes.DECIMAL, allowNull: true },
+      decayConstantPerYear: { type: DataTypes.DECIMAL, allowNull: false },
+      decayConstantStated: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      branchConstantPerYear: { type: DataTypes.DECIMAL, allowNull: true },
+      citation: { type: DataTypes.TEXT, allowNull: false },
+      doi: { type: DataTypes.STRING(200), allowNull: true },
+      verification: { type: DataTypes.STRING(60), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
+      notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+      position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "decay_systems" },
+  );
+}

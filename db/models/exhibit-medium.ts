@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import type { LineStringGeometry } from "../../app/lib/exhibit/types.ts";
 import { MEDIUM_TYPES, type MediumType } from "../../app/lib/scale/legibility.ts";
 import { LENGTH_UNITS, type LengthUnit } from "../../app/lib/units/index.ts";
@@ -24,22 +24,25 @@ export class ExhibitMedium extends Model<InferAttributes<ExhibitMedium>, InferCr
   declare updatedAt: CreationOptional<Date>;
 }
 
-ExhibitMedium.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    exhibitId: { type: DataTypes.INTEGER, allowNull: false },
-    kind: { type: DataTypes.ENUM("length", "route"), allowNull: false },
-    mediumType: { type: DataTypes.ENUM(...MEDIUM_TYPES), allowNull: false },
-    lengthValue: { type: DataTypes.DECIMAL, allowNull: true },
-    lengthUnit: { type: DataTypes.ENUM(...LENGTH_UNITS), allowNull: true },
-    panelWidthValue: { type: DataTypes.DECIMAL, allowNull: true },
-    panelWidthUnit: { type: DataTypes.ENUM(...LENGTH_UNITS), allowNull: true },
-    geometry: { type: DataTypes.JSONB, allowNull: true },
-    routeLengthM: { type: DataTypes.DOUBLE, allowNull: true },
-    routeVertexCount: { type: DataTypes.INTEGER, allowNull: true },
-    sourceName: { type: DataTypes.STRING(300), allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "exhibit_media" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initExhibitMedium(sequelize: Sequelize) {
+  ExhibitMedium.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      exhibitId: { type: DataTypes.INTEGER, allowNull: false },
+      kind: { type: DataTypes.ENUM("length", "route"), allowNull: false },
+      mediumType: { type: DataTypes.ENUM(...MEDIUM_TYPES), allowNull: false },
+      lengthValue: { type: DataTypes.DECIMAL, allowNull: true },
+      lengthUnit: { type: DataTypes.ENUM(...LENGTH_UNITS), allowNull: true },
+      panelWidthValue: { type: DataTypes.DECIMAL, allowNull: true },
+      panelWidthUnit: { type: DataTypes.ENUM(...LENGTH_UNITS), allowNull: true },
+      geometry: { type: DataTypes.JSONB, allowNull: true },
+      routeLengthM: { type: DataTypes.DOUBLE, allowNull: true },
+      routeVertexCount: { type: DataTypes.INTEGER, allowNull: true },
+      sourceName: { type: DataTypes.STRING(300), allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "exhibit_media" },
+  );
+}

@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import type { LegibilitySettings, UnitsPreference } from "../../app/lib/exhibit/types.ts";
 import type { AgeUnit } from "../../app/lib/units/index.ts";
 import type { ChartEdition } from "./chart-edition.ts";
@@ -47,25 +47,28 @@ export class Exhibit extends Model<InferAttributes<Exhibit>, InferCreationAttrib
   declare updatedBy?: NonAttribute<User | null>;
 }
 
-Exhibit.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    organisationId: { type: DataTypes.INTEGER, allowNull: false },
-    title: { type: DataTypes.STRING(200), allowNull: false },
-    slug: { type: DataTypes.STRING(100), allowNull: false },
-    editionId: { type: DataTypes.INTEGER, allowNull: false },
-    spanOlderValue: { type: DataTypes.DECIMAL, allowNull: false },
-    spanOlderUnit: { type: DataTypes.ENUM(...AGE_UNIT_VALUES), allowNull: false },
-    spanYoungerValue: { type: DataTypes.DECIMAL, allowNull: false },
-    spanYoungerUnit: { type: DataTypes.ENUM(...AGE_UNIT_VALUES), allowNull: false },
-    unitsPreference: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
-    legibility: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-    status: { type: DataTypes.ENUM("draft"), allowNull: false, defaultValue: "draft" },
-    revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
-    createdById: { type: DataTypes.INTEGER, allowNull: true },
-    updatedById: { type: DataTypes.INTEGER, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "exhibits" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initExhibit(sequelize: Sequelize) {
+  Exhibit.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      organisationId: { type: DataTypes.INTEGER, allowNull: false },
+      title: { type: DataTypes.STRING(200), allowNull: false },
+      slug: { type: DataTypes.STRING(100), allowNull: false },
+      editionId: { type: DataTypes.INTEGER, allowNull: false },
+      spanOlderValue: { type: DataTypes.DECIMAL, allowNull: false },
+      spanOlderUnit: { type: DataTypes.ENUM(...AGE_UNIT_VALUES), allowNull: false },
+      spanYoungerValue: { type: DataTypes.DECIMAL, allowNull: false },
+      spanYoungerUnit: { type: DataTypes.ENUM(...AGE_UNIT_VALUES), allowNull: false },
+      unitsPreference: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
+      legibility: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      status: { type: DataTypes.ENUM("draft"), allowNull: false, defaultValue: "draft" },
+      revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+      createdById: { type: DataTypes.INTEGER, allowNull: true },
+      updatedById: { type: DataTypes.INTEGER, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "exhibits" },
+  );
+}

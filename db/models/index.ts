@@ -1,24 +1,48 @@
-// All models and their associations. Import models from here so associations are always set up.
-import { AuditEvent } from "./audit-event.ts";
-import { ChartEdition } from "./chart-edition.ts";
-import { DatedEvent } from "./dated-event.ts";
-import { DecaySystem } from "./decay-system.ts";
-import { Exhibit } from "./exhibit.ts";
-import { ExhibitMedium } from "./exhibit-medium.ts";
-import { Inset } from "./inset.ts";
-import { Marker } from "./marker.ts";
-import { Interval } from "./interval.ts";
-import { Invitation } from "./invitation.ts";
-import { Membership } from "./membership.ts";
-import { Organisation } from "./organisation.ts";
-import { OutboxMessage } from "./outbox-message.ts";
-import { PasswordReset } from "./password-reset.ts";
-import { Session } from "./session.ts";
-import { User } from "./user.ts";
+// All models and their associations. Import models from here; the process that owns the
+// Sequelize instance (server/db.server.ts, the migration CLI, the test setup) calls initModels once.
+import type { Sequelize } from "sequelize";
+import { AuditEvent, initAuditEvent } from "./audit-event.ts";
+import { ChartEdition, initChartEdition } from "./chart-edition.ts";
+import { DatedEvent, initDatedEvent } from "./dated-event.ts";
+import { DecaySystem, initDecaySystem } from "./decay-system.ts";
+import { Exhibit, initExhibit } from "./exhibit.ts";
+import { ExhibitMedium, initExhibitMedium } from "./exhibit-medium.ts";
+import { Inset, initInset } from "./inset.ts";
+import { Marker, initMarker } from "./marker.ts";
+import { Interval, initInterval } from "./interval.ts";
+import { Invitation, initInvitation } from "./invitation.ts";
+import { Membership, initMembership } from "./membership.ts";
+import { Organisation, initOrganisation } from "./organisation.ts";
+import { OutboxMessage, initOutboxMessage } from "./outbox-message.ts";
+import { PasswordReset, initPasswordReset } from "./password-reset.ts";
+import { Session, initSession } from "./session.ts";
+import { User, initUser } from "./user.ts";
 
-// Associations belong to these class objects, so they are set every time this module is
-// evaluated (the server entry and the React Router server bundle each evaluate their own copy).
-{
+let boundTo: Sequelize | undefined;
+
+/**
+ * Binds every model to this instance and sets the associations. Calling it again with the same
+ * instance does nothing; with another instance it rebinds (Model.init clears the associations).
+ */
+export function initModels(sequelize: Sequelize): Sequelize {
+  if (boundTo === sequelize) return sequelize;
+  initAuditEvent(sequelize);
+  initChartEdition(sequelize);
+  initDatedEvent(sequelize);
+  initDecaySystem(sequelize);
+  initExhibit(sequelize);
+  initExhibitMedium(sequelize);
+  initInset(sequelize);
+  initMarker(sequelize);
+  initInterval(sequelize);
+  initInvitation(sequelize);
+  initMembership(sequelize);
+  initOrganisation(sequelize);
+  initOutboxMessage(sequelize);
+  initPasswordReset(sequelize);
+  initSession(sequelize);
+  initUser(sequelize);
+
   User.hasMany(Membership, { foreignKey: "userId", as: "memberships" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
   Organisation.hasMany(Membership, { foreignKey: "organisationId", as: "memberships" });
@@ -44,7 +68,14 @@ import { User } from "./user.ts";
   Exhibit.hasMany(Marker, { foreignKey: "exhibitId", as: "markers" });
   Exhibit.hasMany(Inset, { foreignKey: "exhibitId", as: "insets" });
   Marker.belongsTo(Interval, { foreignKey: "intervalId", as: "interval" });
+  boundTo = sequelize;
+  return sequelize;
 }
 
-export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, Inset, Interval, Marker, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
-export { sequelize } from "../sequelize.ts";
+/** The instance initModels bound the models to. */
+export function boundSequelize(): Sequelize {
+  if (!boundTo) throw new Error("initModels(sequelize) has not been called in this process");
+  return boundTo;
+}
+
+export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, Inset, Marker, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };

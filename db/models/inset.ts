@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import type { Exhibit } from "./exhibit.ts";
 
 /** A sub-span of an exhibit shown at a magnified scale, with its own scale statement. */
@@ -14,16 +14,19 @@ export class Inset extends Model<InferAttributes<Inset>, InferCreationAttributes
   declare updatedAt: CreationOptional<Date>;
 }
 
-Inset.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    exhibitId: { type: DataTypes.INTEGER, allowNull: false },
-    olderMa: { type: DataTypes.DECIMAL, allowNull: false },
-    youngerMa: { type: DataTypes.DECIMAL, allowNull: false },
-    magnification: { type: DataTypes.DOUBLE, allowNull: false },
-    label: { type: DataTypes.STRING(200), allowNull: false },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "insets" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initInset(sequelize: Sequelize) {
+  Inset.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      exhibitId: { type: DataTypes.INTEGER, allowNull: false },
+      olderMa: { type: DataTypes.DECIMAL, allowNull: false },
+      youngerMa: { type: DataTypes.DECIMAL, allowNull: false },
+      magnification: { type: DataTypes.DOUBLE, allowNull: false },
+      label: { type: DataTypes.STRING(200), allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "insets" },
+  );
+}

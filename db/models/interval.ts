@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import { RANKS, type Rank } from "../../app/lib/timescale/types.ts";
 import type { ChartEdition } from "./chart-edition.ts";
 
@@ -38,23 +38,26 @@ export class Interval extends Model<InferAttributes<Interval>, InferCreationAttr
   declare parent?: NonAttribute<Interval | null>;
 }
 
-Interval.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    editionId: { type: DataTypes.INTEGER, allowNull: false },
-    name: { type: DataTypes.STRING(120), allowNull: false },
-    rank: { type: DataTypes.ENUM(...RANKS), allowNull: false },
-    parentId: { type: DataTypes.INTEGER, allowNull: true },
-    baseMa: { type: DataTypes.DECIMAL, allowNull: false },
-    baseUncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
-    topMa: { type: DataTypes.DECIMAL, allowNull: false },
-    color: { type: DataTypes.STRING(7), allowNull: false },
-    gssp: { type: DataTypes.BOOLEAN, allowNull: true },
-    approximate: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-    names: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-    chartOrder: { type: DataTypes.INTEGER, allowNull: false },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "intervals" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initInterval(sequelize: Sequelize) {
+  Interval.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      editionId: { type: DataTypes.INTEGER, allowNull: false },
+      name: { type: DataTypes.STRING(120), allowNull: false },
+      rank: { type: DataTypes.ENUM(...RANKS), allowNull: false },
+      parentId: { type: DataTypes.INTEGER, allowNull: true },
+      baseMa: { type: DataTypes.DECIMAL, allowNull: false },
+      baseUncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
+      topMa: { type: DataTypes.DECIMAL, allowNull: false },
+      color: { type: DataTypes.STRING(7), allowNull: false },
+      gssp: { type: DataTypes.BOOLEAN, allowNull: true },
+      approximate: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      names: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      chartOrder: { type: DataTypes.INTEGER, allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "intervals" },
+  );
+}

@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import { ROLES, type Role } from "../../app/lib/roles.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
@@ -29,19 +29,22 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare invitedBy?: NonAttribute<User>;
 }
 
-Invitation.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    organisationId: { type: DataTypes.INTEGER, allowNull: false },
-    invitedById: { type: DataTypes.INTEGER, allowNull: true },
-    email: { type: DataTypes.STRING(254), allowNull: false },
-    role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
-    tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
-    expiresAt: { type: DataTypes.DATE, allowNull: false },
-    acceptedAt: { type: DataTypes.DATE, allowNull: true },
-    revokedAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "invitations" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initInvitation(sequelize: Sequelize) {
+  Invitation.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      organisationId: { type: DataTypes.INTEGER, allowNull: false },
+      invitedById: { type: DataTypes.INTEGER, allowNull: true },
+      email: { type: DataTypes.STRING(254), allowNull: false },
+      role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+      tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+      expiresAt: { type: DataTypes.DATE, allowNull: false },
+      acceptedAt: { type: DataTypes.DATE, allowNull: true },
+      revokedAt: { type: DataTypes.DATE, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "invitations" },
+  );
+}

@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import { MARKER_KINDS, type MarkerKind } from "../../app/lib/exhibit/types.ts";
 import type { Exhibit } from "./exhibit.ts";
 import type { Interval } from "./interval.ts";
@@ -34,21 +34,24 @@ export class Marker extends Model<InferAttributes<Marker>, InferCreationAttribut
   declare interval?: NonAttribute<Interval | null>;
 }
 
-Marker.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    exhibitId: { type: DataTypes.INTEGER, allowNull: false },
-    kind: { type: DataTypes.ENUM(...MARKER_KINDS), allowNull: false },
-    intervalId: { type: DataTypes.INTEGER, allowNull: true },
-    datedEventId: { type: DataTypes.INTEGER, allowNull: true },
-    ageMa: { type: DataTypes.DECIMAL, allowNull: true },
-    uncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
-    source: { type: DataTypes.TEXT, allowNull: true },
-    label: { type: DataTypes.STRING(200), allowNull: false },
-    text: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
-    decaySystemId: { type: DataTypes.INTEGER, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "markers" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initMarker(sequelize: Sequelize) {
+  Marker.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      exhibitId: { type: DataTypes.INTEGER, allowNull: false },
+      kind: { type: DataTypes.ENUM(...MARKER_KINDS), allowNull: false },
+      intervalId: { type: DataTypes.INTEGER, allowNull: true },
+      datedEventId: { type: DataTypes.INTEGER, allowNull: true },
+      ageMa: { type: DataTypes.DECIMAL, allowNull: true },
+      uncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
+      source: { type: DataTypes.TEXT, allowNull: true },
+      label: { type: DataTypes.STRING(200), allowNull: false },
+      text: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+      decaySystemId: { type: DataTypes.INTEGER, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "markers" },
+  );
+}

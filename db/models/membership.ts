@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import { ROLES, type Role } from "../../app/lib/roles.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
@@ -23,14 +23,17 @@ export class Membership extends Model<InferAttributes<Membership>, InferCreation
   declare organisation?: NonAttribute<Organisation>;
 }
 
-Membership.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    userId: { type: DataTypes.INTEGER, allowNull: false },
-    organisationId: { type: DataTypes.INTEGER, allowNull: false },
-    role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "memberships" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initMembership(sequelize: Sequelize) {
+  Membership.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      userId: { type: DataTypes.INTEGER, allowNull: false },
+      organisationId: { type: DataTypes.INTEGER, allowNull: false },
+      role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "memberships" },
+  );
+}

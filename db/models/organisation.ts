@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 
 export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
   declare id: CreationOptional<number>;
@@ -9,13 +9,16 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   declare updatedAt: CreationOptional<Date>;
 }
 
-Organisation.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    name: { type: DataTypes.STRING(200), allowNull: false },
-    slug: { type: DataTypes.STRING(100), allowNull: false, unique: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "organisations" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initOrganisation(sequelize: Sequelize) {
+  Organisation.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      name: { type: DataTypes.STRING(200), allowNull: false },
+      slug: { type: DataTypes.STRING(100), allowNull: false, unique: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "organisations" },
+  );
+}

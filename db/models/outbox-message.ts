@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 
 export const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
@@ -19,19 +19,22 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
   declare updatedAt: CreationOptional<Date>;
 }
 
-OutboxMessage.init(
-  {
-    id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
-    to: { type: DataTypes.STRING(254), allowNull: false },
-    subject: { type: DataTypes.STRING(300), allowNull: false },
-    text: { type: DataTypes.TEXT, allowNull: false },
-    html: { type: DataTypes.TEXT, allowNull: true },
-    status: { type: DataTypes.ENUM(...OUTBOX_STATUSES), allowNull: false, defaultValue: "pending" },
-    attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-    lastError: { type: DataTypes.TEXT, allowNull: true },
-    sentAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "outbox_messages" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initOutboxMessage(sequelize: Sequelize) {
+  OutboxMessage.init(
+    {
+      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      to: { type: DataTypes.STRING(254), allowNull: false },
+      subject: { type: DataTypes.STRING(300), allowNull: false },
+      text: { type: DataTypes.TEXT, allowNull: false },
+      html: { type: DataTypes.TEXT, allowNull: true },
+      status: { type: DataTypes.ENUM(...OUTBOX_STATUSES), allowNull: false, defaultValue: "pending" },
+      attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      lastError: { type: DataTypes.TEXT, allowNull: true },
+      sentAt: { type: DataTypes.DATE, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "outbox_messages" },
+  );
+}

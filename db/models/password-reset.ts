@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
   type NonAttribute,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import type { User } from "./user.ts";
 
 /** A single-use password reset link. Only the token's hash is kept. */
@@ -22,15 +22,18 @@ export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCr
   declare user?: NonAttribute<User>;
 }
 
-PasswordReset.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    userId: { type: DataTypes.INTEGER, allowNull: false },
-    tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
-    expiresAt: { type: DataTypes.DATE, allowNull: false },
-    usedAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "password_resets" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initPasswordReset(sequelize: Sequelize) {
+  PasswordReset.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      userId: { type: DataTypes.INTEGER, allowNull: false },
+      tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+      expiresAt: { type: DataTypes.DATE, allowNull: false },
+      usedAt: { type: DataTypes.DATE, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "password_resets" },
+  );
+}

@@ -6,7 +6,7 @@ import {
   type InferAttributes,
   type InferCreationAttributes,
 } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 import type { User } from "./user.ts";
 
 /** A server-side session; the cookie carries only the (signed) id. */
@@ -19,14 +19,17 @@ export class Session extends Model<InferAttributes<Session>, InferCreationAttrib
   declare updatedAt: CreationOptional<Date>;
 }
 
-Session.init(
-  {
-    id: { type: DataTypes.STRING(64), primaryKey: true },
-    userId: { type: DataTypes.INTEGER, allowNull: true },
-    data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-    expiresAt: { type: DataTypes.DATE, allowNull: false },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "sessions" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initSession(sequelize: Sequelize) {
+  Session.init(
+    {
+      id: { type: DataTypes.STRING(64), primaryKey: true },
+      userId: { type: DataTypes.INTEGER, allowNull: true },
+      data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      expiresAt: { type: DataTypes.DATE, allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "sessions" },
+  );
+}

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "../sequelize.ts";
+import type { Sequelize } from "sequelize";
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -11,15 +11,18 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare updatedAt: CreationOptional<Date>;
 }
 
-User.init(
-  {
-    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
-    name: { type: DataTypes.STRING(200), allowNull: false },
-    passwordHash: { type: DataTypes.STRING(100), allowNull: false },
-    lastSignInAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "users" },
-);
+/** Binds the model to the process's Sequelize instance (called once, by initModels). */
+export function initUser(sequelize: Sequelize) {
+  User.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
+      name: { type: DataTypes.STRING(200), allowNull: false },
+      passwordHash: { type: DataTypes.STRING(100), allowNull: false },
+      lastSignInAt: { type: DataTypes.DATE, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: "users" },
+  );
+}

@@ -99,7 +99,7 @@ describe("seeded reference data", () => {
   it("re-seeding updates in place and keeps ids", async () => {
     const before = await DatedEvent.findOne({ where: { organisationId: null, slug: "acasta-gneiss" } });
     const { up } = await import("../../db/seeders/reference/2026.12.01T02.00.00.dated-events.ts");
-    const { sequelize } = await import("../../db/models/index.ts");
+    const { sequelize } = await import("../../server/db.server.ts");
     await up({ sequelize, queryInterface: sequelize.getQueryInterface() });
     const after = await DatedEvent.findOne({ where: { organisationId: null, slug: "acasta-gneiss" } });
     expect(after!.id).toBe(before!.id);

@@ -1,7 +1,8 @@
 // The e-mail outbox: mail is queued in the same transaction as its cause, delivered by the pg-boss
 // worker, and survives an SMTP outage (retried with backoff until the server is back).
 import { afterAll, describe, expect, it } from "vitest";
-import { OutboxMessage, sequelize } from "../../db/models/index.ts";
+import { OutboxMessage } from "../../db/models/index.ts";
+import { sequelize } from "../../server/db.server.ts";
 import { clearInbox, waitForMessage } from "../../fakes/inbox.ts";
 import { startServices, stopServices } from "../../fakes/services.ts";
 import { MAIL_QUEUE, queueEmail, startMailWorker } from "../../server/mail.server.ts";

@@ -6,7 +6,7 @@ import { Session } from "../../db/models/index.ts";
 import { SIGN_IN_FAILED } from "../../server/auth.server.ts";
 import { sessionCookie } from "../../server/session.server.ts";
 import { SIGN_IN_LIMITS } from "../../server/rate-limit.server.ts";
-import { sequelize } from "../../db/sequelize.ts";
+import { sequelize } from "../../server/db.server.ts";
 import { createMember, createOrganisation, formRequest, routeArgs, settle, TEST_PASSWORD, unique } from "../helpers/db.ts";
 
 const signIn = (fields: Record<string, string>, ip = unique("198.51.100")) => settle(() => login.action(routeArgs(formRequest("/login", fields, { ip }))));

@@ -1,6 +1,7 @@
 // Housekeeping: expired sessions, rate-limit counters and old reset links are deleted; live ones stay.
 import { describe, expect, it } from "vitest";
-import { PasswordReset, Session, sequelize } from "../../db/models/index.ts";
+import { PasswordReset, Session } from "../../db/models/index.ts";
+import { sequelize } from "../../server/db.server.ts";
 import { sweepExpired } from "../../server/sweeps.server.ts";
 import { newToken } from "../../server/tokens.server.ts";
 import { cookieFor, createMember, createOrganisation, unique } from "../helpers/db.ts";

@@ -10,13 +10,10 @@ export default async function setup() {
   await ensureDatabase(TEST_DATABASE);
   const { createSequelize } = await import("../../db/sequelize.ts");
   const { migrateAndSeed } = await import("../../db/migrator.ts");
-  const db = createSequelize(process.env.DATABASE_URL);
+  const db = createSequelize(process.env.DATABASE_URL!);
   try {
     await migrateAndSeed({ demo: true, db, quiet: true });
   } finally {
     await db.close();
-    // The demo seeders use the models, bound to the process's own instance: close it too.
-    const { sequelize } = await import("../../db/sequelize.ts");
-    await sequelize.close();
   }
 }

@@ -1,82 +1,28 @@
 import { Form, Link, useSearchParams } from "react-router";
-import { formatLength } from "~/lib/exhibit";
-import { toMetres } from "~/lib/units";
-import { ChartEdition, Exhibit, ExhibitMedium, Marker, User } from "#db/models/index.ts";
+import { exhibitListQuery, filterAndSortExhibits, type ExhibitSort } from "~/lib/exhibit";
 import { requireMember } from "#server/auth.server.ts";
-import { sequelize } from "#db/sequelize.ts";
+import { listExhibits } from "#server/exhibits/list.server.ts";
 import type { Route } from "./+types/exhibits";
 
 export const meta: Route.MetaFunction = () => [{ title: "Exhibits · Eonscale" }];
 
-const SORTS = ["title", "medium", "length", "edition", "status", "updated"] as const;
-type Sort = (typeof SORTS)[number];
-
 export async function loader({ request }: Route.LoaderArgs) {
   const member = await requireMember(request);
-  const url = new URL(request.url);
-  const q = (url.searchParams.get("q") ?? "").trim().toLowerCase();
-  const medium = url.searchParams.get("medium") ?? "";
-  const recheck = url.searchParams.get("recheck") === "1";
-  const sort: Sort = (SORTS as readonly string[]).includes(url.searchParams.get("sort") ?? "") ? (url.searchParams.get("sort") as Sort) : "updated";
-  const dir = url.searchParams.get("dir") === "asc" ? 1 : url.searchParams.get("dir") === "desc" ? -1 : sort === "updated" ? -1 : 1;
-  const exhibits = await Exhibit.findAll({
-      where: { organisationId: member.organisation.id },
-      include: [
-        { model: ExhibitMedium, as: "medium", required: true },
-        { model: ChartEdition, as: "edition", required: true },
-        { model: User, as: "updatedBy" },
-      ],
-  });
-  const counts = (await Marker.findAll({
-    where: { exhibitId: exhibits.map((e) => e.id) },
-    attributes: ["exhibitId", [sequelize.fn("COUNT", sequelize.col("id")), "n"]],
-    group: ["exhibitId"],
-    raw: true,
-  })) as unknown as { exhibitId: number; n: string }[];
-  const markerCount = new Map(counts.map((c) => [c.exhibitId, Number(c.n)]));
-  let rows = exhibits.map((e) => {
-    const m = e.medium!;
-    const metres = m.kind === "route" ? (m.routeLengthM ?? 0) : toMetres({ value: Number(m.lengthValue), unit: m.lengthUnit! });
-    return {
-      slug: e.slug,
-      title: e.title,
-      medium: m.kind === "route" ? `route (${m.mediumType})` : m.mediumType,
-      metres,
-      length: formatLength(metres, e.unitsPreference, metres / 1e5),
-      edition: e.edition!.label,
-      needsRecheck: e.edition!.status !== "current",
-      status: e.status,
-      revision: e.revision,
-      markers: markerCount.get(e.id) ?? 0,
-      updated: e.updatedAt.toISOString(),
-      updatedBy: e.updatedBy?.name ?? null,
-    };
-  });
-  if (q) rows = rows.filter((r) => r.title.toLowerCase().includes(q) || r.slug.includes(q));
-  if (medium) rows = rows.filter((r) => r.medium.includes(medium));
-  if (recheck) rows = rows.filter((r) => r.needsRecheck);
-  const key: Record<Sort, (r: (typeof rows)[number]) => string | number> = {
-    title: (r) => r.title.toLowerCase(),
-    medium: (r) => r.medium,
-    length: (r) => r.metres,
-    edition: (r) => r.edition,
-    status: (r) => r.status,
-    updated: (r) => r.updated,
-  };
-  rows.sort((a, b) => (key[sort](a) < key[sort](b) ? -dir : key[sort](a) > key[sort](b) ? dir : 0));
-  return { rows, total: exhibits.length, canEdit: member.role === "designer", filters: { q, medium, recheck, sort, dir: dir === 1 ? "asc" : "desc" } };
+  const filters = exhibitListQuery(new URL(request.url).searchParams);
+  const all = await listExhibits(member.organisation.id);
+  return { rows: filterAndSortExhibits(all, filters), total: all.length, canEdit: member.role === "designer", filters };
 }
 
 export default function Exhibits({ loaderData }: Route.ComponentProps) {
   const { rows, total, canEdit, filters } = loaderData;
   const [params] = useSearchParams();
-  const sortLink = (s: Sort) => {
+  const sortLink = (s: ExhibitSort) => {
     const next = new URLSearchParams(params);
     next.set("sort", s);
     next.set("dir", filters.sort === s && filters.dir === "asc" ? "desc" : "asc");
     return `?${next}`;
   };
-  const header = (s: Sort, label: string) => (
+  const header = (s: ExhibitSort, label: string) => (
     <th scope="col" className="p-3" aria-sort={filters.sort === s ? (filters.dir === "asc" ? "ascending" : "descending") : undefined}>
       <Link to={sortLink(s)} className="no-underline">{label}{filters.sort === s ? (filters.dir === "asc" ? " ▲" : " ▼") : ""}</Link>
     </th>

@@ -32,10 +32,11 @@ export function riversideRoute(): [number, number][] {
   return coords;
 }
 
-// Uses the models (bound to the process's Sequelize instance, which points at the same database).
-export const up: Migration = async () => {
+// Uses the models, bound here to the instance the migrator was given.
+export const up: Migration = async ({ sequelize }) => {
   const models = await import("../../models/index.ts");
-  const { sequelize, Organisation, User, ChartEdition, Interval, Exhibit, ExhibitMedium, Marker, Inset, DatedEvent } = models;
+  models.initModels(sequelize);
+  const { Organisation, User, ChartEdition, Interval, Exhibit, ExhibitMedium, Marker, Inset, DatedEvent } = models;
   const org = await Organisation.findOne({ where: { slug: "marrowby" } });
   const designer = await User.findOne({ where: { email: "designer@marrowby.example" } });
   if (!org || !designer) throw new Error("the Marrowby team must be seeded first");
