@@ -145,7 +145,7 @@ describe("branched decay: K–Ar", () => {
     near(branchedAgeFromRatio(0.2, { total: SJ.total, branch: SJ.total }), ageFromRatio(0.2, t12), 1e-14);
   });
 
-  it("ignoring the branching would make a K–Ar age far too old", () => {
+  it("ignoring the branching would make a K–Ar age far too young", () => {
     // Treating all of ⁴⁰K's decays as argon-producing reads the same ratio as a much younger age;
     // the correct equation scales the ratio by λ/λₑ ≈ 9.54.
     const r = branchedDaughterParentRatio(66.043e6, SJ);
