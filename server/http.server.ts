@@ -46,3 +46,15 @@ export function megabytes(bytes: number): string {
   return `${(bytes / (1024 * 1024)).toFixed(1).replace(/\.0$/, "")} MB`;
 }
 
+
+export const JSON_CONTENT_TYPE = "application/json; charset=utf-8";
+
+/** A JSON response (not cached unless `headers` says otherwise): the one way the server answers JSON. */
+export function jsonResponse(status: number, body: unknown, headers: Record<string, string> = {}): Response {
+  return new Response(JSON.stringify(body), { status, headers: { "Content-Type": JSON_CONTENT_TYPE, "Cache-Control": "no-store", ...headers } });
+}
+
+/** The error body every JSON endpoint uses: { error: { message, issues? } }. */
+export function jsonError(status: number, message: string, headers: Record<string, string> = {}, issues?: { path: string; message: string }[]): Response {
+  return jsonResponse(status, { error: issues ? { message, issues } : { message } }, headers);
+}

@@ -5,11 +5,11 @@
  * English names; ages in Ma; baseUncertaintyMa null where the chart gives none; gssp null where the
  * source does not say. Unknown slug or a draft → 404 { "error": { "message" } }. ETag / 304.
  */
-import { apiEditionBody, cachedJson, jsonError } from "#server/editions.server.ts";
+import { apiEditionBody, cachedJson, publicJsonError } from "#server/editions.server.ts";
 import type { Route } from "./+types/api.timescales.$slug";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const body = await apiEditionBody(params.slug);
-  if (!body) return jsonError(404, `No published chart edition has the slug "${params.slug}". GET /api/timescales lists them.`);
+  if (!body) return publicJsonError(404, `No published chart edition has the slug "${params.slug}". GET /api/timescales lists them.`);
   return cachedJson(request, body);
 }

@@ -8,7 +8,7 @@ import { ShiftChart } from "~/components/chart/shift-chart";
 import { compare } from "~/lib/timescale";
 import { notFound } from "#server/auth.server.ts";
 import { listEditions, loadEdition, viewerOf } from "#server/editions.server.ts";
-import { exhibitsByBoundary } from "#server/exhibits.server.ts";
+import { exhibitsByBoundary } from "#server/exhibits/impact.server.ts";
 import type { Route } from "./+types/editions.compare";
 
 export const meta: Route.MetaFunction = ({ data }) => [

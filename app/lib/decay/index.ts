@@ -5,3 +5,4 @@
  */
 export * from "./equations";
 export * from "./how-we-know";
+export * from "./figures";

@@ -2,7 +2,7 @@
 import { data } from "react-router";
 import { markerPointsGeoJson } from "~/lib/exhibit";
 import { requireMember } from "#server/auth.server.ts";
-import { requireBundle, resultOf } from "#server/exhibits.server.ts";
+import { requireBundle, resultOf } from "#server/exhibits/load.server.ts";
 import type { Route } from "./+types/exhibits.$slug.points-geojson";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

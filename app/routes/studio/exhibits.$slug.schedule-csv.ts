@@ -1,7 +1,7 @@
 // GET /studio/exhibits/:slug/schedule.csv — the marker schedule for fabrication and installation.
 import { scheduleCsv, scheduleRows } from "~/lib/exhibit";
 import { requireMember } from "#server/auth.server.ts";
-import { requireBundle, resultOf } from "#server/exhibits.server.ts";
+import { requireBundle, resultOf } from "#server/exhibits/load.server.ts";
 import type { Route } from "./+types/exhibits.$slug.schedule-csv";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

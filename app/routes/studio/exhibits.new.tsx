@@ -1,35 +1,36 @@
 import { useState } from "react";
 import { data, Form, redirect, useNavigation } from "react-router";
 import { Field, FormMessage, UnitSelect } from "~/components/forms";
+import { PageHeader } from "~/components/page-header";
 import { LengthMediumSchema, NewExhibitSchema, readRouteFile, SettingsSchema, slugify } from "~/lib/exhibit";
 import { MEDIUM_TYPES } from "~/lib/scale/legibility";
 import { AGE_UNITS, LENGTH_UNITS } from "~/lib/units";
 import { parseForm } from "~/lib/validation";
-import { ChartEdition } from "#db/models/index.ts";
-import { requireMember } from "#server/auth.server.ts";
-import { currentEdition, editionIntervals } from "#server/editions.server.ts";
-import { createExhibit, ExhibitError, readExhibitForm, type MediumInput } from "#server/exhibits.server.ts";
+import { requirePermission } from "#server/auth.server.ts";
+import { currentEditionFor, editionIntervals } from "#server/editions.server.ts";
+import { createExhibit, type MediumInput } from "#server/exhibits/commands.server.ts";
+import { pinnableEditions } from "#server/exhibits/list.server.ts";
+import { ExhibitError } from "#server/exhibits/load.server.ts";
+import { readExhibitForm } from "#server/exhibits/revise.server.ts";
 import { noticeHeader } from "#server/session.server.ts";
-import { Op } from "sequelize";
 import type { Route } from "./+types/exhibits.new";
 
 export const meta: Route.MetaFunction = () => [{ title: "New exhibit · Eonscale" }];
 
-
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireMember(request, ["designer"]);
-  const [editions, current] = await Promise.all([ChartEdition.findAll({ where: { status: { [Op.ne]: "draft" } }, order: [["status", "ASC"], ["slug", "DESC"]] }), currentEdition()]);
-  const intervals = current ? await editionIntervals(current.id) : [];
+  const member = await requirePermission(request, "exhibit.edit");
+  const [{ editions, current }, edition] = await Promise.all([pinnableEditions(member.organisation.id), currentEditionFor(member.organisation.id)]);
+  const intervals = edition ? await editionIntervals(edition.id) : [];
   return {
-    editions: editions.map((e) => ({ slug: e.slug, label: e.label, status: e.status })),
-    current: current?.slug ?? null,
+    editions,
+    current,
     // For "span from the base of …": eons, eras and periods of the current edition.
     starts: intervals.filter((i) => ["eon", "era", "period"].includes(i.rank)).map((i) => ({ name: i.name, rank: i.rank, baseMa: i.baseMa })),
   };
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const member = await requireMember(request, ["designer"]);
+  const member = await requirePermission(request, "exhibit.edit");
   const read = await readExhibitForm(request);
   if (!read.ok) return data({ error: read.message, fields: { routeFile: read.message } as Record<string, string> }, { status: 413 });
   const form = read.form;
@@ -72,8 +73,7 @@ export default function NewExhibit({ loaderData, actionData }: Route.ComponentPr
   const busy = useNavigation().state === "submitting";
   return (
     <div className="max-w-3xl">
-      <h1 className="text-3xl">New exhibit</h1>
-      <p className="mt-1 text-ink-soft">Choose the span of time and what it is laid out on. Markers come next.</p>
+      <PageHeader title="New exhibit" lead="Choose the span of time and what it is laid out on. Markers come next." />
       <FormMessage>{actionData?.error}</FormMessage>
       <Form method="post" encType="multipart/form-data" noValidate className="card mt-6">
         <Field label="Title" name="title" required error={f.title} placeholder="e.g. Riverside walk through deep time" />
@@ -81,7 +81,7 @@ export default function NewExhibit({ loaderData, actionData }: Route.ComponentPr
         <div className="mb-4">
           <label htmlFor="editionSlug" className="mb-1 block text-sm font-semibold">Chart edition to pin</label>
           <select id="editionSlug" name="editionSlug" defaultValue={loaderData.current ?? undefined} className="field">
-            {loaderData.editions.map((e) => <option key={e.slug} value={e.slug}>{e.label}{e.status === "current" ? " (current)" : ` (${e.status})`}</option>)}
+            {loaderData.editions.map((e) => <option key={e.slug} value={e.slug}>{e.label}{e.own ? " · your organisation's own" : ""}{e.current ? " (current)" : ` (${e.status})`}</option>)}
           </select>
           {f.editionSlug ? <p className="mt-1 font-sans text-sm text-danger">{f.editionSlug}</p> : null}
         </div>

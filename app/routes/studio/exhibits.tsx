@@ -1,4 +1,6 @@
 import { Form, Link, useSearchParams } from "react-router";
+import { PageHeader } from "~/components/page-header";
+import { can } from "~/lib/permissions";
 import { exhibitListQuery, filterAndSortExhibits, type ExhibitSort } from "~/lib/exhibit";
 import { requireMember } from "#server/auth.server.ts";
 import { listExhibits } from "#server/exhibits/list.server.ts";
@@ -10,7 +12,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const member = await requireMember(request);
   const filters = exhibitListQuery(new URL(request.url).searchParams);
   const all = await listExhibits(member.organisation.id);
-  return { rows: filterAndSortExhibits(all, filters), total: all.length, canEdit: member.role === "designer", filters };
+  return { rows: filterAndSortExhibits(all, filters), total: all.length, canEdit: can(member.subject, "exhibit.edit"), filters };
 }
 
 export default function Exhibits({ loaderData }: Route.ComponentProps) {
@@ -29,13 +31,11 @@ export default function Exhibits({ loaderData }: Route.ComponentProps) {
   );
   return (
     <div>
-      <div className="flex flex-wrap items-end justify-between gap-4">
-        <div>
-          <h1 className="text-3xl">Exhibits</h1>
-          <p className="mt-1 text-ink-soft">Every time-as-distance exhibit of your organisation, with the chart edition it is pinned to.</p>
-        </div>
-        {canEdit ? <Link to="/studio/exhibits/new" className="btn no-underline">New exhibit</Link> : null}
-      </div>
+      <PageHeader
+        title="Exhibits"
+        lead="Every time-as-distance exhibit of your organisation, with the chart edition it is pinned to."
+        actions={canEdit ? <Link to="/studio/exhibits/new" className="btn no-underline">New exhibit</Link> : null}
+      />
       <Form method="get" className="mt-6 flex flex-wrap items-end gap-3 font-sans text-sm">
         <div>
           <label htmlFor="q" className="mb-1 block font-semibold">Title contains</label>

@@ -1,8 +1,8 @@
 import { Link } from "react-router";
-import { ROLE_LABELS, ROLE_SUMMARIES, type Role } from "~/lib/roles";
+import { PageHeader } from "~/components/page-header";
+import { ROLE_SUMMARIES, rolesInWords, type Role } from "~/lib/roles";
 import { requireMember } from "#server/auth.server.ts";
-import { ChartEdition, Exhibit, Invitation, Membership } from "#db/models/index.ts";
-import { Op } from "sequelize";
+import { studioCounts, type StudioCounts } from "#server/studio.server.ts";
 import type { Route } from "./+types/home";
 
 export const meta: Route.MetaFunction = () => [{ title: "Studio · Eonscale" }];
@@ -10,19 +10,13 @@ export const meta: Route.MetaFunction = () => [{ title: "Studio · Eonscale" }];
 export async function loader({ request }: Route.LoaderArgs) {
   const member = await requireMember(request);
   const url = new URL(request.url);
-  const orgId = member.organisation.id;
-  const [members, pending, exhibits, recheck] = await Promise.all([
-    Membership.count({ where: { organisationId: orgId } }),
-    Invitation.count({ where: { organisationId: orgId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } } }),
-    Exhibit.count({ where: { organisationId: orgId } }),
-    Exhibit.count({ where: { organisationId: orgId }, include: [{ model: ChartEdition, as: "edition", required: true, where: { status: { [Op.ne]: "current" } } }] }),
-  ]);
+  const counts = await studioCounts(member.organisation.id);
   return {
     name: member.user.name,
     organisation: member.organisation.name,
-    role: member.role,
+    roles: member.roles,
     welcome: url.searchParams.get("welcome") === "1",
-    counts: { members, pending, exhibits, recheck },
+    counts,
   };
 }
 
@@ -33,7 +27,7 @@ interface NextStep {
   cta?: string;
 }
 
-function stepsFor(role: Role, counts: { members: number; pending: number; exhibits: number; recheck: number }): NextStep[] {
+function stepsFor(role: Role, counts: StudioCounts): NextStep[] {
   switch (role) {
     case "admin":
       return [
@@ -63,21 +57,24 @@ function stepsFor(role: Role, counts: { members: number; pending: number; exhibi
 }
 
 export default function StudioHome({ loaderData }: Route.ComponentProps) {
-  const { name, organisation, role, welcome, counts } = loaderData;
+  const { name, organisation, roles, welcome, counts } = loaderData;
+  // Someone holding several roles sees every role's next steps once.
+  const steps = [...new Map(roles.flatMap((r) => stepsFor(r, counts)).map((s) => [s.title, s])).values()];
   return (
     <div>
       {welcome ? (
         <p role="status" className="mb-6 rounded border-l-4 border-ok bg-green-50 p-3 font-sans text-sm text-ok">
-          Welcome to {organisation}. You have joined as {ROLE_LABELS[role].toLowerCase()}.
+          Welcome to {organisation}. You have joined as {rolesInWords(roles, { lower: true })}.
         </p>
       ) : null}
-      <h1 className="text-3xl">Good to see you, {name.split(" ")[0]}</h1>
-      <p className="mt-2 text-ink-soft">
-        {organisation} · {ROLE_LABELS[role]} — {ROLE_SUMMARIES[role]}
-      </p>
+      <PageHeader title={`Good to see you, ${name.split(" ")[0]}`}>
+        <p className="mt-2 text-ink-soft">
+          {organisation} · {rolesInWords(roles)} — {roles.map((r) => ROLE_SUMMARIES[r]).join(" ")}
+        </p>
+      </PageHeader>
       <h2 className="mt-8 text-xl">What you can do next</h2>
       <ul className="mt-4 grid gap-4 md:grid-cols-2">
-        {stepsFor(role, counts).map((s) => (
+        {steps.map((s) => (
           <li key={s.title} className="card">
             <h3 className="text-lg">{s.title}</h3>
             <p className="mt-2 text-ink-soft">{s.text}</p>

@@ -4,7 +4,7 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { FormMessage } from "~/components/forms";
 import { EventForm, formValues, ScopeBadge, VerificationNote, type EventFormValues } from "~/components/dated-events/event-form";
-import { decaySystemsForMethod, howWeKnow } from "~/lib/decay";
+import { decaySystemsForMethod, howWeKnow, decayFigures } from "~/lib/decay";
 import { AGE_KIND_HINTS, AGE_KIND_LABELS, DatedEventFormSchema, displayUnit, fromMa } from "~/lib/dated-events";
 import { parseForm } from "~/lib/validation";
 import { User } from "#db/models/index.ts";
@@ -54,14 +54,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     .map((s) => ({
       slug: s.slug,
       citation: s.citation,
-      ...howWeKnow(Number(event.ageMa) * 1e6, {
-        parent: s.parent,
-        daughter: s.daughter,
-        halfLifeYears: Number(s.halfLifeYears),
-        halfLifeUncertaintyYears: s.halfLifeUncertaintyYears === null ? null : Number(s.halfLifeUncertaintyYears),
-        decayConstantPerYear: Number(s.decayConstantPerYear),
-        branchConstantPerYear: s.branchConstantPerYear === null ? null : Number(s.branchConstantPerYear),
-      }),
+      ...howWeKnow(Number(event.ageMa) * 1e6, decayFigures(s)),
     }));
   return {
     event,

@@ -4,7 +4,7 @@
 import { useMemo, useState } from "react";
 import { Link } from "react-router";
 import { VerificationNote } from "~/components/dated-events/event-form";
-import { formatScientific, howWeKnow } from "~/lib/decay";
+import { formatScientific, howWeKnow, decayFigures } from "~/lib/decay";
 import { AGE_INPUT_UNITS, DECIMAL_PATTERN, formatYears, toMa, type AgeInputUnit } from "~/lib/dated-events";
 import { requireMember } from "#server/auth.server.ts";
 import { listDecaySystems } from "#server/dated-events.server.ts";
@@ -79,14 +79,7 @@ export default function DecaySystems({ loaderData }: Route.ComponentProps) {
               const left =
                 ageYears === null
                   ? null
-                  : howWeKnow(ageYears, {
-                      parent: s.parent,
-                      daughter: s.daughter,
-                      halfLifeYears: Number(s.halfLifeYears),
-                      halfLifeUncertaintyYears: s.halfLifeUncertaintyYears === null ? null : Number(s.halfLifeUncertaintyYears),
-                      decayConstantPerYear: Number(s.decayConstantPerYear),
-                      branchConstantPerYear: s.branchConstantPerYear === null ? null : Number(s.branchConstantPerYear),
-                    });
+                  : howWeKnow(ageYears, decayFigures(s));
               return (
                 <tr key={s.slug} className="border-b border-rule align-top last:border-0">
                   <th scope="row" className="p-3 text-left">

@@ -1,0 +1,85 @@
+// The composer page's data, and its commands, one per intent of app/lib/exhibit/intents.ts: each runs the matching
+// change and returns the notice the designer sees after the redirect.
+import { formatAgeMa, formatLength, readRouteFile, type ComposerCommand, type ComposerView } from "../../app/lib/exhibit/index.ts";
+import { toYears } from "../../app/lib/units/index.ts";
+import { addBoundaries, addCustom, addEvent, addInset, editMarker, removeInset, removeMarker, replaceRoute, updateSettings } from "./commands.server.ts";
+import { renderMarkdown } from "../markdown.server.ts";
+import { impactFor, repinToCurrent } from "./impact.server.ts";
+import { ExhibitError, howWeKnowFor, requireBundle } from "./load.server.ts";
+import type { Actor } from "./revise.server.ts";
+
+const ma = (value: number, unit: Parameters<typeof toYears>[0]["unit"]) => toYears({ value, unit }) / 1e6;
+
+export async function runComposerCommand(actor: Actor, slug: string, command: ComposerCommand): Promise<string> {
+  const revision = command.revision;
+  switch (command.intent) {
+    case "settings": {
+      const c = command;
+      const medium = c.mediumKind === "length" ? { kind: "length" as const, lengthValue: c.lengthValue, lengthUnit: c.lengthUnit, panelWidthValue: c.panelWidthValue, panelWidthUnit: c.panelWidthUnit } : undefined;
+      await updateSettings(actor, slug, revision, c, medium);
+      return "Settings saved.";
+    }
+    case "add-boundaries": {
+      const { result } = await addBoundaries(actor, slug, revision, { intervalName: command.intervalName, rank: command.rank });
+      return result.length === 1 ? `Added the base of the ${result[0]}.` : `Added ${result.length} boundaries.`;
+    }
+    case "add-event": {
+      const { result } = await addEvent(actor, slug, revision, command.eventId);
+      return `Added “${result}”.`;
+    }
+    case "add-custom": {
+      const c = command;
+      const uncertaintyMa = c.uncertaintyValue == null ? null : ma(c.uncertaintyValue, c.ageUnit);
+      await addCustom(actor, slug, revision, { label: c.label, ageMa: ma(c.ageValue, c.ageUnit), uncertaintyMa, source: c.source, text: c.text });
+      return `Added “${c.label}”.`;
+    }
+    case "edit-marker":
+      await editMarker(actor, slug, revision, command.markerId, command.label, command.text, command.decaySystemId ?? null);
+      return "Marker saved.";
+    case "remove-marker": {
+      const { result } = await removeMarker(actor, slug, revision, command.markerId);
+      return `Removed “${result}”.`;
+    }
+    case "add-inset": {
+      const i = command;
+      const olderMa = ma(i.olderValue, i.olderUnit);
+      const youngerMa = ma(i.youngerValue, i.youngerUnit);
+      const label = i.label ?? `${formatAgeMa(olderMa)} to ${formatAgeMa(youngerMa)} at ${i.magnification.toLocaleString("en-GB")}×`;
+      await addInset(actor, slug, revision, { olderMa, youngerMa, magnification: i.magnification, label });
+      return `Inset added: ${label}.`;
+    }
+    case "remove-inset":
+      await removeInset(actor, slug, revision, command.insetId);
+      return "Inset removed.";
+    case "replace-route": {
+      const file = command.routeFile;
+      const r = readRouteFile(file.name, await file.text());
+      if (!r.ok) throw new ExhibitError(r.message, "routeFile");
+      await replaceRoute(actor, slug, revision, { kind: "route", geometry: r.geometry, lengthMetres: r.lengthMetres, vertexCount: r.vertexCount, sourceName: file.name });
+      return `Route replaced by ${file.name} (${formatLength(r.lengthMetres, "metric", 0.01)}); every marker moved with it.`;
+    }
+    case "repin": {
+      const { result } = await repinToCurrent(actor, slug, revision);
+      return `Re-pinned from ${result.from} to ${result.to}; ${result.moved} marker${result.moved === 1 ? "" : "s"} changed. The exhibit needs review again.`;
+    }
+  }
+}
+
+/** The composer page's data: the preview is computed in the browser; the server adds the impact report and "how we know". */
+export async function composerView(organisationId: number, slug: string, canEdit: boolean): Promise<ComposerView> {
+  const bundle = await requireBundle(organisationId, slug);
+  const [impact, decay] = await Promise.all([impactFor(bundle), howWeKnowFor(bundle)]);
+  const decayOf = new Map(bundle.markerRows.map((r) => [String(r.id), r.decaySystemId]));
+  const e = bundle.exhibit;
+  return {
+    exhibit: { title: e.title, slug: e.slug, status: e.status, revision: e.revision, updatedAt: e.updatedAt.toISOString(), updatedBy: e.updatedBy?.name ?? null },
+    edition: { slug: bundle.edition.slug, label: bundle.edition.label, status: bundle.edition.status },
+    spec: bundle.spec,
+    markers: bundle.markers.map((m) => ({ ...m, html: renderMarkdown(m.text), howWeKnow: decay.byMarker.get(m.id) ?? null, decaySystemId: decayOf.get(m.id) ?? null })),
+    decaySystems: decay.systems,
+    insetIds: bundle.insets.map((i) => i.id),
+    intervals: bundle.intervals.map((i) => ({ name: i.name, rank: i.rank, baseMa: i.baseMa, topMa: i.topMa, color: i.color })),
+    impact,
+    canEdit,
+  };
+}
