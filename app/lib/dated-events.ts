@@ -7,6 +7,10 @@
  * multiply floating-point numbers.
  */
 import { z } from "zod";
+import { SLUG_PATTERN, slugify } from "./slug";
+import { AGE_UNITS, type AgeUnit } from "./units";
+
+export { SLUG_PATTERN, slugify };
 
 export const AGE_KINDS = ["point", "approximate", "onset", "minimum"] as const;
 export type AgeKind = (typeof AGE_KINDS)[number];
@@ -29,13 +33,10 @@ export const AGE_KIND_HINTS: Record<AgeKind, string> = {
 export const VERIFICATIONS = ["checked against the source", "seen quoted by a secondary source", "from memory"] as const;
 export type Verification = (typeof VERIFICATIONS)[number];
 
-export const AGE_INPUT_UNITS = ["a", "ka", "Ma", "Ga"] as const;
-export type AgeInputUnit = (typeof AGE_INPUT_UNITS)[number];
-
 /** Powers of ten from the unit to Ma (a → Ma is 10⁻⁶). */
-const UNIT_EXPONENT_TO_MA: Record<AgeInputUnit, number> = { a: -6, ka: -3, Ma: 0, Ga: 3 };
+const UNIT_EXPONENT_TO_MA: Record<AgeUnit, number> = { a: -6, ka: -3, Ma: 0, Ga: 3 };
 
-export const AGE_UNIT_WORDS: Record<AgeInputUnit, string> = { a: "years", ka: "thousand years", Ma: "million years", Ga: "billion years" };
+export const AGE_UNIT_WORDS: Record<AgeUnit, string> = { a: "years", ka: "thousand years", Ma: "million years", Ga: "billion years" };
 
 /** Oldest age the library accepts: a little over the age of the Universe (13,787 ± 20 Ma). */
 export const MAX_AGE_MA = 14000;
@@ -88,12 +89,12 @@ export function shiftDecimal(value: string, places: number): string {
 }
 
 /** An age typed in a unit, as an exact decimal string in Ma. */
-export function toMa(value: string, unit: AgeInputUnit): string {
+export function toMa(value: string, unit: AgeUnit): string {
   return shiftDecimal(value, UNIT_EXPONENT_TO_MA[unit]);
 }
 
 /** An exact Ma string in another unit. */
-export function fromMa(ma: string, unit: AgeInputUnit): string {
+export function fromMa(ma: string, unit: AgeUnit): string {
   return shiftDecimal(ma, -UNIT_EXPONENT_TO_MA[unit]);
 }
 
@@ -108,7 +109,7 @@ export function plainDecimal(value: string | number): string {
 }
 
 /** The unit an age reads best in: Ma from 1 Ma up, ka from 1 ka, else years. */
-export function displayUnit(ma: string): AgeInputUnit {
+export function displayUnit(ma: string): AgeUnit {
   const n = Number(ma);
   if (n >= 1) return "Ma";
   if (n >= 0.001) return "ka";
@@ -116,7 +117,7 @@ export function displayUnit(ma: string): AgeInputUnit {
 }
 
 export interface AgeDisplay {
-  unit: AgeInputUnit;
+  unit: AgeUnit;
   age: string;
   uncertainty: string | null;
   /** "4567.30 ± 0.16 Ma", "315 ± 34 ka", "about 5.2 ka", "at least 4510 Ma". */
@@ -136,14 +137,15 @@ export function formatAge(ageMa: string | number, uncertaintyMa: string | number
 }
 
 /**
- * A duration in years (exact decimal string, e.g. a half-life) in the unit it reads best in:
- * Ga from 1 Ga, Ma from 1 Ma, ka from 100 ka, else years ("4.4683 Ga", "705 ka", "5730 a").
+ * A duration in years (exact decimal string, e.g. a half-life) in the unit symbol it reads best in,
+ * every stated digit kept: Ga from 1 Ga, Ma from 1 Ma, ka from 100 ka, else years ("4.4683 Ga",
+ * "705 ka", "5730 a"). Years in words, rounded, for sentences: formatYears in app/lib/scale/format.ts.
  */
-export function formatYears(years: string | number, uncertaintyYears: string | number | null = null): string {
+export function formatExactYears(years: string | number, uncertaintyYears: string | number | null = null): string {
   const y = plainDecimal(years);
   const u = uncertaintyYears === null ? null : plainDecimal(uncertaintyYears);
   const n = Number(y);
-  const unit: AgeInputUnit = n >= 1e9 ? "Ga" : n >= 1e6 ? "Ma" : n >= 1e5 ? "ka" : "a";
+  const unit: AgeUnit = n >= 1e9 ? "Ga" : n >= 1e6 ? "Ma" : n >= 1e5 ? "ka" : "a";
   const shift = (s: string) => shiftDecimal(s, -{ a: 0, ka: 3, Ma: 6, Ga: 9 }[unit]);
   return u === null ? `${shift(y)} ${unit}` : `${shift(y)} ± ${shift(u)} ${unit}`;
 }
@@ -151,21 +153,6 @@ export function formatYears(years: string | number, uncertaintyYears: string | n
 // ---------------------------------------------------------------------------------------------
 // The form
 // ---------------------------------------------------------------------------------------------
-
-export const SLUG_PATTERN = /^[a-z0-9]+(-[a-z0-9]+)*$/;
-
-/** "End-Permian mass extinction (Meishan)" → "end-permian-mass-extinction-meishan". */
-export function slugify(text: string): string {
-  return text
-    .normalize("NFKD")
-    .replace(/[\u0300-\u036f]/g, "")
-    .toLowerCase()
-    .replace(/[łđøæœß]/g, (c) => ({ ł: "l", đ: "d", ø: "o", æ: "ae", œ: "oe", ß: "ss" })[c] ?? c)
-    .replace(/[^a-z0-9]+/g, "-")
-    .replace(/^-+|-+$/g, "")
-    .slice(0, LIBRARY_LIMITS.slug)
-    .replace(/-+$/, "");
-}
 
 /** "https://doi.org/10.1038/35051550", "doi:10.1038/35051550" → "10.1038/35051550". */
 export function normaliseDoi(input: string): string {
@@ -213,7 +200,7 @@ export const DatedEventFormSchema = z
       .min(10, { error: "Summary: write at least 10 characters — a sentence a visitor can read." })
       .max(LIBRARY_LIMITS.summary, { error: `Summary: keep it to ${LIBRARY_LIMITS.summary} characters; put the detail in the citation.` }),
     ageValue: decimalField("Age").refine((s) => s !== "", { error: "Age: enter the age, e.g. 4404 (Ma) or 315 (ka)." }),
-    ageUnit: z.enum(AGE_INPUT_UNITS, { error: "Age unit: choose a, ka, Ma or Ga." }),
+    ageUnit: z.enum(AGE_UNITS, { error: "Age unit: choose a, ka, Ma or Ga." }),
     uncertaintyValue: decimalField("Uncertainty").optional(),
     ageKind: z.enum(AGE_KINDS, { error: "Kind of age: choose dated point, approximate, onset or minimum." }),
     citation: text("Citation: give the full reference.")
@@ -249,7 +236,7 @@ export const DatedEventFormSchema = z
   })
   .transform((v) => ({
     name: v.name,
-    slug: v.slug ? v.slug : slugify(v.name),
+    slug: v.slug ? v.slug : slugify(v.name, LIBRARY_LIMITS.slug),
     summary: v.summary,
     ageMa: toMa(v.ageValue, v.ageUnit),
     uncertaintyMa: v.uncertaintyValue ? toMa(v.uncertaintyValue, v.ageUnit) : null,

@@ -1,7 +1,7 @@
 import { data, Form, Link, redirect } from "react-router";
 import { Field, FormMessage } from "~/components/forms";
 import { Wordmark } from "~/components/site-header";
-import { ROLE_LABELS, ROLE_SUMMARIES } from "~/lib/roles";
+import { ROLE_SUMMARIES, rolesInWords } from "~/lib/roles";
 import { AccountError, acceptInvitation, checkInvitation } from "#server/accounts.server.ts";
 import { startSession } from "#server/auth.server.ts";
 import type { Route } from "./+types/invite";
@@ -14,7 +14,7 @@ export async function loader({ params }: Route.LoaderArgs) {
   return {
     valid: true as const,
     email: state.invitation.email,
-    role: state.invitation.role,
+    roles: state.invitation.roles,
     organisation: state.organisation.name,
     hasAccount: Boolean(state.existingUser),
   };
@@ -47,7 +47,7 @@ export default function Invite({ loaderData, actionData }: Route.ComponentProps)
         <>
           <h1 className="mt-8 text-3xl">Join {loaderData.organisation}</h1>
           <p className="mt-2 text-ink-soft">
-            You are invited as <strong>{ROLE_LABELS[loaderData.role].toLowerCase()}</strong>: {ROLE_SUMMARIES[loaderData.role]}
+            You are invited as <strong>{rolesInWords(loaderData.roles, { lower: true })}</strong>: {loaderData.roles.map((r) => ROLE_SUMMARIES[r]).join(" ")}
           </p>
           <div className="card mt-6">
             {actionData?.field === "_form" ? <FormMessage>{actionData.error}</FormMessage> : null}

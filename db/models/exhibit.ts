@@ -9,15 +9,13 @@ import {
 } from "sequelize";
 import type { Sequelize } from "sequelize";
 import type { LegibilitySettings, UnitsPreference } from "../../app/lib/exhibit/types.ts";
-import type { AgeUnit } from "../../app/lib/units/index.ts";
+import { AGE_UNITS, type AgeUnit } from "../../app/lib/units/index.ts";
 import type { ChartEdition } from "./chart-edition.ts";
 import type { ExhibitMedium } from "./exhibit-medium.ts";
 import type { Inset } from "./inset.ts";
 import type { Marker } from "./marker.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
-
-export const AGE_UNIT_VALUES = ["a", "ka", "Ma", "Ga"] as const;
 
 /** A time-as-distance exhibit of one organisation, pinned to one chart edition. */
 export class Exhibit extends Model<InferAttributes<Exhibit>, InferCreationAttributes<Exhibit>> {
@@ -57,9 +55,9 @@ export function initExhibit(sequelize: Sequelize) {
       slug: { type: DataTypes.STRING(100), allowNull: false },
       editionId: { type: DataTypes.INTEGER, allowNull: false },
       spanOlderValue: { type: DataTypes.DECIMAL, allowNull: false },
-      spanOlderUnit: { type: DataTypes.ENUM(...AGE_UNIT_VALUES), allowNull: false },
+      spanOlderUnit: { type: DataTypes.ENUM(...AGE_UNITS), allowNull: false },
       spanYoungerValue: { type: DataTypes.DECIMAL, allowNull: false },
-      spanYoungerUnit: { type: DataTypes.ENUM(...AGE_UNIT_VALUES), allowNull: false },
+      spanYoungerUnit: { type: DataTypes.ENUM(...AGE_UNITS), allowNull: false },
       unitsPreference: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
       legibility: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       status: { type: DataTypes.ENUM("draft"), allowNull: false, defaultValue: "draft" },

@@ -3,7 +3,6 @@ import { useId } from "react";
 import { Form } from "react-router";
 import { Field, FormMessage } from "~/components/forms";
 import {
-  AGE_INPUT_UNITS,
   AGE_KIND_HINTS,
   AGE_KIND_LABELS,
   AGE_KINDS,
@@ -12,6 +11,7 @@ import {
   type AgeKind,
   type Verification,
 } from "~/lib/dated-events";
+import { AGE_UNITS } from "~/lib/units";
 
 /** The form's text values (what the inputs show). */
 export interface EventFormValues {
@@ -133,7 +133,7 @@ export function EventForm({
           <div>
             <label htmlFor={`${ageId}-unit`} className="mb-1 block font-sans text-sm">Unit</label>
             <select id={`${ageId}-unit`} name="ageUnit" defaultValue={values.ageUnit} className="field w-auto min-w-20" aria-invalid={errors.ageUnit ? true : undefined}>
-              {AGE_INPUT_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
+              {AGE_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
             </select>
           </div>
         </div>

@@ -10,6 +10,7 @@ import {
   LN2,
   type WithUncertainty,
 } from "./equations";
+import { formatYears } from "../scale/format";
 
 /** What the helper needs of a decay system (the DecaySystem row's fields, as numbers). */
 export interface DecaySystemFigures {
@@ -68,13 +69,6 @@ export function formatPercent(fraction: number): string {
   return `${mantissa} × 10${superscript(Number(exponent))} %`;
 }
 
-/** "4,404 million years", "315,000 years", "11,700 years", "2.8 billion years". */
-export function formatYearsInWords(years: number): string {
-  const fmt = (x: number) => Number(x.toPrecision(4)).toLocaleString("en-GB", { maximumFractionDigits: 3 });
-  if (years >= 1e9) return `${fmt(years / 1e9)} billion years`;
-  if (years >= 1e6) return `${fmt(years / 1e6)} million years`;
-  return `${fmt(years)} years`;
-}
 
 /**
  * The fraction of the parent left after `ageYears`, and what that means. Uses the stated total λ
@@ -92,7 +86,7 @@ export function howWeKnow(ageYears: number, system: DecaySystemFigures): HowWeKn
   const percentText = formatPercent(fraction.value);
   const left = fraction.value === 0 ? "practically none" : `about ${percentText}`;
   const sentence =
-    `After ${formatYearsInWords(ageYears)} — ${Number(halfLives.toPrecision(3))} half-lives of ${system.parent} — ` +
+    `After ${formatYears(ageYears, 4)} — ${Number(halfLives.toPrecision(3))} half-lives of ${system.parent} — ` +
     `${left} of the ${system.parent} that was there at the start is left; the rest has become ${system.daughter}` +
     `${system.branchConstantPerYear ? " and other daughters" : ""}.`;
   return { parent: system.parent, daughter: system.daughter, ageYears, halfLives, fractionRemaining: fraction, daughterPerParent, percentText, sentence };

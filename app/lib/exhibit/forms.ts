@@ -2,8 +2,9 @@
 // preview uses the same rules for its live messages.
 import { z } from "zod";
 import { MEDIUM_TYPES } from "../scale/legibility";
-import { AGE_UNITS, LENGTH_UNITS } from "../units";
+import { AGE_UNITS, LENGTH_UNITS, YEARS_PER_AGE_UNIT as f } from "../units";
 import { RANKS } from "../timescale/types";
+import { SLUG_PATTERN, slugify } from "../slug";
 import { UNITS_PREFERENCES } from "./types";
 
 const blankToUndefined = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
@@ -33,18 +34,10 @@ export const SlugSchema = z
   .string({ error: "Give the exhibit a web address (slug)." })
   .trim()
   .toLowerCase()
-  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: "Use lower-case letters, digits and single hyphens, like riverside-walk." })
+  .regex(SLUG_PATTERN, { error: "Use lower-case letters, digits and single hyphens, like riverside-walk." })
   .max(100, { error: "Keep the slug under 100 characters." });
 
-export function slugify(title: string): string {
-  return title
-    .toLowerCase()
-    .normalize("NFKD")
-    .replace(/[\u0300-\u036f]/g, "")
-    .replace(/[^a-z0-9]+/g, "-")
-    .replace(/^-+|-+$/g, "")
-    .slice(0, 100);
-}
+export { slugify };
 
 /** The span and medium settings (new exhibit and the settings form of the composer). */
 export const SettingsSchema = z
@@ -60,7 +53,6 @@ export const SettingsSchema = z
     minSpacingMm: optionalNumber("the smallest marker spacing", { positive: true }),
   })
   .superRefine((v, ctx) => {
-    const f = { a: 1, ka: 1e3, Ma: 1e6, Ga: 1e9 } as const;
     if (!(v.spanOlderValue * f[v.spanOlderUnit] > v.spanYoungerValue * f[v.spanYoungerUnit])) {
       ctx.addIssue({ code: "custom", path: ["spanOlderValue"], message: "The older end of the span must be older than the younger end." });
     }
@@ -116,7 +108,6 @@ export const InsetFormSchema = z
     label: z.preprocess(blankToUndefined, z.string().trim().max(200, { error: "Keep the label under 200 characters." }).optional()),
   })
   .superRefine((v, ctx) => {
-    const f = { a: 1, ka: 1e3, Ma: 1e6, Ga: 1e9 } as const;
     if (!(v.olderValue * f[v.olderUnit] > v.youngerValue * f[v.youngerUnit])) {
       ctx.addIssue({ code: "custom", path: ["olderValue"], message: "The inset's older age must be older than its younger age." });
     }

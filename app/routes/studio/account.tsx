@@ -1,6 +1,7 @@
 import { data, Form, redirect } from "react-router";
 import { Field, FormMessage } from "~/components/forms";
-import { ROLE_LABELS } from "~/lib/roles";
+import { PageHeader } from "~/components/page-header";
+import { rolesInWords } from "~/lib/roles";
 import { parseForm } from "~/lib/validation";
 import { AccountError, changePassword, ChangePasswordSchema } from "#server/accounts.server.ts";
 import { requireMember } from "#server/auth.server.ts";
@@ -14,7 +15,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return {
     name: member.user.name,
     email: member.user.email,
-    memberships: member.memberships.map((m) => ({ organisation: m.organisation!.name, role: m.role })),
+    memberships: member.memberships.map((m) => ({ organisation: m.organisation!.name, roles: m.roles })),
   };
 }
 
@@ -37,13 +38,13 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
   return (
     <div className="grid gap-8 md:grid-cols-2">
       <section>
-        <h1 className="text-3xl">Your account</h1>
+        <PageHeader title="Your account" />
         <dl className="card mt-6 grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 font-sans text-sm">
           <dt className="font-semibold">Name</dt><dd>{loaderData.name}</dd>
           <dt className="font-semibold">E-mail</dt><dd>{loaderData.email}</dd>
           <dt className="font-semibold">Organisations</dt>
           <dd>
-            <ul>{loaderData.memberships.map((m) => <li key={m.organisation}>{m.organisation} — {ROLE_LABELS[m.role]}</li>)}</ul>
+            <ul>{loaderData.memberships.map((m) => <li key={m.organisation}>{m.organisation} — {rolesInWords(m.roles)}</li>)}</ul>
           </dd>
         </dl>
       </section>

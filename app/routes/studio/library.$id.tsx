@@ -13,7 +13,7 @@ import { canManageLibrary, deleteEvent, findVisibleEvent, LIBRARY_MANAGERS, Libr
 import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/library.$id";
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.event.name ?? "Entry"} · Event library · Eonscale` }];
+export const meta: Route.MetaFunction = ({ loaderData }) => [{ title: `${loaderData?.event.name ?? "Entry"} · Event library · Eonscale` }];
 
 function idFrom(params: { id?: string }): number {
   const id = Number(params.id);

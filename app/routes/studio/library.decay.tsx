@@ -5,7 +5,8 @@ import { useMemo, useState } from "react";
 import { Link } from "react-router";
 import { VerificationNote } from "~/components/dated-events/event-form";
 import { formatScientific, howWeKnow, decayFigures } from "~/lib/decay";
-import { AGE_INPUT_UNITS, DECIMAL_PATTERN, formatYears, toMa, type AgeInputUnit } from "~/lib/dated-events";
+import { DECIMAL_PATTERN, formatExactYears, toMa } from "~/lib/dated-events";
+import { AGE_UNITS, type AgeUnit } from "~/lib/units";
 import { requireMember } from "#server/auth.server.ts";
 import { listDecaySystems } from "#server/dated-events.server.ts";
 import type { Route } from "./+types/library.decay";
@@ -28,7 +29,7 @@ function isotope(label: string) {
 export default function DecaySystems({ loaderData }: Route.ComponentProps) {
   const { systems } = loaderData;
   const [age, setAge] = useState("66.043");
-  const [unit, setUnit] = useState<AgeInputUnit>("Ma");
+  const [unit, setUnit] = useState<AgeUnit>("Ma");
   const ageYears = useMemo(() => {
     const v = age.trim();
     if (!DECIMAL_PATTERN.test(v)) return null;
@@ -52,8 +53,8 @@ export default function DecaySystems({ loaderData }: Route.ComponentProps) {
           </div>
           <div>
             <label htmlFor="calc-unit" className="mb-1 block text-sm font-semibold">Unit</label>
-            <select id="calc-unit" value={unit} onChange={(e) => setUnit(e.target.value as AgeInputUnit)} className="field w-auto">
-              {AGE_INPUT_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
+            <select id="calc-unit" value={unit} onChange={(e) => setUnit(e.target.value as AgeUnit)} className="field w-auto">
+              {AGE_UNITS.map((u) => <option key={u} value={u}>{u}</option>)}
             </select>
           </div>
           <p id="calc-help" className="pb-2 font-sans text-sm text-ink-soft">
@@ -86,7 +87,7 @@ export default function DecaySystems({ loaderData }: Route.ComponentProps) {
                     <span className="text-base">{isotope(s.parent)} → {isotope(s.daughter)}</span>
                     <div className="mt-1 max-w-56 font-normal text-ink-soft">{s.decayMode}</div>
                   </th>
-                  <td className="whitespace-nowrap p-3 text-right figures">{formatYears(s.halfLifeYears, s.halfLifeUncertaintyYears)}</td>
+                  <td className="whitespace-nowrap p-3 text-right figures">{formatExactYears(s.halfLifeYears, s.halfLifeUncertaintyYears)}</td>
                   <td className="whitespace-nowrap p-3 text-right figures">
                     {formatScientific(Number(s.decayConstantPerYear))} a⁻¹
                     <div className="text-xs text-ink-soft">{s.decayConstantStated ? "as stated by the source" : "ln 2 / half-life"}</div>

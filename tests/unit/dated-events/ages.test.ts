@@ -1,6 +1,6 @@
 // Exact decimal ages, their display and the dated-event form schema (pure).
 import { describe, expect, it } from "vitest";
-import { DatedEventFormSchema, formatAge, formatYears, fromMa, normaliseDoi, shiftDecimal, slugify, toMa } from "../../../app/lib/dated-events";
+import { DatedEventFormSchema, formatAge, formatExactYears, fromMa, normaliseDoi, shiftDecimal, slugify, toMa } from "../../../app/lib/dated-events";
 import { SEED_DATED_EVENTS } from "../../../db/data/dated-events/dated-events.ts";
 
 describe("exact decimals", () => {
@@ -27,10 +27,10 @@ describe("exact decimals", () => {
   });
 
   it("shows half-lives in a fitting unit", () => {
-    expect(formatYears("4468300000", "4800000")).toBe("4.4683 ± 0.0048 Ga");
-    expect(formatYears("703810000", "960000")).toBe("703.81 ± 0.96 Ma");
-    expect(formatYears("705000", "24000")).toBe("705 ± 24 ka");
-    expect(formatYears("5730", "40")).toBe("5730 ± 40 a");
+    expect(formatExactYears("4468300000", "4800000")).toBe("4.4683 ± 0.0048 Ga");
+    expect(formatExactYears("703810000", "960000")).toBe("703.81 ± 0.96 Ma");
+    expect(formatExactYears("705000", "24000")).toBe("705 ± 24 ka");
+    expect(formatExactYears("5730", "40")).toBe("5730 ± 40 a");
   });
 
   it("makes slugs and tidies DOIs", () => {

@@ -4,7 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { SEED_DATED_EVENTS } from "../../../db/data/dated-events/dated-events.ts";
 import { SEED_DECAY_SYSTEMS } from "../../../db/data/dated-events/decay-systems.ts";
-import { formatYears, VERIFICATIONS } from "../../../app/lib/dated-events";
+import { formatExactYears, VERIFICATIONS } from "../../../app/lib/dated-events";
 
 const event = (slug: string) => {
   const e = SEED_DATED_EVENTS.find((x) => x.slug === slug);
@@ -98,7 +98,7 @@ describe("decay-system corrections", () => {
     // Villa et al. 2020, Geochimica et Cosmochimica Acta 285, 70–77 (value from the issue; paper not reached).
     const s = system("sm147-nd143");
     expect([s.halfLifeYears, s.halfLifeUncertaintyYears]).toEqual(["106250000000", "380000000"]);
-    expect(formatYears(s.halfLifeYears, s.halfLifeUncertaintyYears)).toBe("106.25 ± 0.38 Ga");
+    expect(formatExactYears(s.halfLifeYears, s.halfLifeUncertaintyYears)).toBe("106.25 ± 0.38 Ga");
     expect(s.citation).toMatch(/Villa, I\.M\..*\(2020\)/);
     expect(s.notes).toMatch(/Conventional value.*6\.54 × 10⁻¹² a⁻¹ \(Lugmair & Marti 1978\)/);
     expect(s.notes).not.toMatch(/105\.99/);
@@ -107,7 +107,7 @@ describe("decay-system corrections", () => {
   it("C-14: the evaluated 5700 ± 30 a is the half-life; 5730 (Cambridge) and 5568 (Libby) are conventions", () => {
     // Evaluated nuclear data (ENSDF via NNDC) 5700 ± 30 a; TUNL compilation: Godwin 1962 5730 ± 40, Libby 5568 ± 30.
     const s = system("c14-n14");
-    expect(formatYears(s.halfLifeYears, s.halfLifeUncertaintyYears)).toBe("5700 ± 30 a");
+    expect(formatExactYears(s.halfLifeYears, s.halfLifeUncertaintyYears)).toBe("5700 ± 30 a");
     expect(s.notes).toMatch(/“Cambridge” half-life 5730 ± 40 a/);
     expect(s.notes).toMatch(/Libby half-life 5568 ± 30 a/);
   });
