@@ -8,7 +8,7 @@ import {
   type NonAttribute,
 } from "sequelize";
 import type { Sequelize } from "sequelize";
-import { RANKS, type Rank } from "../../app/lib/timescale/types.ts";
+import { BOUNDARY_KINDS, RANKS, type BoundaryKind, type Rank } from "../../app/lib/timescale/types.ts";
 import type { ChartEdition } from "./chart-edition.ts";
 
 /**
@@ -29,6 +29,8 @@ export class Interval extends Model<InferAttributes<Interval>, InferCreationAttr
   declare color: string;
   /** true / false; null = the source does not say. */
   declare gssp: boolean | null;
+  /** "GSSP" / "GSSA" where the base is ratified and the source says which; null otherwise. */
+  declare boundaryKind: CreationOptional<BoundaryKind | null>;
   declare approximate: boolean;
   declare names: CreationOptional<Record<string, string>>;
   declare chartOrder: number;
@@ -52,6 +54,7 @@ export function initInterval(sequelize: Sequelize) {
       topMa: { type: DataTypes.DECIMAL, allowNull: false },
       color: { type: DataTypes.STRING(7), allowNull: false },
       gssp: { type: DataTypes.BOOLEAN, allowNull: true },
+      boundaryKind: { type: DataTypes.STRING(4), allowNull: true, defaultValue: null, validate: { isIn: [[...BOUNDARY_KINDS]] } },
       approximate: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       names: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       chartOrder: { type: DataTypes.INTEGER, allowNull: false },

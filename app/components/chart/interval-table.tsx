@@ -1,12 +1,16 @@
-// The intervals of an edition as a table: filter by name, rank and GSSP; sort by any column.
+// The intervals of an edition as a table: filter by name, rank and how the base is defined (GSSP,
+// GSSA); sort by any column.
 import { useId, useMemo, useState } from "react";
 import { RANKS, rankDepth, type Interval, type Rank } from "~/lib/timescale";
-import { RANK_LABELS, fmtGssp, fmtMa } from "~/lib/chart/format";
+import { RANK_LABELS, fmtBoundaryKind, fmtMa } from "~/lib/chart/format";
 
 type SortKey = "order" | "name" | "rank" | "base" | "top" | "uncertainty" | "gssp";
-type GsspFilter = "all" | "yes" | "no" | "unknown";
+type GsspFilter = "all" | "gssp" | "gssa" | "no" | "unknown";
 
-const gsspRank = (g: boolean | null) => (g === true ? 0 : g === false ? 1 : 2);
+const gsspRank = (iv: Interval) => (iv.gssp === true ? (iv.boundaryKind === "GSSA" ? 1 : 0) : iv.gssp === false ? 2 : 3);
+const gsspMatches = (iv: Interval, f: GsspFilter) =>
+  f === "all" ||
+  (f === "gssp" ? iv.gssp === true && iv.boundaryKind !== "GSSA" : f === "gssa" ? iv.boundaryKind === "GSSA" : f === "no" ? iv.gssp === false : iv.gssp === null);
 
 const COMPARE: Record<SortKey, (a: Interval, b: Interval) => number> = {
   order: (a, b) => a.order - b.order,
@@ -15,7 +19,7 @@ const COMPARE: Record<SortKey, (a: Interval, b: Interval) => number> = {
   base: (a, b) => a.baseMa - b.baseMa,
   top: (a, b) => a.topMa - b.topMa,
   uncertainty: (a, b) => (a.baseUncertaintyMa ?? -1) - (b.baseUncertaintyMa ?? -1),
-  gssp: (a, b) => gsspRank(a.gssp) - gsspRank(b.gssp) || a.order - b.order,
+  gssp: (a, b) => gsspRank(a) - gsspRank(b) || a.order - b.order,
 };
 
 export function IntervalTable({ intervals, caption }: { intervals: readonly Interval[]; caption: string }) {
@@ -30,7 +34,7 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
     const filtered = intervals.filter(
       (iv) =>
         (rank === "all" || iv.rank === rank) &&
-        (gssp === "all" || (gssp === "yes" ? iv.gssp === true : gssp === "no" ? iv.gssp === false : iv.gssp === null)) &&
+        gsspMatches(iv, gssp) &&
         (q === "" || iv.name.toLowerCase().includes(q) || (iv.parent ?? "").toLowerCase().includes(q)),
     );
     const cmp = COMPARE[sort.key];
@@ -70,10 +74,11 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
           </select>
         </div>
         <div>
-          <label htmlFor={`${id}-gssp`} className="mb-1 block font-semibold">GSSP</label>
+          <label htmlFor={`${id}-gssp`} className="mb-1 block font-semibold">Base defined by</label>
           <select id={`${id}-gssp`} className="field w-auto" value={gssp} onChange={(e) => setGssp(e.target.value as GsspFilter)}>
             <option value="all">Any</option>
-            <option value="yes">Ratified</option>
+            <option value="gssp">GSSP (a point in a rock section)</option>
+            <option value="gssa">GSSA (a numerical age)</option>
             <option value="no">Not ratified</option>
             <option value="unknown">Not stated</option>
           </select>
@@ -94,7 +99,7 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
               <Header k="base" num>Base (Ma)</Header>
               <Header k="uncertainty" num>± (Ma)</Header>
               <Header k="top" num>Top (Ma)</Header>
-              <Header k="gssp">GSSP</Header>
+              <Header k="gssp">Base defined by</Header>
               <th scope="col" className="px-3 py-2">Colour</th>
             </tr>
           </thead>
@@ -109,7 +114,7 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
                 <td className="num px-3 py-1.5 text-right">{iv.approximate ? "~" : ""}{fmtMa(iv.baseMa)}</td>
                 <td className="num px-3 py-1.5 text-right">{iv.baseUncertaintyMa === null ? <span className="text-ink-soft">—</span> : `± ${fmtMa(iv.baseUncertaintyMa)}`}</td>
                 <td className="num px-3 py-1.5 text-right">{fmtMa(iv.topMa)}</td>
-                <td className="px-3 py-1.5">{fmtGssp(iv.gssp)}</td>
+                <td className="px-3 py-1.5">{fmtBoundaryKind(iv)}</td>
                 <td className="px-3 py-1.5">
                   <span className="flex items-center gap-2">
                     <span aria-hidden="true" className="inline-block h-4 w-7 rounded-sm border border-ink/40" style={{ background: iv.color }} />

@@ -22,6 +22,16 @@ export function fmtGssp(gssp: boolean | null): string {
   return gssp === null ? "Not stated" : gssp ? "Yes" : "No";
 }
 
+/**
+ * How a base is defined: "GSSP" (a point in a rock section), "GSSA" (a numerical age), "Ratified"
+ * when the edition does not say which, "Not ratified", or "Not stated".
+ */
+export function fmtBoundaryKind(iv: Pick<Interval, "gssp" | "boundaryKind">): string {
+  if (iv.gssp === null) return "Not stated";
+  if (!iv.gssp) return "Not ratified";
+  return iv.boundaryKind ?? "Ratified";
+}
+
 /** Signed shift in Ma: "+1.45", "−1.9". */
 export function fmtShift(x: number): string {
   const s = fmtMa(Math.abs(x));

@@ -57,7 +57,8 @@ export function resolveMarkers(
       intervalName = iv.name;
       intervalRank = iv.rank;
       approximate = iv.approximate;
-      source = `${edition.label}: base of the ${iv.name}${iv.gssp ? " (GSSP)" : ""}`;
+      // A ratified base says how it is defined: a GSSP, or a GSSA (the Precambrian boundaries defined by age).
+      source = `${edition.label}: base of the ${iv.name}${iv.gssp ? ` (${iv.boundaryKind ?? "ratified"})` : ""}`;
     } else if (m.kind === "event") {
       const ev = events.get(m.datedEventId!);
       if (!ev) throw new Error(`marker ${m.id}: event ${m.datedEventId} not found`);

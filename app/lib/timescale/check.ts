@@ -90,6 +90,9 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
     if (typeof iv.color !== "string" || !HEX.test(iv.color)) {
       report(iv, "color", "color", `colour "${String(iv.color)}" is not a hex colour "#RRGGBB"`);
     }
+    if (iv.boundaryKind != null && iv.gssp !== true) {
+      report(iv, "boundaryKind", "boundary-kind", `base is given the kind ${iv.boundaryKind} but is not marked ratified (gssp ${String(iv.gssp)}); a kind needs gssp = true`);
+    }
   }
 
   // --- names --------------------------------------------------------------------------------
@@ -198,6 +201,14 @@ export function check(intervals: readonly Interval[], options: CheckOptions = {}
           "gssp",
           "boundary-consistency",
           `GSSP flag ${String(first.gssp)} differs from ${String(p.gssp)} on the same boundary (${fmtMa(p.baseMa)} Ma) of its parent "${p.name}"`,
+        );
+      }
+      if ((first.boundaryKind ?? null) !== (p.boundaryKind ?? null)) {
+        report(
+          first,
+          "boundaryKind",
+          "boundary-consistency",
+          `boundary kind ${first.boundaryKind ?? "not stated"} differs from ${p.boundaryKind ?? "not stated"} on the same boundary (${fmtMa(p.baseMa)} Ma) of its parent "${p.name}"`,
         );
       }
     }

@@ -1,6 +1,9 @@
 // Eonscale interval CSV: export and import (format documented in README.md).
 //
-//   name,rank,parent,base_ma,base_uncertainty_ma,top_ma,color,gssp,approximate,order,names_json
+//   name,rank,parent,base_ma,base_uncertainty_ma,top_ma,color,gssp,approximate,order,names_json,boundary_kind
+//
+// boundary_kind (GSSP / GSSA / empty) came later: it is written last and is optional on import,
+// so files written before it still read (the kind is then "not stated").
 //
 // RFC 4180 quoting: fields holding a comma, a double quote, a line break or leading/trailing
 // spaces are enclosed in double quotes, with inner quotes doubled. Lines end with "\n" on
@@ -22,8 +25,11 @@ export const CSV_COLUMNS = [
   "approximate",
   "order",
   "names_json",
+  "boundary_kind",
 ] as const;
 type Column = (typeof CSV_COLUMNS)[number];
+/** Columns a file may leave out (added after the format was first published). */
+const OPTIONAL_COLUMNS: readonly Column[] = ["boundary_kind"];
 
 const FIELD_TO_COLUMN: Record<string, Column> = {
   name: "name",
@@ -37,6 +43,7 @@ const FIELD_TO_COLUMN: Record<string, Column> = {
   approximate: "approximate",
   order: "order",
   names: "names_json",
+  boundaryKind: "boundary_kind",
 };
 
 // ------------------------------------------------------------------------------------------
@@ -171,6 +178,7 @@ export function exportCsv(intervals: readonly Interval[]): string {
       String(iv.approximate),
       String(iv.order),
       Object.keys(iv.names).length ? JSON.stringify(iv.names) : "",
+      iv.boundaryKind ?? "",
     ]);
   }
   return writeCsv(rows);
@@ -220,7 +228,7 @@ export function parseCsv(text: string, options: ImportOptions = {}): CsvParseRes
     if (index.has(c)) problems.push({ interval: "", field: c, message: `column "${c}" appears twice in the header`, line: header.line, rule: "syntax" });
     else index.set(c, i);
   });
-  const missing = CSV_COLUMNS.filter((c) => !index.has(c));
+  const missing = CSV_COLUMNS.filter((c) => !index.has(c) && !OPTIONAL_COLUMNS.includes(c));
   const unknown = columns.filter((c) => !(CSV_COLUMNS as readonly string[]).includes(c));
   if (missing.length) problems.push({ interval: "", field: missing.join(","), message: `header lacks column${missing.length > 1 ? "s" : ""}: ${missing.join(", ")}`, line: header.line, rule: "syntax" });
   if (unknown.length) problems.push({ interval: "", field: unknown.join(","), message: `unknown column${unknown.length > 1 ? "s" : ""}: ${unknown.join(", ")}`, line: header.line, rule: "syntax" });
@@ -228,7 +236,7 @@ export function parseCsv(text: string, options: ImportOptions = {}): CsvParseRes
 
   let rowsValid = problems.length === 0;
   for (const rec of records.slice(1)) {
-    const get = (c: Column) => rec.fields[index.get(c)!] ?? "";
+    const get = (c: Column) => (index.has(c) ? (rec.fields[index.get(c)!] ?? "") : "");
     const nameText = get("name");
     if (rec.fields.length !== columns.length) {
       problems.push({
@@ -261,6 +269,7 @@ export function parseCsv(text: string, options: ImportOptions = {}): CsvParseRes
       topMa: toNumber(get("top_ma"), false),
       color: get("color").trim(),
       gssp: toBoolean(get("gssp"), true),
+      boundaryKind: get("boundary_kind").trim() === "" ? null : get("boundary_kind").trim().toUpperCase(),
       approximate: toBoolean(get("approximate"), false),
       order: toNumber(get("order"), false),
       names,

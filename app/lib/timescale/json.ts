@@ -17,6 +17,7 @@ export function exportJson(intervals: readonly Interval[]): string {
     topMa: iv.topMa,
     color: iv.color,
     gssp: iv.gssp,
+    boundaryKind: iv.boundaryKind ?? null,
     approximate: iv.approximate,
     names: iv.names,
     order: iv.order,

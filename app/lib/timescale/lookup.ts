@@ -5,7 +5,7 @@
 // belongs to the youngest intervals, whose top is 0. Ages outside the chart contain nothing.
 
 import { round9 } from "./numbers";
-import { RANKS, rankDepth, type Interval, type Rank } from "./types";
+import { RANKS, rankDepth, type BoundaryKind, type Interval, type Rank } from "./types";
 
 function contains(iv: Interval, ageMa: number): boolean {
   const a = round9(ageMa);
@@ -49,6 +49,8 @@ export interface Boundary {
   baseUncertaintyMa: number | null;
   approximate: boolean;
   gssp: boolean | null;
+  /** GSSP or GSSA where the base is ratified and the edition says which; else null. */
+  boundaryKind: BoundaryKind | null;
 }
 
 /** The base of the named interval (exact name first, then case- and space-insensitive), or null. */
@@ -66,6 +68,7 @@ export function baseOf(intervals: readonly Interval[], name: string): Boundary |
     baseUncertaintyMa: iv.baseUncertaintyMa,
     approximate: iv.approximate,
     gssp: iv.gssp,
+    boundaryKind: iv.boundaryKind ?? null,
   };
 }
 

@@ -1,7 +1,7 @@
 // Row validation for imports (CSV and JSON), with zod 4.
 
 import { z } from "zod";
-import { RANKS, type Interval, type Problem } from "./types";
+import { BOUNDARY_KINDS, RANKS, type Interval, type Problem } from "./types";
 
 const HEX = /^#[0-9A-Fa-f]{6}$/;
 
@@ -24,6 +24,8 @@ export const intervalSchema = z.strictObject(
     topMa: z.number({ error: "top age must be a number of Ma" }).min(0, { error: "top age must not be below 0 Ma" }),
     color: z.string({ error: "colour must be text" }).regex(HEX, { error: 'colour must be a hex colour "#RRGGBB"' }),
     gssp: z.boolean({ error: "gssp must be true, false or empty (not stated)" }).nullable(),
+    // Files written before boundary kinds existed have no such field: read as "not stated".
+    boundaryKind: z.enum(BOUNDARY_KINDS, { error: "boundary kind must be GSSP, GSSA or empty (not stated)" }).nullable().optional().default(null),
     approximate: z.boolean({ error: "approximate must be true or false" }),
     names: z.record(z.string(), z.string({ error: "each translated name must be text" }), {
       error: "names must be an object of language → name",

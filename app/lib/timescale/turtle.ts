@@ -15,7 +15,10 @@
 //                       skos:note "uncertain" the chart's "~" (approximate age)
 //   colour            schema:color "#RRGGBB"
 //   GSSP / GSSA       gts:ratifiedGSSP true / gts:ratifiedGSSA true (only "true" is ever
-//                     written; a file with no such triple at all gives gssp = null)
+//                     written; a file with no such triple at all gives gssp = null).
+//                     gssp = either; boundaryKind = "GSSA" or "GSSP" as marked; a concept
+//                     marked both gets boundaryKind null and a "source" problem (the 2024/12
+//                     file marks the Neoproterozoic both ways)
 //   names             skos:prefLabel@lang (2024/12); skos:prefLabel@en + skos:altLabel@lang
 //                     (2023/09). The English label is the name; where the file has none, the
 //                     IRI local name is used and a "source" problem says so.
@@ -219,6 +222,10 @@ export function parseTurtle(text: string, options: TurtleOptions = {}): TurtlePa
     const color = first(c, SCHEMA + "color")?.value ?? "";
     const isTrue = (p: string) => objects(c, GTS + p).some((o) => o.value === "true" || o.value === "1");
     const gssp = hasRatification ? isTrue("ratifiedGSSP") || isTrue("ratifiedGSSA") : null;
+    const markedGssp = isTrue("ratifiedGSSP");
+    const markedGssa = isTrue("ratifiedGSSA");
+    if (markedGssp && markedGssa) srcProblem("boundaryKind", "is marked both gts:ratifiedGSSP and gts:ratifiedGSSA; the boundary kind is left unstated");
+    const boundaryKind: Interval["boundaryKind"] = markedGssp && markedGssa ? null : markedGssa ? "GSSA" : markedGssp ? "GSSP" : null;
 
     const names: Record<string, string> = {};
     const pref = objects(c, SKOS + "prefLabel").filter((o) => o.termType === "Literal" && (o as { language: string }).language);
@@ -237,6 +244,7 @@ export function parseTurtle(text: string, options: TurtleOptions = {}): TurtlePa
         topMa: top.ma,
         color,
         gssp,
+        boundaryKind,
         approximate: base.approximate,
         names: sortedNames,
         order: 0,

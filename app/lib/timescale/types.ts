@@ -14,6 +14,14 @@ export function isRank(value: unknown): value is Rank {
   return typeof value === "string" && (RANKS as readonly string[]).includes(value);
 }
 
+/**
+ * How a ratified boundary is defined: a GSSP (Global Boundary Stratotype Section and Point, a
+ * point in a rock section) or a GSSA (Global Standard Stratigraphic Age, a boundary defined by a
+ * numerical age — the Precambrian ones).
+ */
+export const BOUNDARY_KINDS = ["GSSP", "GSSA"] as const;
+export type BoundaryKind = (typeof BOUNDARY_KINDS)[number];
+
 /** One interval (eon, era, period, subperiod, epoch/series, age/stage) of a chart edition. */
 export interface Interval {
   /** English name; unique within an edition. */
@@ -31,6 +39,11 @@ export interface Interval {
   color: string;
   /** Base defined by a ratified GSSP or GSSA: true / false; null when the source says nothing. */
   gssp: boolean | null;
+  /**
+   * Which of the two defines the base, where it is ratified (gssp true) and the source says so;
+   * null or absent otherwise (not ratified, or the kind not stated — older files).
+   */
+  boundaryKind?: BoundaryKind | null;
   /** The chart marks the base age as approximate ("~"). */
   approximate: boolean;
   /** Names in other languages, keyed by language tag ("de", "pt-br", …), as the source carries them. */
@@ -51,6 +64,7 @@ export const CORRECTABLE_FIELDS = [
   "topMa",
   "color",
   "gssp",
+  "boundaryKind",
   "approximate",
 ] as const;
 export type CorrectableField = (typeof CORRECTABLE_FIELDS)[number];
@@ -103,6 +117,7 @@ export type ProblemRule =
   | "sibling-gap"
   | "sibling-overlap"
   | "boundary-consistency"
+  | "boundary-kind" // a boundary kind on a base that is not ratified
   | "rank-gap"
   | "rank-overlap"
   | "youngest-top"

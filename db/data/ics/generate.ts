@@ -19,7 +19,7 @@ import { fileURLToPath } from "node:url";
 import { applyCorrections } from "../../../app/lib/timescale/corrections";
 import { check } from "../../../app/lib/timescale/check";
 import { parseTurtle } from "../../../app/lib/timescale/turtle";
-import type { Correction, Edition, EditionMeta } from "../../../app/lib/timescale/types";
+import type { Correction, Edition, EditionMeta, Interval } from "../../../app/lib/timescale/types";
 
 const here = dirname(fileURLToPath(import.meta.url));
 const repoRoot = join(here, "..", "..", "..");
@@ -108,6 +108,19 @@ const CORRECTIONS_2024_12: Correction[] = [
     source: `${PRINTED_2024}, from memory; ${F2024} ischart:Pridoli, ischart:Ludfordian`,
   },
   ...MISSING_NAMES_2024.map(([local, english]) => nameFromIri(local, english, F2024)),
+  // parseTurtle() "source" problem: the Neoproterozoic is marked both gts:ratifiedGSSP and
+  // gts:ratifiedGSSA. Its base is the base of the Tonian (1000 Ma), which the same file marks
+  // GSSA only; the printed chart shows the Precambrian boundaries up to the Tonian base as
+  // numerically defined (GSSA), and the Ediacaran base as the first Proterozoic GSSP.
+  {
+    interval: "Neoproterozoic",
+    field: "boundaryKind",
+    from: null,
+    to: "GSSA",
+    reason:
+      "the file marks the Neoproterozoic both ratifiedGSSP and ratifiedGSSA; its base is the base of the Tonian (1000 Ma), which the file marks GSSA only — a boundary defined by age",
+    source: `${F2024} ischart:Tonian (gts:ratifiedGSSA true), ischart:Neoproterozoic; ${PRINTED_2024}, from memory (Precambrian boundaries defined by age)`,
+  },
 ];
 
 // ---------------------------------------------------------------------------------------------
@@ -203,6 +216,25 @@ const CORRECTIONS_2023_09: Correction[] = [
       "the file ends the Ludlow at the top of the Silurian (419.2 Ma), overlapping the Pridoli (base 423.0 ± 2.3 Ma); the Ludlow ends where the Pridoli begins, as its youngest stage (Ludfordian, top 423.0) does; printed chart: Ludlow 427.4 – 423.0 (from memory)",
     source: `${PRINTED_2023}, from memory; ${F2023} ischart:Pridoli, ischart:Ludfordian`,
   },
+  // Not a check() finding: the printed 2023/09 chart gives the base of the Sakmarian as
+  // 293.52 ± 0.17 Ma; the data file writes 293.51 (Sakmarian base and Asselian top). The 2024/12
+  // file has 293.52 ± 0.17 for the same boundary.
+  {
+    interval: "Sakmarian",
+    field: "baseMa",
+    from: 293.51,
+    to: 293.52,
+    reason: "the printed 2023/09 chart gives the Sakmarian base as 293.52 ± 0.17 Ma; the data file writes 293.51 (as reported by a reviewing reading of the printed chart; the same boundary is 293.52 ± 0.17 in the 2024/12 file)",
+    source: `${PRINTED_2023} (not at hand here: value as reported by the review, issue 9); ${F2024} ischart:Sakmarian`,
+  },
+  {
+    interval: "Asselian",
+    field: "topMa",
+    from: 293.51,
+    to: 293.52,
+    reason: "the Asselian ends where the Sakmarian begins (corrected to 293.52 Ma above)",
+    source: `${PRINTED_2023} (as for the Sakmarian base); ${F2024} ischart:Asselian`,
+  },
   // Not a check() finding: the file writes "Cambrian-Stage N" but "Cambrian Series 2"; the
   // stray hyphen is removed so the names match the 2024/12 edition and each other.
   ...["10", "4", "3", "2"].map(
@@ -217,12 +249,58 @@ const CORRECTIONS_2023_09: Correction[] = [
   ),
 ];
 
+// ---------------------------------------------------------------------------------------------
+// Boundary kinds for 2023/09. Its file carries no ratification triples at all (gssp null
+// throughout). A GSSP is a point in a rock section and a GSSA a fixed age: the boundary stays the
+// same when its numerical age estimate is revised. So where an interval of the same name and rank
+// exists in 2024/12, that file's GSSP/GSSA marking is carried over — each as a listed
+// correction — except for the boundaries the 2024/12 file's own version note (skos:versionInfo)
+// says were ratified since 2023/09: those were not ratified in 2023/09.
+// ---------------------------------------------------------------------------------------------
+/** Ratified between the two editions, per the 2024/12 file's skos:versionInfo ("ratification of the Valanginian GSSP"). */
+export const RATIFIED_SINCE_2023_09 = ["Valanginian"] as const;
+
+export function carriedBoundaryKinds(
+  target: readonly Interval[],
+  from: readonly Interval[],
+  fromLabel: string,
+  fromFile: string,
+  ratifiedSince: readonly string[],
+): Correction[] {
+  const byName = new Map(from.map((iv) => [iv.name, iv] as const));
+  const out: Correction[] = [];
+  for (const iv of target) {
+    const o = byName.get(iv.name);
+    if (!o || o.rank !== iv.rank || o.gssp === null || iv.gssp !== null) continue;
+    const iri = `ischart:${iv.name.replace(/\s+/g, "")}`;
+    if (ratifiedSince.includes(iv.name)) {
+      out.push({
+        interval: iv.name,
+        field: "gssp",
+        from: null,
+        to: false,
+        reason: `the file states no ratification; the ${fromLabel} file's version note lists the ratification of the ${iv.name} GSSP as new since this edition, so it was not ratified here`,
+        source: `${fromFile} skos:versionInfo ("ratification of the ${iv.name} GSSP")`,
+      });
+      continue;
+    }
+    const why = `the file states no ratification; the same boundary (base of the ${iv.name}) is marked`;
+    out.push({ interval: iv.name, field: "gssp", from: null, to: o.gssp, reason: `${why} ${o.gssp ? "ratified" : "not ratified"} in ${fromLabel}, and its version note lists no change of ratification since this edition`, source: `${fromFile} ${iri}` });
+    if (o.boundaryKind) {
+      out.push({ interval: iv.name, field: "boundaryKind", from: null, to: o.boundaryKind, reason: `${why} ${o.boundaryKind} in ${fromLabel}`, source: `${fromFile} ${iri} (gts:ratified${o.boundaryKind})` });
+    }
+  }
+  return out;
+}
+
 export interface EditionSpec {
   file: string;
   versionInfo: string;
   out: string;
   meta: Omit<EditionMeta, "corrections" | "sourceFile">;
   corrections: Correction[];
+  /** Carry boundary kinds over from an edition built earlier in EDITIONS, with the boundaries ratified since. */
+  kindsFrom?: { slug: string; ratifiedSince: readonly string[] };
 }
 
 const LICENCE = (year: number) =>
@@ -256,10 +334,11 @@ export const EDITIONS: EditionSpec[] = [
       licence: LICENCE(2023),
     },
     corrections: CORRECTIONS_2023_09,
+    kindsFrom: { slug: "ics-2024-12", ratifiedSince: RATIFIED_SINCE_2023_09 },
   },
 ];
 
-export function buildEdition(spec: EditionSpec): { edition: Edition; rawProblemCount: number } {
+export function buildEdition(spec: EditionSpec, built: ReadonlyMap<string, Edition> = new Map()): { edition: Edition; rawProblemCount: number } {
   const path = join(here, "source", spec.file);
   const parsed = parseTurtle(readFileSync(path, "utf8"));
   if (parsed.meta.versionInfo !== spec.versionInfo) {
@@ -274,7 +353,20 @@ export function buildEdition(spec: EditionSpec): { edition: Edition; rawProblemC
     (p) => p.rule === "source" && !spec.corrections.some((c) => c.interval === p.interval && c.field === p.field),
   );
 
-  const intervals = applyCorrections(parsed.intervals, spec.corrections);
+  let corrections = spec.corrections;
+  if (spec.kindsFrom) {
+    const from = built.get(spec.kindsFrom.slug);
+    if (!from) throw new Error(`${spec.file}: build ${spec.kindsFrom.slug} first (boundary kinds are carried over from it)`);
+    const carried = carriedBoundaryKinds(
+      applyCorrections(parsed.intervals, spec.corrections),
+      from.intervals,
+      from.edition.label,
+      from.edition.sourceFile.split("/").pop()!,
+      spec.kindsFrom.ratifiedSince,
+    );
+    corrections = [...spec.corrections, ...carried];
+  }
+  const intervals = applyCorrections(parsed.intervals, corrections);
   const remaining = check(intervals);
   if (remaining.length || unanswered.length) {
     const lines = [...unanswered, ...remaining].map((p) => `  ${p.interval} ${p.field} [${p.rule}]: ${p.message}`);
@@ -284,7 +376,7 @@ export function buildEdition(spec: EditionSpec): { edition: Edition; rawProblemC
     edition: {
       ...spec.meta,
       sourceFile: relative(repoRoot, path).split("\\").join("/"),
-      corrections: spec.corrections,
+      corrections,
     },
     intervals,
   };
@@ -293,13 +385,15 @@ export function buildEdition(spec: EditionSpec): { edition: Edition; rawProblemC
 
 function main() {
   let failed = false;
+  const built = new Map<string, Edition>();
   for (const spec of EDITIONS) {
     try {
-      const { edition, rawProblemCount } = buildEdition(spec);
+      const { edition, rawProblemCount } = buildEdition(spec, built);
+      built.set(edition.edition.slug, edition);
       const out = join(here, spec.out);
       writeFileSync(out, JSON.stringify(edition, null, 2) + "\n");
       console.log(
-        `${spec.out}: ${edition.intervals.length} intervals; ${rawProblemCount} problems in the source, ${spec.corrections.length} corrections applied, check() clean`,
+        `${spec.out}: ${edition.intervals.length} intervals; ${rawProblemCount} problems in the source, ${edition.edition.corrections.length} corrections applied, check() clean`,
       );
     } catch (err) {
       failed = true;

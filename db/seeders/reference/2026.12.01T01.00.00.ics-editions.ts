@@ -29,7 +29,7 @@ async function seedEdition({ sequelize }: MigrationContext, data: Edition, trans
   const now = new Date();
   const e = data.edition;
   // A second "current" would break the one-current index: then the seeded edition comes in retired.
-  const [[{ n: currents }]] = (await sequelize.query(`SELECT count(*)::int AS n FROM chart_editions WHERE status = 'current' AND slug <> $1`, {
+  const [[{ n: currents }]] = (await sequelize.query(`SELECT count(*)::int AS n FROM chart_editions WHERE status = 'current' AND organisation_id IS NULL AND slug <> $1`, {
     bind: [e.slug],
     transaction,
   })) as [{ n: number }[], unknown];
@@ -49,10 +49,10 @@ async function seedEdition({ sequelize }: MigrationContext, data: Edition, trans
     const parentId = iv.parent === null ? null : ids.get(iv.parent);
     if (parentId === undefined) throw new Error(`${e.slug}: parent "${iv.parent}" of "${iv.name}" comes later in chart order`);
     const [[row]] = (await sequelize.query(
-      `INSERT INTO intervals (edition_id, name, rank, parent_id, base_ma, base_uncertainty_ma, top_ma, color, gssp, approximate, names, chart_order, created_at, updated_at)
-       VALUES ($1, $2, $3, $4, $5::numeric, $6::numeric, $7::numeric, $8, $9, $10, $11::jsonb, $12, $13, $13)
+      `INSERT INTO intervals (edition_id, name, rank, parent_id, base_ma, base_uncertainty_ma, top_ma, color, gssp, approximate, names, chart_order, created_at, updated_at, boundary_kind)
+       VALUES ($1, $2, $3, $4, $5::numeric, $6::numeric, $7::numeric, $8, $9, $10, $11::jsonb, $12, $13, $13, $14)
        ON CONFLICT (edition_id, name) DO UPDATE SET rank = EXCLUDED.rank, parent_id = EXCLUDED.parent_id, base_ma = EXCLUDED.base_ma,
-         base_uncertainty_ma = EXCLUDED.base_uncertainty_ma, top_ma = EXCLUDED.top_ma, color = EXCLUDED.color, gssp = EXCLUDED.gssp,
+         base_uncertainty_ma = EXCLUDED.base_uncertainty_ma, top_ma = EXCLUDED.top_ma, color = EXCLUDED.color, gssp = EXCLUDED.gssp, boundary_kind = EXCLUDED.boundary_kind,
          approximate = EXCLUDED.approximate, names = EXCLUDED.names, chart_order = EXCLUDED.chart_order, updated_at = EXCLUDED.updated_at
        RETURNING id`,
       {
@@ -70,6 +70,7 @@ async function seedEdition({ sequelize }: MigrationContext, data: Edition, trans
           JSON.stringify(iv.names),
           iv.order,
           now,
+          iv.boundaryKind ?? null,
         ],
         transaction,
       },

@@ -132,9 +132,9 @@ describe("compare() on the seeded editions, 2023/09 → 2024/12", () => {
     ]);
   });
 
-  it("reports GSSP flags as newly stated (the 2023/09 file carries none)", () => {
-    expect(c.gsspChanged).toEqual([]);
-    expect(c.gsspStated).toHaveLength(177);
+  it("reports the one GSSP ratified between the editions (2023/09's flags are carried over from 2024/12)", () => {
+    expect(c.gsspChanged.map((g) => [g.name, g.oldGssp, g.newGssp])).toEqual([["Valanginian", false, true]]);
+    expect(c.gsspStated).toEqual([]);
     expect(c.colourChanged).toEqual([]);
   });
 });

@@ -45,6 +45,7 @@ export function tinyChart(): Interval[] {
     topMa,
     color: "#ABCDEF",
     gssp: false,
+    boundaryKind: null,
     approximate: false,
     names: {},
     order,

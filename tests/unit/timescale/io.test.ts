@@ -88,7 +88,7 @@ describe("import with errors reports line numbers and fields", () => {
     lines[4] = lines[4].replace(",20,", ",twenty,"); // P1 (line 5): base_ma
     lines[6] = lines[6].replace("#ABCDEF", "blue"); // E2 (line 7)
     lines[8] = lines[8].replace(",false,false,", ",yes,false,"); // Ep1 (line 9): gssp
-    lines[11] = lines[11].replace(/,$/, ',"{""de"":"'); // A2 (line 12): names_json, quoted but not JSON
+    lines[11] = lines[11].replace(/,,$/, ',"{""de"":",'); // A2 (line 12): names_json, quoted but not JSON (boundary_kind, last, stays empty)
     const r = parseCsv(lines.join("\n") + "\n");
     expect(r.problems).toEqual([
       { interval: "Young", field: "rank", line: 3, rule: "row", message: "rank must be one of eon, era, period, subperiod, epoch, age" },
@@ -103,7 +103,7 @@ describe("import with errors reports line numbers and fields", () => {
     const lines = [...good];
     lines[3] = lines[3] + ",extra";
     expect(parseCsv(lines.join("\n")).problems).toEqual([
-      { interval: "E1", field: "", line: 4, rule: "row", message: "expected 11 fields, found 12" },
+      { interval: "E1", field: "", line: 4, rule: "row", message: "expected 12 fields, found 13" },
     ]);
     expect(parseCsv("name,rank\nX,eon\n").problems[0]).toEqual({
       interval: "",

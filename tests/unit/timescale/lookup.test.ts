@@ -61,8 +61,9 @@ describe("chainAt()", () => {
 
 describe("baseOf()", () => {
   it("gives the base with its ± and flags", () => {
-    expect(baseOf(e24, "Cambrian")).toEqual({ name: "Cambrian", rank: "period", baseMa: 538.8, baseUncertaintyMa: 0.6, approximate: false, gssp: true });
-    expect(baseOf(e23, "Cretaceous")).toEqual({ name: "Cretaceous", rank: "period", baseMa: 145, baseUncertaintyMa: null, approximate: true, gssp: null });
+    expect(baseOf(e24, "Cambrian")).toEqual({ name: "Cambrian", rank: "period", baseMa: 538.8, baseUncertaintyMa: 0.6, approximate: false, gssp: true, boundaryKind: "GSSP" });
+    expect(baseOf(e23, "Cretaceous")).toEqual({ name: "Cretaceous", rank: "period", baseMa: 145, baseUncertaintyMa: null, approximate: true, gssp: false, boundaryKind: null });
+    expect(baseOf(e24, "Tonian")).toMatchObject({ baseMa: 1000, gssp: true, boundaryKind: "GSSA" });
   });
 
   it("falls back to a case- and space-insensitive match, else null", () => {

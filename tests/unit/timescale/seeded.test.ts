@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import { RANKS, check, type Interval } from "../../../app/lib/timescale";
 import { byName, loadEdition } from "./helpers";
 
-import { SEEDS } from "../../fixtures/ics-chart-check-values.ts";
+import { GSSA_BOUNDARIES, SEEDS } from "../../fixtures/ics-chart-check-values.ts";
 
 const editions = { "ics-2024-12": loadEdition("ics-2024-12"), "ics-2023-09": loadEdition("ics-2023-09") };
 
@@ -80,7 +80,39 @@ describe("seeded editions: shape", () => {
     expect(byName(e24, "Berriasian").gssp).toBe(false); // base of the Cretaceous: no GSSP yet
     expect(byName(e24, "Tonian").gssp).toBe(true); // GSSA (1000 Ma)
     expect(byName(e24, "Valanginian").gssp).toBe(true); // GSSP ratified for 2024/12 (file's own version note)
-    expect(e23.every((i) => i.gssp === null)).toBe(true); // the 2023/09 file states no ratification at all
+    // The 2023/09 file states no ratification at all: the flags are carried over from 2024/12 as
+    // listed corrections, except the Valanginian GSSP, which the 2024/12 file's version note says
+    // was ratified since.
+    expect(byName(e23, "Valanginian").gssp).toBe(false);
+    expect(byName(e23, "Fortunian")).toMatchObject({ gssp: true, boundaryKind: "GSSP" });
+    expect(e23.every((i) => i.gssp !== null)).toBe(true);
+    const carried = loadEdition("ics-2023-09").edition.corrections.filter((c) => c.field === "gssp" || c.field === "boundaryKind");
+    expect(carried.length).toBe(177 + e23.filter((i) => i.boundaryKind).length);
+    expect(carried.every((c) => c.from === null && /ics-chart-2024-12\.ttl/.test(c.source))).toBe(true);
+  });
+
+  it.each(["ics-2024-12", "ics-2023-09"] as const)("%s: every boundary has the right kind — GSSA exactly for the hand-written list, GSSP for every other ratified base", (slug) => {
+    const intervals = editions[slug].intervals;
+    const gssa = new Set(GSSA_BOUNDARIES.map((b) => b.name));
+    for (const b of GSSA_BOUNDARIES) {
+      const iv = byName(intervals, b.name);
+      expect(iv.baseMa, b.name).toBe(b.baseMa);
+      expect([iv.gssp, iv.boundaryKind], b.name).toEqual([true, "GSSA"]);
+    }
+    for (const iv of intervals.filter((i) => !gssa.has(i.name))) {
+      expect(iv.boundaryKind ?? null, iv.name).toBe(iv.gssp ? "GSSP" : null);
+    }
+    // The first Proterozoic GSSP, and the Cryogenian base still defined by neither.
+    expect(byName(intervals, "Ediacaran").boundaryKind).toBe("GSSP");
+    expect(byName(intervals, "Cryogenian")).toMatchObject({ gssp: false, boundaryKind: null });
+  });
+
+  it("2023/09 Sakmarian base is 293.52 ± 0.17 Ma, as the printed chart gives it (the data file says 293.51)", () => {
+    // Printed ICS chart v2023/09 (as reported by the review, issue 9); 2024/12 file: 293.52 ± 0.17.
+    const e23 = editions["ics-2023-09"];
+    expect(byName(e23.intervals, "Sakmarian")).toMatchObject({ baseMa: 293.52, baseUncertaintyMa: 0.17 });
+    expect(byName(e23.intervals, "Asselian").topMa).toBe(293.52);
+    expect(e23.edition.corrections.find((c) => c.interval === "Sakmarian" && c.field === "baseMa")).toMatchObject({ from: 293.51, to: 293.52 });
   });
 
   it("stores the Holocene in Ma (the chart prints years b2k)", () => {
