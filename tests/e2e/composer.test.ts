@@ -5,6 +5,7 @@ import path from "node:path";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { geodesicDirect } from "../../app/lib/geo/geodesic.ts";
+import { readCsv } from "../../app/lib/timescale/csv.ts";
 import { launchBrowser } from "../setup/chromium.ts";
 import { BASE, SHOTS, shot, signIn } from "./helpers.ts";
 
@@ -94,11 +95,12 @@ describe("the exhibit composer", () => {
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Marker schedule (CSV)" }).click()]);
     const file = path.join(SHOTS, "..", "lakeside-schedule.csv");
     await download.saveAs(file);
-    const csv = readFileSync(file, "utf8").split(/\r?\n/);
-    expect(csv[0]).toBe("number,label,kind,interval,event,age_ma,age_uncertainty_ma,source,from_start_m,to_end_m,latitude,longitude,walk_minutes");
-    expect(csv.filter((l) => /,boundary,/.test(l))).toHaveLength(22);
-    expect(csv.some((l) => /,event,/.test(l))).toBe(true);
-    expect(csv.some((l) => l.startsWith(`${csv.length - 2},Boathouse built,custom`) || /Boathouse built,custom/.test(l))).toBe(true);
+    const [header, ...rows] = readCsv(readFileSync(file, "utf8")).records.map((r) => r.fields);
+    expect(header.join(",")).toBe("number,label,kind,interval,event,age_ma,age_uncertainty_ma,source,from_start_m,to_end_m,latitude,longitude,walk_minutes");
+    expect(rows.filter((r) => r[2] === "boundary")).toHaveLength(22);
+    expect(rows.filter((r) => r[2] === "event")).toHaveLength(1);
+    // The boathouse (150 years) is the youngest marker, so the last a visitor reaches: numbered last.
+    expect(rows.find((r) => r[1] === "Boathouse built")?.slice(0, 6)).toEqual([String(rows.length), "Boathouse built", "custom", "", "", "0.00015"]);
     expect(errors).toEqual([]);
   });
 
