@@ -171,6 +171,19 @@ export function pendingInvitations(organisationId: number) {
 
 // ---------- members ----------
 
+/** The organisation's members with their role sets, oldest first (the team page). */
+export async function listMembers(organisationId: number) {
+  const rows = await Membership.findAll({ where: { organisationId }, include: [{ model: User, as: "user" }], order: [["createdAt", "ASC"]] });
+  return rows.map((m) => ({
+    id: m.id,
+    name: m.user!.name,
+    email: m.user!.email,
+    roles: normaliseRoles(m.roles),
+    since: m.createdAt.toISOString().slice(0, 10),
+    lastSignIn: m.user!.lastSignInAt?.toISOString().slice(0, 10) ?? null,
+  }));
+}
+
 /**
  * Serialises every change to an organisation's memberships: the organisation's row is locked
  * (SELECT … FOR UPDATE) for the rest of the transaction, so two admins demoting or removing each

@@ -1,11 +1,16 @@
-// Sign-in (remix-auth + remix-auth-form + bcryptjs) and the guards every studio route uses.
+// Sign-in (remix-auth + remix-auth-form + bcryptjs) and the guards every studio route uses:
+// `requireMember` (signed in, in an organisation), `requirePermission` (and may do an action, asked of
+// the permissions table in app/lib/permissions.ts), and the non-throwing `getMember`.
 import bcrypt from "bcryptjs";
 import { data, redirect } from "react-router";
 import { Authenticator } from "remix-auth";
 import { FormStrategy } from "remix-auth-form";
 import { z } from "zod";
+import type { Transaction } from "sequelize";
 import { Membership, Organisation, User } from "../db/models/index.ts";
-import type { Role } from "../app/lib/roles.ts";
+import { can, decide, rolesFor, whoMay, type Action, type Resource, type Subject } from "../app/lib/permissions.ts";
+import { normaliseRoles, rolesInWords, type Role } from "../app/lib/roles.ts";
+import { sequelize } from "./db.server.ts";
 import { assertSignInAllowed, clearFailedSignIns, recordFailedSignIn } from "./rate-limit.server.ts";
 import { getSession, sessionStorage } from "./session.server.ts";
 
@@ -107,41 +112,119 @@ export async function requireUser(request: Request) {
   return user;
 }
 
-export interface MemberContext {
-  user: User;
-  organisation: Organisation;
-  membership: Membership;
-  memberships: Membership[];
-  role: Role;
-  sessionId: string;
+/** Is this user a site-wide chart steward (granted with `npm run steward -- add EMAIL`)? */
+export async function isSteward(userId: number, transaction?: Transaction): Promise<boolean> {
+  const [rows] = await sequelize.query(`SELECT 1 FROM chart_stewards WHERE user_id = $1`, { bind: [userId], transaction });
+  return rows.length > 0;
 }
 
-/**
- * The guard of every studio route. Signed out → redirect to /login?redirectTo=…; signed in but not
- * holding one of `roles` in the active organisation → 403. Routes then scope every query by
- * `organisation.id` and answer 404 for another organisation's data.
- */
-export async function requireMember(request: Request, roles?: readonly Role[]): Promise<MemberContext> {
+/** A signed-in person as the guards see them: their memberships, the active one, and the permission subject. */
+export interface Signed {
+  user: User;
+  sessionId: string;
+  steward: boolean;
+  memberships: Membership[];
+  /** The active organisation's membership (chosen in the session), or null for someone in none. */
+  membership: Membership | null;
+  organisation: Organisation | null;
+  roles: Role[];
+  subject: Subject;
+}
+
+export interface MemberContext extends Signed {
+  membership: Membership;
+  organisation: Organisation;
+}
+
+/** The signed-in person (member of an organisation or not), or null. Never throws a redirect or an error response. */
+export async function getSigned(request: Request): Promise<Signed | null> {
   const session = await getSession(request);
   const userId = session.get("userId");
   const user = userId ? await User.findByPk(userId) : null;
-  if (!user) loginRedirect(request);
-  const memberships = await Membership.findAll({
-    where: { userId: user.id },
-    include: [{ model: Organisation, as: "organisation" }],
-    order: [["createdAt", "ASC"]],
-  });
-  if (memberships.length === 0) {
-    throw data({ message: "Your account does not belong to any organisation yet. Ask an organisation's admin for an invitation." }, { status: 403 });
+  if (!user) return null;
+  const [memberships, steward] = await Promise.all([
+    Membership.findAll({
+      where: { userId: user.id },
+      include: [{ model: Organisation, as: "organisation" }],
+      order: [["createdAt", "ASC"]],
+    }),
+    isSteward(user.id),
+  ]);
+  const active = memberships.find((m) => m.organisationId === session.get("organisationId")) ?? memberships[0] ?? null;
+  const roles = active ? normaliseRoles(active.roles) : [];
+  return {
+    user,
+    sessionId: session.id,
+    steward,
+    memberships,
+    membership: active,
+    organisation: active?.organisation ?? null,
+    roles,
+    subject: { roles, steward, userId: user.id, organisationId: active?.organisationId ?? null },
+  };
+}
+
+/** The signed-in member in their active organisation, or null (signed out, or in no organisation). Never throws. */
+export async function getMember(request: Request): Promise<MemberContext | null> {
+  const s = await getSigned(request);
+  return s?.membership ? (s as MemberContext) : null;
+}
+
+const NO_ORGANISATION = "Your account does not belong to any organisation yet. Ask an organisation's admin for an invitation.";
+
+/** Signed in (member of an organisation or not); signed out → redirect to /login?redirectTo=…. */
+export async function requireSigned(request: Request): Promise<Signed> {
+  const s = await getSigned(request);
+  if (!s) loginRedirect(request);
+  return s;
+}
+
+/**
+ * The guard of every studio route. Signed out → redirect to /login?redirectTo=…; signed in but in
+ * no organisation → 403. Routes then scope every query by `organisation.id` and answer 404 for
+ * another organisation's data. What the member may do is asked of `can()` (or `requirePermission`).
+ */
+export async function requireMember(request: Request): Promise<MemberContext> {
+  const s = await requireSigned(request);
+  if (!s.membership) throw data({ message: NO_ORGANISATION }, { status: 403 });
+  return s as MemberContext;
+}
+
+/** 403 with the reason in plain words. */
+export function forbidden(message: string): never {
+  throw data({ message }, { status: 403 });
+}
+
+function refusal(s: Signed, action: Action, resource?: Resource): string | null {
+  const decision = decide(s.subject, action, resource);
+  if (decision.ok) return null;
+  const roles = rolesFor(action);
+  // Role-based refusals name the page's audience the way members read it.
+  if (!resource && roles.length && s.organisation) {
+    const held = s.roles.length ? rolesInWords(s.roles, { lower: true }) : "none";
+    return `This page is for ${whoMay(action)} of ${s.organisation.name}. Your roles there: ${held}.`;
   }
-  const active = memberships.find((m) => m.organisationId === session.get("organisationId")) ?? memberships[0];
-  if (roles && !roles.includes(active.role)) {
-    throw data(
-      { message: `This page is for ${roles.join(" or ")} members of ${active.organisation!.name}. Your role there is ${active.role}.` },
-      { status: 403 },
-    );
-  }
-  return { user, organisation: active.organisation!, membership: active, memberships, role: active.role, sessionId: session.id };
+  return decision.reason;
+}
+
+/**
+ * The member may do `action` (to `resource`) in their active organisation, or 403 naming what is
+ * needed. Signed out → redirect to sign-in; in no organisation → 403 (steward-only actions excepted:
+ * use `requireAnyPermission` for pages a steward without an organisation may reach).
+ */
+export async function requirePermission(request: Request, action: Action, resource?: Resource): Promise<MemberContext> {
+  const member = await requireMember(request);
+  const message = refusal(member, action, resource);
+  if (message) forbidden(message);
+  return member;
+}
+
+/** Signed in and allowed at least one of `actions` (a page serving several audiences, e.g. stewards and editors). */
+export async function requireAnyPermission(request: Request, actions: readonly Action[]): Promise<Signed> {
+  const s = await requireSigned(request);
+  if (actions.some((a) => can(s.subject, a))) return s;
+  if (!s.membership && !s.steward) forbidden(NO_ORGANISATION);
+  forbidden(refusal(s, actions[0]) ?? `This needs ${actions.map(whoMay).join(" or ")}.`);
 }
 
 export function notFound(message = "Not found"): never {

@@ -1,9 +1,9 @@
 /**
  * GET /api/timescales/:slug — one published edition and its intervals in chart order:
- * { "edition": { slug, label, status, source, licence, madeCurrentAt, corrections },
+ * { "edition": { slug, label, status, source, licence, latest, madeCurrentAt, corrections },
  *   "intervals": [{ name, rank, parent, baseMa, baseUncertaintyMa, topMa, color, gssp, approximate }, …] }
  * English names; ages in Ma; baseUncertaintyMa null where the chart gives none; gssp null where the
- * source does not say. Unknown slug or a draft → 404 { "error": { "message" } }. ETag / 304.
+ * source does not say. Shared editions only: unknown slug, a draft or an organisation's own edition → 404 { "error": { "message" } }. ETag / 304.
  */
 import { apiEditionBody, cachedJson, publicJsonError } from "#server/editions.server.ts";
 import type { Route } from "./+types/api.timescales.$slug";

@@ -1,21 +1,31 @@
 // /editions/:slug — one edition: the chart, the intervals table, the corrections and the source.
 import { Form, Link, useNavigation } from "react-router";
-import { CorrectionList, RankCounts, StatusBadge } from "~/components/chart/edition-bits";
+import { CorrectionList, RankCounts } from "~/components/chart/edition-bits";
+import { EditionBadges, OwnerNote } from "~/components/chart/edition-owner";
+import { can } from "~/lib/permissions";
 import { IntervalTable } from "~/components/chart/interval-table";
 import { TimescaleChart } from "~/components/chart/timescale-chart";
 import { notFound } from "#server/auth.server.ts";
-import { listEditions, loadEdition, viewerOf } from "#server/editions.server.ts";
+import { listEditions, loadEdition, scopeOf, viewerOf } from "#server/editions.server.ts";
 import type { Route } from "./+types/editions.$slug";
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: data ? `${data.edition.label} · Chart editions · Eonscale` : "Chart edition · Eonscale" }];
+export const meta: Route.MetaFunction = ({ loaderData }) => [{ title: loaderData ? `${loaderData.edition.label} · Chart editions · Eonscale` : "Chart edition · Eonscale" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const viewer = await viewerOf(request);
-  const canManage = Boolean(viewer?.canManage);
-  const loaded = await loadEdition(params.slug, { includeDrafts: canManage });
+  const scope = scopeOf(viewer);
+  const loaded = await loadEdition(params.slug, scope);
   if (!loaded) notFound(`There is no published chart edition "${params.slug}".`);
-  const others = (await listEditions({ includeDrafts: canManage })).filter((e) => e.slug !== params.slug);
-  const current = others.find((e) => e.status === "current") ?? null;
+  const others = (await listEditions(scope)).filter((e) => e.slug !== params.slug);
+  const current = others.find((e) => e.currentForOrganisation) ?? others.find((e) => e.latest) ?? null;
+  const e = loaded.edition;
+  const subject = viewer?.subject;
+  // What this reader may do to this edition (the server checks again on every post).
+  const may = {
+    setCurrent: Boolean(subject && viewer?.organisationId && can(subject, "edition.set-current") && !e.currentForOrganisation && (e.organisationId !== null || e.status !== "draft")),
+    makeLatest: Boolean(subject && e.organisationId === null && e.status !== "current" && can(subject, "edition.manage-shared", { editionOwnerId: null })),
+    retire: Boolean(subject && e.status === "draft" && can(subject, e.organisationId === null ? "edition.manage-shared" : "edition.import", { editionOwnerId: e.organisationId })),
+  };
   // A current edition is compared with the one it replaced: the latest retired of those that were
   // ever current (else the latest retired).
   const retired = others.filter((e) => e.status === "retired");
@@ -28,15 +38,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     // Names in other languages stay in the exports and the database; the page shows English.
     intervals: loaded.intervals.map((iv) => ({ ...iv, names: {} })),
     languages: [...languages].sort(),
-    compareWith: loaded.edition.status === "current" ? previous && { from: previous.slug, to: loaded.edition.slug, label: previous.label } : current && { from: current.slug, to: loaded.edition.slug, label: current.label },
-    canManage,
+    compareWith: loaded.edition.latest ? previous && { from: previous.slug, to: loaded.edition.slug, label: previous.label } : current && { from: current.slug, to: loaded.edition.slug, label: current.label },
+    may,
+    organisation: viewer?.organisationName ?? null,
   };
 }
 
 const day = (iso: string | null) => (iso ? iso.slice(0, 10) : null);
 
 export default function EditionPage({ loaderData }: Route.ComponentProps) {
-  const { edition: e, intervals, languages, compareWith, canManage } = loaderData;
+  const { edition: e, intervals, languages, compareWith, may, organisation } = loaderData;
   const busy = useNavigation().state === "submitting";
   const here = `/editions/${e.slug}`;
   return (
@@ -44,7 +55,7 @@ export default function EditionPage({ loaderData }: Route.ComponentProps) {
       <p className="font-sans text-sm"><Link to="/editions">Chart editions</Link> ›</p>
       <div className="mt-1 flex flex-wrap items-baseline justify-between gap-3">
         <h1 className="text-3xl">
-          {e.label} <StatusBadge status={e.status} />
+          {e.label} <EditionBadges edition={e} organisationName={organisation} />
         </h1>
         <p className="flex flex-wrap gap-2 font-sans text-sm">
           {compareWith ? <Link className="btn-quiet no-underline" to={`/editions/compare?from=${compareWith.from}&to=${compareWith.to}`}>Compare with {compareWith.label}</Link> : null}
@@ -52,9 +63,10 @@ export default function EditionPage({ loaderData }: Route.ComponentProps) {
           <a className="btn-quiet no-underline" href={`${here}/intervals.json`} download>Download JSON</a>
         </p>
       </div>
+      <OwnerNote edition={e} />
       {e.status === "draft" ? (
         <p role="status" className="mt-4 rounded border-l-4 border-warn bg-amber-50 p-3 font-sans text-sm text-warn">
-          Draft: only editors and admins can see it. It passed every check on import; make it current when a geologist has compared it with the printed chart.
+          Draft: only those who manage {e.organisationId === null ? "the shared editions (chart stewards)" : "this organisation's editions"} can see it. It passed every check on import; release it when a geologist has compared it with the printed chart.
         </p>
       ) : null}
       <section className="card mt-4 grid gap-4 md:grid-cols-[2fr_1fr]">
@@ -70,18 +82,28 @@ export default function EditionPage({ loaderData }: Route.ComponentProps) {
             <code>{e.slug}</code> · {e.total} intervals
             <br />
             {e.createdBy ? <>Imported {day(e.createdAt)} by {e.createdBy}<br /></> : null}
-            {e.madeCurrentAt ? <>Made current {day(e.madeCurrentAt)}{e.madeCurrentBy ? ` by ${e.madeCurrentBy}` : ""}<br /></> : null}
+            {e.madeCurrentAt ? <>{e.organisationId === null ? "Made the latest" : "Made current"} {day(e.madeCurrentAt)}{e.madeCurrentBy ? ` by ${e.madeCurrentBy}` : ""}<br /></> : null}
             {e.retiredAt ? <>Retired {day(e.retiredAt)}</> : null}
           </p>
-          {canManage && e.status !== "current" ? (
+          {may.setCurrent || may.makeLatest || may.retire ? (
             <div className="mt-3 flex flex-wrap gap-2">
-              <Form method="post" action="/studio/editions" onSubmit={(ev) => { if (!confirm(`Make ${e.label} the current edition? The current one will be retired, and exhibits pinned to it will need a re-check.`)) ev.preventDefault(); }}>
-                <input type="hidden" name="intent" value="make-current" />
-                <input type="hidden" name="slug" value={e.slug} />
-                <input type="hidden" name="redirectTo" value={here} />
-                <button type="submit" className="btn" disabled={busy}>Make current</button>
-              </Form>
-              {e.status === "draft" ? (
+              {may.setCurrent ? (
+                <Form method="post" action="/studio/editions" onSubmit={(ev) => { if (!confirm(`Make ${e.label} the current edition of ${organisation}? Exhibits pinned to another edition will need a re-check.`)) ev.preventDefault(); }}>
+                  <input type="hidden" name="intent" value="set-current" />
+                  <input type="hidden" name="slug" value={e.slug} />
+                  <input type="hidden" name="redirectTo" value={here} />
+                  <button type="submit" className="btn" disabled={busy}>Make current for {organisation}</button>
+                </Form>
+              ) : null}
+              {may.makeLatest ? (
+                <Form method="post" action="/studio/editions" onSubmit={(ev) => { if (!confirm(`Make ${e.label} the latest shared edition? The present latest one will be retired.`)) ev.preventDefault(); }}>
+                  <input type="hidden" name="intent" value="make-latest" />
+                  <input type="hidden" name="slug" value={e.slug} />
+                  <input type="hidden" name="redirectTo" value={here} />
+                  <button type="submit" className="btn" disabled={busy}>Make latest shared edition</button>
+                </Form>
+              ) : null}
+              {may.retire ? (
                 <Form method="post" action="/studio/editions">
                   <input type="hidden" name="intent" value="retire" />
                   <input type="hidden" name="slug" value={e.slug} />

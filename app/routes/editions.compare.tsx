@@ -7,25 +7,25 @@ import { RANK_LABELS, fmtGssp, fmtMa, fmtPercent, fmtShift } from "~/lib/chart/f
 import { ShiftChart } from "~/components/chart/shift-chart";
 import { compare } from "~/lib/timescale";
 import { notFound } from "#server/auth.server.ts";
-import { listEditions, loadEdition, viewerOf } from "#server/editions.server.ts";
+import { listEditions, loadEdition, scopeOf, viewerOf } from "#server/editions.server.ts";
 import { exhibitsByBoundary } from "#server/exhibits/impact.server.ts";
 import type { Route } from "./+types/editions.compare";
 
-export const meta: Route.MetaFunction = ({ data }) => [
-  { title: data?.pair ? `${data.pair.from.label} → ${data.pair.to.label} · Compare · Eonscale` : "Compare chart editions · Eonscale" },
+export const meta: Route.MetaFunction = ({ loaderData }) => [
+  { title: loaderData?.pair ? `${loaderData.pair.from.label} → ${loaderData.pair.to.label} · Compare · Eonscale` : "Compare chart editions · Eonscale" },
 ];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await viewerOf(request);
-  const includeDrafts = Boolean(viewer?.canManage);
-  const editions = await listEditions({ includeDrafts });
+  const scope = scopeOf(viewer);
+  const editions = await listEditions(scope);
   const url = new URL(request.url);
-  const current = editions.find((e) => e.status === "current");
+  const current = editions.find((e) => e.currentForOrganisation) ?? editions.find((e) => e.latest);
   const toSlug = url.searchParams.get("to") || current?.slug || editions[0]?.slug;
   const fromSlug = url.searchParams.get("from") || editions.find((e) => e.slug !== toSlug && e.status === "retired")?.slug || editions.find((e) => e.slug !== toSlug)?.slug;
   const choices = editions.map((e) => ({ slug: e.slug, label: e.label, status: e.status }));
   if (!toSlug || !fromSlug) return { choices, fromSlug: fromSlug ?? null, toSlug: toSlug ?? null, pair: null, same: false };
-  const [a, b] = await Promise.all([loadEdition(fromSlug, { includeDrafts }), loadEdition(toSlug, { includeDrafts })]);
+  const [a, b] = await Promise.all([loadEdition(fromSlug, scope), loadEdition(toSlug, scope)]);
   if (!a) notFound(`There is no published chart edition "${fromSlug}".`);
   if (!b) notFound(`There is no published chart edition "${toSlug}".`);
   if (fromSlug === toSlug) return { choices, fromSlug, toSlug, pair: null, same: true };

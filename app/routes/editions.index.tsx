@@ -1,22 +1,25 @@
-// /editions — every published chart edition (and, for editors and admins, the drafts).
+// /editions — the shared chart editions (the latest marked), and for a signed-in member also the
+// organisation's own editions, each labelled as such; drafts only for those who manage them.
 import { Link } from "react-router";
-import { RankCounts, StatusBadge } from "~/components/chart/edition-bits";
-import { listEditions, viewerOf } from "#server/editions.server.ts";
+import { RankCounts } from "~/components/chart/edition-bits";
+import { EditionBadges } from "~/components/chart/edition-owner";
+import { listEditions, managesEditions, scopeOf, viewerOf } from "#server/editions.server.ts";
 import type { Route } from "./+types/editions.index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Chart editions · Eonscale" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await viewerOf(request);
-  const editions = await listEditions({ includeDrafts: Boolean(viewer?.canManage) });
-  return { editions, canManage: Boolean(viewer?.canManage) };
+  const editions = await listEditions(scopeOf(viewer));
+  return { editions, canManage: managesEditions(viewer), organisation: viewer?.organisationName ?? null };
 }
 
 const day = (iso: string | null) => (iso ? iso.slice(0, 10) : null);
 
 export default function EditionsIndex({ loaderData }: Route.ComponentProps) {
-  const { editions, canManage } = loaderData;
-  const current = editions.find((e) => e.status === "current");
+  const { editions, canManage, organisation } = loaderData;
+  const latest = editions.find((e) => e.latest);
+  const current = editions.find((e) => e.currentForOrganisation) ?? latest;
   return (
     <div>
       <div className="flex flex-wrap items-end justify-between gap-4">
@@ -24,7 +27,8 @@ export default function EditionsIndex({ loaderData }: Route.ComponentProps) {
           <h1 className="text-3xl">Chart editions</h1>
           <p className="mt-2 text-ink-soft">
             Every exhibit is checked against one named edition of the International Chronostratigraphic Chart.
-            {current ? <> The current edition is <strong className="text-ink">{current.label}</strong>; new exhibits are pinned to it.</> : " No edition is current yet."}
+            {latest ? <> The latest shared edition is <strong className="text-ink">{latest.label}</strong>.</> : " No shared edition has been published yet."}
+            {organisation && current ? <> {organisation} works against <strong className="text-ink">{current.label}</strong>; its new exhibits are pinned to it.</> : null}
           </p>
         </div>
         {canManage ? (
@@ -40,11 +44,11 @@ export default function EditionsIndex({ loaderData }: Route.ComponentProps) {
           <li key={e.slug} className="card">
             <div className="flex flex-wrap items-baseline justify-between gap-3">
               <h2 className="text-xl">
-                <Link to={`/editions/${e.slug}`}>{e.label}</Link> <StatusBadge status={e.status} />
+                <Link to={`/editions/${e.slug}`}>{e.label}</Link> <EditionBadges edition={e} organisationName={organisation} />
               </h2>
               <p className="font-sans text-sm text-ink-soft">
                 <code>{e.slug}</code> · {e.total} intervals
-                {e.status === "current" && e.madeCurrentAt ? ` · current since ${day(e.madeCurrentAt)}${e.madeCurrentBy ? ` (${e.madeCurrentBy})` : ""}` : ""}
+                {e.status === "current" && e.madeCurrentAt ? ` · ${e.latest ? "latest" : "in use"} since ${day(e.madeCurrentAt)}${e.madeCurrentBy ? ` (${e.madeCurrentBy})` : ""}` : ""}
                 {e.status === "retired" && e.retiredAt ? ` · retired ${day(e.retiredAt)}` : ""}
                 {e.status === "draft" ? ` · imported ${day(e.createdAt)}${e.createdBy ? ` by ${e.createdBy}` : ""}` : ""}
               </p>

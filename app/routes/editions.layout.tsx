@@ -1,10 +1,10 @@
 // The frame of the public chart-edition pages (/editions…): readable by visitors and by every
-// signed-in member; editors and admins also see drafts and the management links.
+// signed-in member; those who manage editions also see their drafts and the management links.
 import { Link, Outlet, data } from "react-router";
 import { GeneralErrorBoundary } from "~/components/error-boundary";
 import { FormMessage } from "~/components/forms";
 import { SiteNav } from "~/components/site-nav";
-import { viewerOf } from "#server/editions.server.ts";
+import { managesEditions, viewerOf } from "#server/editions.server.ts";
 import { readNotice } from "#server/session.server.ts";
 import type { Route } from "./+types/editions.layout";
 
@@ -12,7 +12,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await viewerOf(request);
   const { notice, setCookie } = await readNotice(request);
   return data(
-    { viewer: viewer ? { name: viewer.name, canManage: viewer.canManage, member: viewer.role !== null } : null, notice },
+    { viewer: viewer ? { name: viewer.name, canManage: managesEditions(viewer), member: viewer.member || viewer.subject.steward } : null, notice },
     setCookie ? { headers: { "Set-Cookie": setCookie } } : undefined,
   );
 }
@@ -46,7 +46,7 @@ export default function EditionsLayout({ loaderData }: Route.ComponentProps) {
         <Outlet />
       </main>
       <footer className="border-t border-rule py-6 text-center font-sans text-sm text-ink-soft">
-        Chart data: International Commission on Stratigraphy, CC BY 4.0 · Public JSON at <code>/api/timescales</code>
+        Shared chart data: International Commission on Stratigraphy, CC BY 4.0 · Public JSON of the shared editions at <code>/api/timescales</code>
       </footer>
     </div>
   );

@@ -10,14 +10,17 @@ import {
 import type { Sequelize } from "sequelize";
 import type { Correction, EditionStatus } from "../../app/lib/timescale/types.ts";
 import type { Interval } from "./interval.ts";
+import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
 
 export const EDITION_STATUSES = ["draft", "current", "retired"] as const satisfies readonly EditionStatus[];
 
 /**
  * A versioned geologic timescale (an edition of the International Chronostratigraphic Chart, or an
- * editor's draft of one). Editions are shared by every organisation. At most one is current
- * (partial unique index chart_editions_one_current).
+ * edition of an organisation's own). A shared edition (organisationId null) is managed by chart
+ * stewards and seen by everyone once released; an organisation's own edition only by its members.
+ * At most one edition per owner is current (index chart_editions_one_current_per_owner): for shared
+ * editions that is the latest one. Each organisation's working edition is organisations.current_edition_id.
  */
 export class ChartEdition extends Model<InferAttributes<ChartEdition>, InferCreationAttributes<ChartEdition>> {
   declare id: CreationOptional<number>;
@@ -27,6 +30,8 @@ export class ChartEdition extends Model<InferAttributes<ChartEdition>, InferCrea
   /** Full citation of the chart edition and of the file the intervals were read from. */
   declare source: string;
   declare licence: string;
+  /** The organisation that owns the edition; null for a shared edition (managed by chart stewards). */
+  declare organisationId: ForeignKey<Organisation["id"]> | null;
   /** Repository path or uploaded file name the intervals came from. */
   declare sourceFile: string | null;
   /** Corrections made to the source data (what, from → to, why, on what authority). */
@@ -40,6 +45,7 @@ export class ChartEdition extends Model<InferAttributes<ChartEdition>, InferCrea
   declare intervals?: NonAttribute<Interval[]>;
   declare createdBy?: NonAttribute<User | null>;
   declare madeCurrentBy?: NonAttribute<User | null>;
+  declare organisation?: NonAttribute<Organisation | null>;
 }
 
 /** Binds the model to the process's Sequelize instance (called once, by initModels). */
@@ -52,6 +58,7 @@ export function initChartEdition(sequelize: Sequelize) {
       status: { type: DataTypes.ENUM(...EDITION_STATUSES), allowNull: false, defaultValue: "draft" },
       source: { type: DataTypes.TEXT, allowNull: false },
       licence: { type: DataTypes.TEXT, allowNull: false },
+      organisationId: { type: DataTypes.INTEGER, allowNull: true },
       sourceFile: { type: DataTypes.STRING(300), allowNull: true },
       corrections: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       createdById: { type: DataTypes.INTEGER, allowNull: true },

@@ -58,6 +58,7 @@ export function initModels(sequelize: Sequelize): Sequelize {
   Interval.belongsTo(Interval, { foreignKey: "parentId", as: "parent" });
   ChartEdition.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
   ChartEdition.belongsTo(User, { foreignKey: "madeCurrentById", as: "madeCurrentBy" });
+  ChartEdition.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
   DatedEvent.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
   DatedEvent.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
   DatedEvent.belongsTo(User, { foreignKey: "updatedById", as: "updatedBy" });

@@ -18,7 +18,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare organisationId: ForeignKey<Organisation["id"]>;
   declare invitedById: ForeignKey<User["id"]> | null;
   declare email: string;
-  declare role: Role;
+  declare roles: Role[];
   declare tokenHash: string;
   declare expiresAt: Date;
   declare acceptedAt: Date | null;
@@ -37,7 +37,7 @@ export function initInvitation(sequelize: Sequelize) {
       organisationId: { type: DataTypes.INTEGER, allowNull: false },
       invitedById: { type: DataTypes.INTEGER, allowNull: true },
       email: { type: DataTypes.STRING(254), allowNull: false },
-      role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+      roles: { type: DataTypes.ARRAY(DataTypes.ENUM(...ROLES)), allowNull: false },
       tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       acceptedAt: { type: DataTypes.DATE, allowNull: true },

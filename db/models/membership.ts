@@ -16,7 +16,8 @@ export class Membership extends Model<InferAttributes<Membership>, InferCreation
   declare id: CreationOptional<number>;
   declare userId: ForeignKey<User["id"]>;
   declare organisationId: ForeignKey<Organisation["id"]>;
-  declare role: Role;
+  /** The roles held in the organisation: a set, never empty, in the order of ROLES. */
+  declare roles: Role[];
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare user?: NonAttribute<User>;
@@ -30,7 +31,7 @@ export function initMembership(sequelize: Sequelize) {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       userId: { type: DataTypes.INTEGER, allowNull: false },
       organisationId: { type: DataTypes.INTEGER, allowNull: false },
-      role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+      roles: { type: DataTypes.ARRAY(DataTypes.ENUM(...ROLES)), allowNull: false },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -5,6 +5,8 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   declare id: CreationOptional<number>;
   declare name: string;
   declare slug: string;
+  /** The chart edition the organisation works against (null: it follows the latest shared edition). */
+  declare currentEditionId: number | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -16,6 +18,7 @@ export function initOrganisation(sequelize: Sequelize) {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       name: { type: DataTypes.STRING(200), allowNull: false },
       slug: { type: DataTypes.STRING(100), allowNull: false, unique: true },
+      currentEditionId: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -1,7 +1,8 @@
 // Factories and request helpers for integration tests (real Postgres, no mocks).
 import { randomBytes } from "node:crypto";
 import { Membership, Organisation, User } from "../../db/models/index.ts";
-import type { Role } from "../../app/lib/roles.ts";
+import { normaliseRoles, type Role } from "../../app/lib/roles.ts";
+import { sequelize } from "../../server/db.server.ts";
 import { hashPassword, startSession } from "../../server/auth.server.ts";
 
 export const TEST_PASSWORD = "correct horse battery";
@@ -20,10 +21,16 @@ export async function createUser(opts: { email?: string; name?: string } = {}) {
   return User.create({ email: opts.email ?? `${unique("user")}@example.org`, name: opts.name ?? "Test Person", passwordHash: cachedHash, lastSignInAt: null });
 }
 
-export async function createMember(organisation: Organisation, role: Role, opts: { email?: string } = {}) {
+/** A new user holding one role, or a set of roles, in the organisation. */
+export async function createMember(organisation: Organisation, roles: Role | Role[], opts: { email?: string } = {}) {
   const user = await createUser(opts);
-  const membership = await Membership.create({ userId: user.id, organisationId: organisation.id, role });
+  const membership = await Membership.create({ userId: user.id, organisationId: organisation.id, roles: normaliseRoles(Array.isArray(roles) ? roles : [roles]) });
   return { user, membership };
+}
+
+/** Make an existing user a site-wide chart steward (as `npm run steward -- add EMAIL` does). */
+export async function makeSteward(userId: number) {
+  await sequelize.query(`INSERT INTO chart_stewards (user_id) VALUES ($1) ON CONFLICT DO NOTHING`, { bind: [userId] });
 }
 
 /** A Cookie header for a signed-in session of this user (optionally in a given organisation). */

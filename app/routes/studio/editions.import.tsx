@@ -10,16 +10,17 @@ import { TimescaleChart } from "~/components/chart/timescale-chart";
 import { Field, FormMessage } from "~/components/forms";
 import { CSV_COLUMNS } from "~/lib/timescale";
 import { parseForm } from "~/lib/validation";
-import { requireMember } from "#server/auth.server.ts";
+import { can } from "~/lib/permissions";
+import { requireAnyPermission, type Signed } from "#server/auth.server.ts";
 import {
+  assertMayImport,
   ConfirmSchema,
-  EDITION_MANAGERS,
   EditionError,
   FORMAT_LABELS,
   MAX_UPLOAD_BYTES,
   UploadSchema,
   confirmImport,
-  currentEdition,
+  currentEditionFor,
   detectFormat,
   fileText,
   previewImport,
@@ -33,18 +34,36 @@ export const meta: Route.MetaFunction = () => [{ title: "Import a chart edition 
 
 const DEFAULT_LICENCE = "CC BY 4.0 — Creative Commons Attribution 4.0 International (https://creativecommons.org/licenses/by/4.0/)";
 
-export async function loader({ request }: Route.LoaderArgs) {
-  await requireMember(request, EDITION_MANAGERS);
-  const current = await currentEdition();
-  // Server-side values are handed to the page here: the component must not import server code.
-  return { maxBytes: MAX_UPLOAD_BYTES, formatLabels: FORMAT_LABELS, current: current ? { slug: current.slug, label: current.label } : null, columns: [...CSV_COLUMNS] };
+const IMPORTERS = ["edition.import", "edition.manage-shared"] as const;
+
+/** Whose editions this person may import: their organisation's own, and (stewards) shared ones. */
+function ownersFor(s: Signed) {
+  const owners: { value: "organisation" | "shared"; label: string }[] = [];
+  if (s.organisation && can(s.subject, "edition.import")) owners.push({ value: "organisation", label: `${s.organisation.name}'s own edition (seen only by its members)` });
+  if (can(s.subject, "edition.manage-shared")) owners.push({ value: "shared", label: "A shared edition (a published ICS chart, for everyone)" });
+  return owners;
 }
 
-type Values = Partial<Record<"slug" | "label" | "source" | "licence" | "format", string>>;
+export async function loader({ request }: Route.LoaderArgs) {
+  const s = await requireAnyPermission(request, IMPORTERS);
+  const current = await currentEditionFor(s.organisation?.id ?? null);
+  // Server-side values are handed to the page here: the component must not import server code.
+  return { maxBytes: MAX_UPLOAD_BYTES, formatLabels: FORMAT_LABELS, current: current ? { slug: current.slug, label: current.label } : null, columns: [...CSV_COLUMNS], owners: ownersFor(s) };
+}
+
+type Values = Partial<Record<"slug" | "label" | "source" | "licence" | "format" | "owner", string>>;
 
 function valuesOf(form: FormData): Values {
   const v = (k: string) => (typeof form.get(k) === "string" ? String(form.get(k)) : undefined);
-  return { slug: v("slug"), label: v("label"), source: v("source"), licence: v("licence"), format: v("format") };
+  return { slug: v("slug"), label: v("label"), source: v("source"), licence: v("licence"), format: v("format"), owner: v("owner") };
+}
+
+/** The owner the form asks for (the first allowed when it names none); null = shared; undefined = not allowed. */
+function ownerIdOf(s: Signed, value: string | undefined): number | null | undefined {
+  const owners = ownersFor(s);
+  const choice = owners.find((o) => o.value === (value || owners[0]?.value));
+  if (!choice) return undefined;
+  return choice.value === "shared" ? null : s.organisation!.id;
 }
 
 /** The preview as the page needs it (names in other languages are not shown, so not sent). */
@@ -53,7 +72,7 @@ function forPage(p: ImportPreview) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const member = await requireMember(request, EDITION_MANAGERS);
+  const s = await requireAnyPermission(request, IMPORTERS);
   let form: FormData;
   try {
     form = await readLimitedFormData(request);
@@ -64,6 +83,17 @@ export async function action({ request }: Route.ActionArgs) {
     throw error;
   }
   const values = valuesOf(form);
+  const ownerId = ownerIdOf(s, values.owner);
+  if (ownerId === undefined) {
+    const message = "Owner: choose whose edition this is — your organisation's own, or (chart stewards only) a shared edition.";
+    return data({ step: "upload" as const, error: message, fields: { owner: message } as Record<string, string>, values, preview: null }, { status: 400 });
+  }
+  try {
+    assertMayImport(s.subject, ownerId);
+  } catch (error) {
+    if (error instanceof EditionError) return data({ step: "upload" as const, error: error.message, fields: { owner: error.message } as Record<string, string>, values, preview: null }, { status: error.status });
+    throw error;
+  }
 
   if (form.get("intent") === "confirm") {
     const parsed = parseForm(ConfirmSchema, form);
@@ -75,11 +105,11 @@ export async function action({ request }: Route.ActionArgs) {
       fileName,
       content,
       token,
-      actor: { id: member.user.id },
-      organisationId: member.organisation.id,
+      actor: { id: s.user.id, subject: s.subject },
+      ownerId,
     });
     if (result.saved) {
-      const message = `${result.edition.label} has been imported as a draft. Compare it with the current edition, then make it current when it has been checked.`;
+      const message = `${result.edition.label} has been imported as a draft${ownerId === null ? " shared edition" : ` of ${s.organisation!.name}'s own`}. Compare it with the current edition, then make it current when it has been checked.`;
       return redirect(`/editions/${result.edition.slug}`, { headers: { "Set-Cookie": await noticeHeader({ kind: "success", message }) } });
     }
     return data({ step: "preview" as const, error: result.message, fields: result.preview.metaErrors, values, preview: forPage(result.preview) }, { status: 422 });
@@ -96,7 +126,7 @@ export async function action({ request }: Route.ActionArgs) {
     throw error;
   }
   const format = chosen === "auto" ? detectFormat(file.name, text) : chosen;
-  const preview = await previewImport({ meta: { slug, label, source, licence }, format, fileName: file.name, content: text, userId: member.user.id });
+  const preview = await previewImport({ meta: { slug, label, source, licence }, format, fileName: file.name, content: text, userId: s.user.id, ownerId });
   const n = preview.problems.length + Object.keys(preview.metaErrors).length;
   return data(
     { step: "preview" as const, error: n ? `${n} problem${n === 1 ? "" : "s"} found. Nothing has been saved.` : null, fields: preview.metaErrors, values, preview: forPage(preview) },
@@ -105,7 +135,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function ImportEdition({ loaderData, actionData }: Route.ComponentProps) {
-  const { maxBytes, current, columns, formatLabels } = loaderData;
+  const { maxBytes, current, columns, formatLabels, owners } = loaderData;
   const busy = useNavigation().state === "submitting";
   const preview = actionData?.preview ?? null;
   const fields = actionData?.fields ?? {};
@@ -161,6 +191,7 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
               </dl>
               <Form method="post" encType="multipart/form-data" className="mt-4 flex flex-wrap items-center gap-3">
                 <input type="hidden" name="intent" value="confirm" />
+                <input type="hidden" name="owner" value={values.owner ?? owners[0]?.value ?? ""} />
                 <input type="hidden" name="slug" value={preview.meta.slug} />
                 <input type="hidden" name="label" value={preview.meta.label} />
                 <input type="hidden" name="source" value={preview.meta.source} />
@@ -195,6 +226,23 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
           <p className="mb-4 mt-1 font-sans text-sm text-ink-soft">Nothing is saved at this step: you see a preview and every problem first. At most {Math.round(maxBytes / (1024 * 1024))} MB.</p>
           <Form method="post" encType="multipart/form-data" noValidate>
             <input type="hidden" name="intent" value="preview" />
+            {owners.length > 1 ? (
+              <fieldset className="mb-4">
+                <legend className="mb-1 block text-sm font-semibold">Whose edition</legend>
+                {owners.map((o, i) => (
+                  <label key={o.value} className="flex items-center gap-2 font-sans text-sm">
+                    <input type="radio" name="owner" value={o.value} defaultChecked={values.owner ? values.owner === o.value : i === 0} /> {o.label}
+                  </label>
+                ))}
+                {fields.owner ? <p className="mt-1 font-sans text-sm text-danger">{fields.owner}</p> : null}
+              </fieldset>
+            ) : (
+              <>
+                <input type="hidden" name="owner" value={owners[0]?.value ?? ""} />
+                <p className="mb-4 font-sans text-sm">This will be {owners[0]?.label.replace(/ \(.*\)$/, "") ?? "an edition"}{owners[0]?.value === "organisation" ? ": always shown as your organisation's own, never as an ICS edition." : "."}</p>
+                {fields.owner ? <p className="mb-4 font-sans text-sm text-danger">{fields.owner}</p> : null}
+              </>
+            )}
             <div className="mb-4">
               <label htmlFor={`${id}-file`} className="mb-1 block text-sm font-semibold">File</label>
               <input id={`${id}-file`} name="file" type="file" accept=".csv,.json,.ttl,text/csv,application/json,text/turtle" className="field" aria-invalid={fields.file ? true : undefined} aria-describedby={fields.file ? `${id}-file-error` : undefined} />
@@ -211,7 +259,7 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
               {fields.format ? <p className="mt-1 font-sans text-sm text-danger">{fields.format}</p> : null}
             </div>
             <div className="grid gap-x-4 sm:grid-cols-2">
-              <Field label="Label" name="label" required placeholder="ICS 2025/06" defaultValue={values.label} error={fields.label} />
+              <Field label="Label" name="label" required placeholder={owners[0]?.value === "shared" ? "ICS 2025/06" : "Our working chart 2025"} defaultValue={values.label} error={fields.label} />
               <Field label="Slug" name="slug" required placeholder="ics-2025-06" hint="Its web address: /editions/<slug>" defaultValue={values.slug} error={fields.slug} />
             </div>
             <div className="mb-4">

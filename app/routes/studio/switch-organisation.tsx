@@ -1,6 +1,7 @@
 import { data, redirect } from "react-router";
 import { z } from "zod";
 import { parseForm } from "~/lib/validation";
+import { rolesInWords } from "~/lib/roles";
 import { requireMember } from "#server/auth.server.ts";
 import { getSession, noticeHeader, sessionStorage } from "#server/session.server.ts";
 import type { Route } from "./+types/switch-organisation";
@@ -23,6 +24,6 @@ export async function action({ request }: Route.ActionArgs) {
   session.set("organisationId", target.organisationId);
   const headers = new Headers();
   headers.append("Set-Cookie", await sessionStorage.commitSession(session));
-  headers.append("Set-Cookie", await noticeHeader({ kind: "info", message: `You are now working in ${target.organisation!.name} as ${target.role}.` }));
+  headers.append("Set-Cookie", await noticeHeader({ kind: "info", message: `You are now working in ${target.organisation!.name} as ${rolesInWords(target.roles, { lower: true })}.` }));
   return redirect("/studio", { headers });
 }

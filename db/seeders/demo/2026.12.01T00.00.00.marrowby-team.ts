@@ -17,7 +17,9 @@ export const up: Migration = async ({ sequelize }) => {
   await sequelize.transaction(async (transaction) => {
     const now = new Date();
     const [[org]] = (await sequelize.query(
-      `INSERT INTO organisations (name, slug, created_at, updated_at) VALUES ($1, $2, $3, $3)
+      // Marrowby works against ICS 2024/12 (its corridor wall, pinned to 2023/09, needs a re-check).
+      `INSERT INTO organisations (name, slug, current_edition_id, created_at, updated_at)
+       VALUES ($1, $2, (SELECT id FROM chart_editions WHERE slug = 'ics-2024-12' AND organisation_id IS NULL), $3, $3)
        ON CONFLICT (slug) DO UPDATE SET name = EXCLUDED.name RETURNING id`,
       { bind: [DEMO_ORGANISATION.name, DEMO_ORGANISATION.slug, now], transaction },
     )) as [{ id: number }[], unknown];
@@ -28,7 +30,7 @@ export const up: Migration = async ({ sequelize }) => {
         { bind: [u.email, u.name, hash, now], transaction },
       )) as [{ id: number }[], unknown];
       await sequelize.query(
-        `INSERT INTO memberships (user_id, organisation_id, role, created_at, updated_at) VALUES ($1, $2, $3, $4, $4)
+        `INSERT INTO memberships (user_id, organisation_id, roles, created_at, updated_at) VALUES ($1, $2, ARRAY[$3]::enum_memberships_roles[], $4, $4)
          ON CONFLICT (user_id, organisation_id) DO NOTHING`,
         { bind: [user.id, org.id, u.role, now], transaction },
       );
