@@ -17,20 +17,24 @@ import {
   type MediumType,
   type SuggestedInset,
 } from "./legibility";
-import { decadeFloor, displayStep, labelUnit, mediumResolution, roundAtStep, type RoundingBasis } from "./rounding";
+import { displayStep, labelUnit, mediumResolution, roundAtStep, uncertaintyFigures, type RoundingBasis } from "./rounding";
 import type { ScaleRequest } from "./schema";
 
 /** FHWA-RD-98-107: 1.2 m/s walking design speed. */
 export const DEFAULT_WALKING_SPEED_MPS = 1.2;
 /** MUTCD §4E.06: 0.9 m/s (3 ft/s) check for slower walkers. */
 export const DEFAULT_ACCESSIBLE_SPEED_MPS = 0.9;
-/** Common practice (not a standard): about 0.75 m per step. */
-export const DEFAULT_STEP_LENGTH_M = 0.75;
+/**
+ * Common practice (not a standard): a step is about 0.66 m (women) to 0.76 m (men). Step counts
+ * are shown as that range; `steps` keeps the lower count (the long step), `stepsUpTo` the higher.
+ */
+export const STEP_LENGTH_RANGE_M = [0.66, 0.76] as const;
+export const DEFAULT_STEP_LENGTH_M = STEP_LENGTH_RANGE_M[1];
 
 export const WALKING_SOURCES = {
   walkingSpeed: "FHWA-RD-98-107: 1.2 m/s pedestrian design walking speed",
   accessibleSpeed: "MUTCD §4E.06: 0.9 m/s (3 ft/s) slow-walker check",
-  stepLength: "common practice: about 0.75 m per step (not a standard)",
+  stepLength: "common practice: about 0.66–0.76 m per step (not a standard)",
 } as const;
 
 export interface DistanceLabel {
@@ -54,8 +58,11 @@ export interface Walking {
   distanceFromStartMetres: number;
   seconds: number;
   accessibleSeconds: number;
+  /** Steps at the long step length (the lower count). */
   steps: number;
-  /** e.g. "12 min walk (16 min at 0.9 m/s), about 1,200 steps" */
+  /** Steps at the short step length of the common-practice range (equal to `steps` when a single step length was asked for). */
+  stepsUpTo: number;
+  /** e.g. "12 min walk (16 min at 0.9 m/s), about 1,100–1,300 steps" */
   text: string;
 }
 
@@ -136,9 +143,12 @@ export interface ScaleResult {
       walkingSpeedMps: number;
       accessibleSpeedMps: number;
       stepLengthM: number;
+      /** The common-practice range of step lengths the counts span (both equal when one was asked for). */
+      stepLengthRangeM: [number, number];
       walkingSeconds: number;
       accessibleWalkingSeconds: number;
       steps: number;
+      stepsUpTo: number;
       sources: typeof WALKING_SOURCES;
       caution: string;
     };
@@ -169,8 +179,8 @@ function label(
   const b = roundAtStep(fromYounger, step.stepMetres, u);
   let unc: string | null = null;
   if (step.uncertaintyMetres !== null) {
-    // the uncertainty keeps its own significant figure even when the medium's resolution is coarser
-    unc = `± ${roundAtStep(step.uncertaintyMetres, Math.min(step.stepMetres, decadeFloor(step.uncertaintyMetres)), u).text}`;
+    // the uncertainty keeps its own figures (rounded up) even when the medium's resolution is coarser
+    unc = `± ${roundAtStep(step.uncertaintyMetres, Math.min(step.stepMetres, uncertaintyFigures(step.uncertaintyMetres)[1]), u).text}`;
   }
   return { fromOlderEnd: a.text, fromYoungerEnd: b.text, uncertainty: unc, stepMetres: clean(step.stepMetres), basis: step.basis };
 }
@@ -281,17 +291,24 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
   const walkingSpeed = request.walkingSpeedMps ?? DEFAULT_WALKING_SPEED_MPS;
   const accessibleSpeed = request.accessibleSpeedMps ?? DEFAULT_ACCESSIBLE_SPEED_MPS;
   const stepLength = request.stepLengthM ?? DEFAULT_STEP_LENGTH_M;
+  const shortStep = request.stepLengthM ?? STEP_LENGTH_RANGE_M[0];
+  // A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900".
+  const twoFigures = (n: number) => (n >= 100 ? Number(n.toPrecision(2)) : n);
+  const stepsText = (low: number, high: number) =>
+    low === high ? `about ${formatFixed(twoFigures(low), 0)} steps` : `about ${formatFixed(twoFigures(low), 0)}–${formatFixed(twoFigures(high), 0)} steps`;
   const routeStart = request.routeStart ?? "older";
   const walkingFor = (d: number): Walking => {
     const seconds = d / walkingSpeed;
     const accessibleSeconds = d / accessibleSpeed;
     const steps = Math.round(d / stepLength);
+    const stepsUpTo = Math.round(d / shortStep);
     return {
       distanceFromStartMetres: clean(d),
       seconds: clean(seconds),
       accessibleSeconds: clean(accessibleSeconds),
       steps,
-      text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${accessibleSpeed} m/s), about ${formatFixed(steps, 0)} steps`,
+      stepsUpTo,
+      text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${accessibleSpeed} m/s), ${stepsText(steps, stepsUpTo)}`,
     };
   };
   if (route) {
@@ -433,9 +450,11 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
       walkingSpeedMps: walkingSpeed,
       accessibleSpeedMps: accessibleSpeed,
       stepLengthM: stepLength,
+      stepLengthRangeM: request.stepLengthM === undefined ? [...STEP_LENGTH_RANGE_M] : [stepLength, stepLength],
       walkingSeconds: clean(route.totalMetres / walkingSpeed),
       accessibleWalkingSeconds: clean(route.totalMetres / accessibleSpeed),
       steps: Math.round(route.totalMetres / stepLength),
+      stepsUpTo: Math.round(route.totalMetres / shortStep),
       sources: WALKING_SOURCES,
       caution: ROUTE_CAUTION,
     };

@@ -3,8 +3,10 @@
  *
  * Rule (see README.md):
  *  1. With an uncertainty: the length uncertainty u = (age uncertainty) × (metres per year) is
- *     rounded to one significant figure; the distance is shown to the decade of that figure
- *     (u = 50 m → nearest 10 m; u = 0.3 mm → nearest 0.1 mm) and the uncertainty beside it.
+ *     rounded UP (a ± is never shown smaller than it is) to one significant figure, or to two
+ *     when the first digit is 1 or 2 (one figure would misstate it by up to 50 %: ± 0.011 km is
+ *     not "± 0.01 km"); the distance is shown to the place of that last figure (u = 50 m →
+ *     nearest 10 m; u = 11 m → nearest 1 m; u = 0.3 mm → nearest 0.1 mm), the uncertainty beside it.
  *  2. Without an uncertainty: the age is taken as good to three significant figures (66 Ma → to
  *     0.1 Ma); that step is converted to a length and the distance is shown to its decade. An age
  *     of exactly zero (the present) has no such step.
@@ -22,7 +24,7 @@ export interface DisplayStep {
   stepMetres: number;
   /** Which part of the rule set the step. */
   basis: RoundingBasis;
-  /** Length uncertainty rounded to one significant figure, metres (null without an uncertainty). */
+  /** Length uncertainty rounded up to its shown figures (see uncertaintyFigures), metres; null without one. */
   uncertaintyMetres: number | null;
 }
 
@@ -50,6 +52,20 @@ export function oneSignificantFigure(x: number): [number, number] {
   return [Number((r * q).toPrecision(1)), q];
 }
 
+/**
+ * A ± as shown: rounded UP, never down, to one significant figure — two when the leading digit is
+ * 1 or 2 — returning [shown value, place of its last figure]. 0.011 → [0.011, 0.001];
+ * 0.0113 → [0.012, 0.001]; 0.054 → [0.06, 0.01]; 96 → [100, 10]; 50 → [50, 10].
+ */
+export function uncertaintyFigures(x: number): [number, number] {
+  const d = decadeFloor(x);
+  const lead = Math.floor(x / d + 1e-9);
+  const q = lead <= 2 ? Number((d / 10).toPrecision(1)) : d;
+  // Float noise (0.011 / 0.001 = 10.999999…) must not push a value already on the grid up a step.
+  const n = Math.ceil(x / q - 1e-9);
+  return [Number((n * q).toPrecision(15)), q];
+}
+
 /** Decade at or below the smallest visible length: the medium's resolution. */
 export function mediumResolution(minVisibleMetres: number): number {
   return decadeFloor(minVisibleMetres);
@@ -72,7 +88,7 @@ export function displayStep(
   let basis: RoundingBasis = "medium-resolution";
   let uncertaintyMetres: number | null = null;
   if (uncertaintyYears != null && uncertaintyYears > 0) {
-    const [u1, q] = oneSignificantFigure(uncertaintyYears * metresPerYear);
+    const [u1, q] = uncertaintyFigures(uncertaintyYears * metresPerYear);
     uncertaintyMetres = u1;
     step = q;
     basis = "uncertainty";

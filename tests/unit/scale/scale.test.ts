@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { computeScale, parseScaleRequest, scaleFromJson, type ScaleResult } from "../../../app/lib/scale";
-import { displayStep, oneSignificantFigure, roundAtStep, decadeFloor } from "../../../app/lib/scale/rounding";
+import { displayStep, oneSignificantFigure, roundAtStep, decadeFloor, uncertaintyFigures } from "../../../app/lib/scale/rounding";
 import { niceCeil, readableMagnification, roundSubSpan } from "../../../app/lib/scale/legibility";
 import { formatYears, scaleStatement } from "../../../app/lib/scale/format";
 
@@ -77,6 +77,27 @@ describe("linear scale", () => {
 });
 
 describe("label rounding", () => {
+  it("keeps two figures of a ± whose first digit is 1 or 2, and never rounds a ± down", () => {
+    expect(uncertaintyFigures(0.011)).toEqual([0.011, 0.001]); // not 0.01: that would understate it by 9 %
+    expect(uncertaintyFigures(0.0113)).toEqual([0.012, 0.001]); // up, not to 0.011
+    expect(uncertaintyFigures(25)).toEqual([25, 1]);
+    expect(uncertaintyFigures(0.054)).toEqual([0.06, 0.01]); // one figure, rounded up
+    expect(uncertaintyFigures(50)).toEqual([50, 10]);
+    expect(uncertaintyFigures(96)).toEqual([100, 10]);
+    expect(uncertaintyFigures(0.00034)).toEqual([0.0004, 0.0001]);
+    for (const x of [0.011, 0.0113, 0.0199, 0.29, 3.01, 96, 0.00034, 1234]) expect(uncertaintyFigures(x)[0]).toBeGreaterThanOrEqual(x);
+    // The end-Cretaceous figure: 66.043 ± 0.011 Ma at 1 km per Ma → ± 11 m, shown as ± 0.011 km (was ± 0.01 km).
+    const r = run({
+      span: eon,
+      medium: { kind: "length", length: { value: 4567, unit: "km" } },
+      points: [{ id: "kpg", age: { value: 66.043, unit: "Ma" }, uncertainty: { value: 0.011, unit: "Ma" } }],
+    });
+    expect(r.points[0].uncertaintyMetres).toBeCloseTo(11, 9);
+    expect(r.points[0].display.uncertainty).toBe("± 0.011 km");
+    expect(r.points[0].display.stepMetres).toBe(1);
+    expect(r.points[0].display.fromOlderEnd).toBe("4,500.957 km");
+  });
+
   it("rounds the uncertainty to one significant figure and shows the distance at its decade", () => {
     expect(oneSignificantFigure(50)).toEqual([50, 10]);
     expect(oneSignificantFigure(0.096)).toEqual([0.1, 0.1]); // 96 mm rounds up to 0.1 m
@@ -128,7 +149,8 @@ describe("label rounding", () => {
     expect(d.basis).toBe("medium-resolution");
     // (4,567 − 252.16) / 4,567 × 18 m = 17.00614 m
     expect(d.fromOlderEnd).toBe("17.006 m");
-    expect(d.uncertainty).toBe("± 0.0002 m");
+    // ± 0.06 Ma × 18 m / 4,567 Ma = 0.000236 m: first digit 2, so two figures, rounded up
+    expect(d.uncertainty).toBe("± 0.00024 m");
   });
 
   it("rounds in imperial units without implying extra precision", () => {
@@ -312,10 +334,14 @@ describe("routes", () => {
     expect(end.position!.lon).toBeCloseTo(-2.87, 10);
     expect(end.position!.lat).toBeCloseTo(54.2068, 10);
     expect(mid.walking!.distanceFromStartMetres).toBeCloseTo(L / 2, 6);
-    // FHWA-RD-98-107: 1.2 m/s; MUTCD §4E.06: 0.9 m/s; common practice: 0.75 m per step
+    // FHWA-RD-98-107: 1.2 m/s; MUTCD §4E.06: 0.9 m/s; common practice: 0.66–0.76 m per step
     expect(mid.walking!.seconds).toBeCloseTo(L / 2 / 1.2, 6);
     expect(mid.walking!.accessibleSeconds).toBeCloseTo(L / 2 / 0.9, 6);
-    expect(mid.walking!.steps).toBe(Math.round(L / 2 / 0.75));
+    expect(mid.walking!.steps).toBe(Math.round(L / 2 / 0.76));
+    expect(mid.walking!.stepsUpTo).toBe(Math.round(L / 2 / 0.66));
+    const twoFigures = (n: number) => Number(n.toPrecision(2)).toLocaleString("en-GB");
+    expect(mid.walking!.text).toContain(`about ${twoFigures(Math.round(L / 2 / 0.76))}–${twoFigures(Math.round(L / 2 / 0.66))} steps`);
+    expect(r.scale.route!.stepLengthRangeM).toEqual([0.66, 0.76]);
     expect(mid.bearing).toBeGreaterThan(0);
     expect(mid.bearing).toBeLessThan(90); // the route heads east-north-east
     expect(r.scale.route?.sources.walkingSpeed).toMatch(/FHWA-RD-98-107/);
@@ -333,6 +359,8 @@ describe("routes", () => {
     expect(r.points[0].position).toEqual({ lon: -2.9, lat: 54.2 });
     expect(r.points[0].walking!.seconds).toBe(0);
     expect(r.scale.route!.steps).toBe(Math.round(r.scale.totalMetres / 0.5));
+    expect(r.scale.route!.stepsUpTo).toBe(r.scale.route!.steps); // one step length asked for: no range
+    expect(r.scale.route!.stepLengthRangeM).toEqual([0.5, 0.5]);
     expect(r.scale.route!.walkingSeconds).toBeCloseTo(r.scale.totalMetres, 6);
   });
 
