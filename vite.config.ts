@@ -5,7 +5,7 @@ import { defineConfig } from "vite";
 
 const isTest = Boolean(process.env.VITEST);
 
-export default defineConfig({
+export default defineConfig(({ isSsrBuild }) => ({
   // The React Router plugin is left out under vitest: tests import modules directly.
   plugins: isTest ? [] : [tailwindcss(), reactRouter()],
   resolve: {
@@ -13,8 +13,13 @@ export default defineConfig({
   },
   build: {
     target: "es2022",
+    // The server build's entry is the Express app, which imports React Router's server build:
+    // the app, its routes and every server module end up in one module graph (server/app.ts).
+    rollupOptions: isSsrBuild ? { input: "./server/app.ts" } : undefined,
   },
   test: {
+    // Two cores: two test files at a time (Postgres and the stand-ins need some CPU too).
+    maxWorkers: 2,
     projects: [
       {
         extends: true,
@@ -34,7 +39,8 @@ export default defineConfig({
           setupFiles: ["tests/setup/per-file.ts"],
           testTimeout: 30_000,
           hookTimeout: 60_000,
-          fileParallelism: false,
+          // Each file gets its own copy of the template database (tests/setup/per-file.ts).
+          fileParallelism: true,
         },
       },
       {
@@ -51,4 +57,4 @@ export default defineConfig({
       },
     ],
   },
-});
+}));

@@ -38,6 +38,5 @@ export default [
     route("timescales/:slug", "routes/api.timescales.$slug.ts"),
     route("events", "routes/api.events.ts"),
   ]),
-  route("dev/mail", "routes/dev.mail.tsx"),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;

@@ -13,10 +13,10 @@ export interface MigrationContext {
   queryInterface: QueryInterface;
 }
 
-function runner(folder: string, modelName: string, db: Sequelize, quiet: boolean) {
+function runner(folder: string, modelName: string, db: Sequelize, quiet: boolean, dir = path.join(here, folder)) {
   return new Umzug<MigrationContext>({
     migrations: {
-      glob: ["*.ts", { cwd: path.join(here, folder), ignore: ["*.d.ts", "*.test.ts"] }],
+      glob: ["*.ts", { cwd: dir, ignore: ["*.d.ts", "*.test.ts"] }],
       resolve: ({ name, path: file, context }) => ({
         name: folder === "migrations" ? name : `${folder}/${name}`,
         up: async () => (await import(file!)).up(context),
@@ -46,7 +46,10 @@ export async function migrateAndSeed(opts: { demo: boolean; db: Sequelize; quiet
 
 export type Migration = (ctx: MigrationContext) => Promise<void>;
 
-/** Migrations in db/migrations that the database has not run yet (empty when up to date). */
-export async function pendingMigrations(db: Sequelize): Promise<string[]> {
-  return (await migrator(db, true).pending()).map((m) => m.name);
+/**
+ * Names of the migrations the database has not run yet (empty when up to date). `dir` is the
+ * migrations folder (a bundled server passes it: its own location is not db/).
+ */
+export async function pendingMigrations(db: Sequelize, dir = path.join(here, "migrations")): Promise<string[]> {
+  return (await runner("migrations", "migration_meta", db, true, dir).pending()).map((m) => m.name);
 }

@@ -1,6 +1,12 @@
-// The Express application: security headers, compression, static files, health check, logging,
-// and the React Router request handler. Used by server/index.ts in production and development.
+// The Express application and its life cycle. This module is the entry of the server build
+// (vite.config.ts: the SSR build's input), so the app, the React Router routes and every server
+// module are one module graph: one env cache, one logger, one Sequelize, one pg-boss. The Node
+// entry (server/index.ts) only loads this module: build/server/index.js in production, Vite's
+// ssrLoadModule("./server/app.ts") in development.
+import "react-router";
 import { randomBytes } from "node:crypto";
+import type { Server } from "node:http";
+import type { AddressInfo } from "node:net";
 import path from "node:path";
 import { createRequestHandler } from "@react-router/express";
 import compression from "compression";
@@ -8,10 +14,14 @@ import express, { type Request, type Response, type NextFunction } from "express
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import type { ServerBuild } from "react-router";
-import { sequelize } from "./db.server.ts";
+import type { Sequelize } from "sequelize";
+import { pendingMigrations } from "../db/migrator.ts";
 import { CLIENT_IP_HEADER } from "./auth.server.ts";
+import { closeDatabase, sequelize } from "./db.server.ts";
 import { env } from "./env.server.ts";
 import { logger } from "./logger.server.ts";
+import { stopBoss } from "./queue.server.ts";
+import { startWorkers } from "./workers.server.ts";
 
 declare module "react-router" {
   interface AppLoadContext {
@@ -19,14 +29,20 @@ declare module "react-router" {
   }
 }
 
+/** The React Router server build of this module graph (the same import the request handler uses). */
+export const loadServerBuild = (): Promise<ServerBuild> => import("virtual:react-router/server-build");
+
 export interface AppOptions {
-  build: ServerBuild | (() => Promise<ServerBuild>);
-  /** Vite dev middleware (development only). */
+  /** Defaults to the React Router build bundled with this module; tests pass their own. */
+  build?: () => Promise<ServerBuild>;
+  /** Vite's dev middleware (development only). */
   devMiddleware?: express.RequestHandler;
+  /** Handlers mounted first, e.g. the local launcher's /dev/mail inbox (never in production). */
+  before?: { path: string; handler: express.RequestHandler }[];
   clientDir?: string;
 }
 
-export async function healthCheck(db = sequelize): Promise<boolean> {
+export async function healthCheck(db: Sequelize = sequelize): Promise<boolean> {
   try {
     await db.query("SELECT 1");
     return true;
@@ -35,11 +51,12 @@ export async function healthCheck(db = sequelize): Promise<boolean> {
   }
 }
 
-export function createApp(options: AppOptions) {
+export function createApp(options: AppOptions = {}) {
   const app = express();
   const dev = Boolean(options.devMiddleware);
   app.disable("x-powered-by");
   if (env().TRUST_PROXY === "true") app.set("trust proxy", true);
+  for (const { path: at, handler } of options.before ?? []) app.use(at, handler);
 
   app.use(
     pinoHttp({
@@ -93,10 +110,86 @@ export function createApp(options: AppOptions) {
   app.all(
     "*",
     createRequestHandler({
-      build: options.build,
+      build: options.build ?? loadServerBuild,
       mode: dev ? "development" : "production",
       getLoadContext: (_req, res) => ({ cspNonce: res.locals.cspNonce as string }),
     }),
   );
   return app;
+}
+
+export interface StartOptions extends AppOptions {
+  /** Refuse to start while db/migrations in this folder has migrations the database has not run. */
+  migrationsDir?: string;
+  /** Overrides PORT (0: any free port). */
+  port?: number;
+  /** Runs after the server stopped taking requests (e.g. closing Vite). */
+  onStop?: () => Promise<void>;
+  /** Listen for SIGTERM/SIGINT and exit after a graceful stop (default true). */
+  handleSignals?: boolean;
+}
+
+export interface Running {
+  server: Server;
+  url: string;
+  /** Stops taking requests, lets the running ones finish, stops the workers and closes the pool. */
+  stop(): Promise<void>;
+}
+
+/** Thrown by start() when the server must not run; the message says what to do. */
+export class StartError extends Error {
+  override name = "StartError";
+}
+
+export async function start(options: StartOptions = {}): Promise<Running> {
+  const config = env(); // throws a readable message when the environment is not valid
+  if (options.migrationsDir) {
+    const pending = await pendingMigrations(sequelize, options.migrationsDir);
+    if (pending.length) {
+      await closeDatabase();
+      throw new StartError(
+        `Eonscale will not start: the database schema is out of date (${pending.length} migration${pending.length === 1 ? "" : "s"} not run: ${pending.join(", ")}).\n` +
+          "Run the migrations first: DATABASE_URL=… npx tsx db/cli.ts migrate",
+      );
+    }
+  }
+  const app = createApp(options);
+  if (config.RUN_WORKERS === "true") await startWorkers();
+
+  const server = app.listen(options.port ?? config.PORT, config.HOST);
+  await new Promise<void>((resolve, reject) => {
+    server.once("listening", resolve);
+    server.once("error", reject);
+  });
+  const { port } = server.address() as AddressInfo;
+  const url = `http://${config.HOST}:${port}`;
+  logger.info({ url }, "Eonscale is listening");
+
+  let stopping: Promise<void> | undefined;
+  const stop = () => {
+    stopping ??= (async () => {
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeIdleConnections();
+      // Requests in flight get up to 8 s to finish; then their connections are cut.
+      const cut = setTimeout(() => server.closeAllConnections(), 8_000);
+      await closed;
+      clearTimeout(cut);
+      await options.onStop?.().catch((error) => logger.error({ err: error }, "stop hook failed"));
+      await stopBoss().catch((error) => logger.error({ err: error }, "stopping the job queue failed"));
+      await closeDatabase().catch(() => {});
+    })();
+    return stopping;
+  };
+
+  if (options.handleSignals !== false) {
+    const onSignal = (signal: NodeJS.Signals) => {
+      logger.info({ signal }, "shutting down");
+      const force = setTimeout(() => process.exit(1), 15_000);
+      force.unref();
+      void stop().then(() => process.exit(0));
+    };
+    process.once("SIGTERM", onSignal);
+    process.once("SIGINT", onSignal);
+  }
+  return { server, url, stop };
 }

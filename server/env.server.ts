@@ -1,41 +1,40 @@
-// Configuration from environment variables, validated once at start-up (fail fast).
-// Outside production every value has a default that points at the local stand-ins in fakes/.
+// Configuration from environment variables, validated once at start-up (fail fast). The server
+// knows no local stand-ins: the local launcher (fakes/launch.ts, npm start / npm run dev) and the
+// test setup pass their addresses as variables. Only harmless values have defaults outside
+// production (a local session secret, the local URL); in production they are required too.
 import { z } from "zod";
-import { serviceConfig } from "../fakes/config.ts";
 
 function schemaFor(source: NodeJS.ProcessEnv) {
-  const local = serviceConfig(source);
-  // A production build run against the local stand-ins (npm start) sets EONSCALE_LOCAL=1.
-  const isProduction = source.NODE_ENV === "production" && source.EONSCALE_LOCAL !== "1";
+  const isProduction = source.NODE_ENV === "production";
 
   function localDefault<T extends z.ZodType>(schema: T, value: z.input<T>) {
-    // In production the variable is required; elsewhere it falls back to the local stand-in.
+    // In production the variable is required; elsewhere it falls back to a local value.
     return isProduction ? schema : schema.default(value as never);
-}
+  }
+  const required = (name: string, what: string) => ({ error: (issue: { input: unknown }) => (issue.input === undefined ? `${name} is required (${what})` : `${name} must be ${what}`) });
 
-return z.object({
-  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
-  PORT: z.coerce.number().int().min(1).max(65535).default(3000),
-  HOST: z.string().min(1).default("127.0.0.1"),
-  APP_URL: localDefault(z.url({ error: "APP_URL must be the public base URL, e.g. https://eonscale.example" }), "http://127.0.0.1:3000"),
-  DATABASE_URL: localDefault(z.string().regex(/^postgres(ql)?:\/\//, { error: "DATABASE_URL must be a postgres:// URL" }), local.DATABASE_URL),
-  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
-  SESSION_SECRET: localDefault(z.string().min(32, { error: "SESSION_SECRET must be at least 32 characters (comma-separate several to rotate)" }), "local-development-secret-not-for-production-use"),
-  S3_ENDPOINT: isProduction ? z.url().optional() : z.url().default(local.s3.endpoint),
-  S3_REGION: z.string().default("us-east-1"),
-  S3_BUCKET: localDefault(z.string().min(3), local.s3.bucket),
-  S3_ACCESS_KEY_ID: localDefault(z.string().min(1), local.s3.accessKeyId),
-  S3_SECRET_ACCESS_KEY: localDefault(z.string().min(1), local.s3.secretAccessKey),
-  S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default(isProduction ? "false" : "true"),
-  SMTP_URL: localDefault(z.string().regex(/^smtps?:\/\//, { error: "SMTP_URL must be an smtp:// or smtps:// URL" }), local.SMTP_URL),
-  MAIL_FROM: z.string().default("Eonscale <no-reply@eonscale.example>"),
-  INBOX_URL: z.string().optional(),
-  TRUST_PROXY: z.enum(["true", "false"]).default("false"),
-  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
-  MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(30),
-  MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).default(12),
-  RUN_WORKERS: z.enum(["true", "false"]).default("true"),
-});
+  return z.object({
+    NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    HOST: z.string().min(1).default("127.0.0.1"),
+    APP_URL: localDefault(z.url({ error: "APP_URL must be the public base URL, e.g. https://eonscale.example" }), "http://127.0.0.1:3000"),
+    DATABASE_URL: z.string(required("DATABASE_URL", "a postgres:// URL")).regex(/^postgres(ql)?:\/\//, { error: "DATABASE_URL must be a postgres:// URL" }),
+    DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
+    SESSION_SECRET: localDefault(z.string().min(32, { error: "SESSION_SECRET must be at least 32 characters (comma-separate several to rotate)" }), "local-development-secret-not-for-production-use"),
+    S3_ENDPOINT: z.url().optional(),
+    S3_REGION: z.string().default("us-east-1"),
+    S3_BUCKET: isProduction ? z.string().min(3) : z.string().min(3).optional(),
+    S3_ACCESS_KEY_ID: isProduction ? z.string().min(1) : z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: isProduction ? z.string().min(1) : z.string().min(1).optional(),
+    S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default(source.S3_ENDPOINT ? "true" : "false"),
+    SMTP_URL: z.string(required("SMTP_URL", "an smtp:// or smtps:// URL")).regex(/^smtps?:\/\//, { error: "SMTP_URL must be an smtp:// or smtps:// URL" }),
+    MAIL_FROM: z.string().default("Eonscale <no-reply@eonscale.example>"),
+    TRUST_PROXY: z.enum(["true", "false"]).default("false"),
+    LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+    MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(30),
+    MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).default(12),
+    RUN_WORKERS: z.enum(["true", "false"]).default("true"),
+  });
 }
 
 export type Env = z.infer<ReturnType<typeof schemaFor>>;

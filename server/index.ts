@@ -1,57 +1,45 @@
-// Node entry: validates the environment, serves the React Router build (or Vite in --dev),
-// runs the background workers and shuts down gracefully on SIGTERM/SIGINT.
-import type { Server } from "node:http";
-import { sequelize } from "./db.server.ts";
-import { createApp } from "./app.ts";
-import { env, loadEnv } from "./env.server.ts";
-import { logger } from "./logger.server.ts";
-import { stopBoss } from "./queue.server.ts";
-import { startWorkers } from "./workers.server.ts";
+// Node entry. It loads nothing of the app itself: in production it imports the server build
+// (build/server/index.js, whose entry is server/app.ts), in development (--dev) it lets Vite load
+// server/app.ts — the same module — in middleware mode. Either way one module graph serves.
+//   npm run serve   production: refuses to run on a database with migrations not yet run
+//   npm run dev     development with hot reload (the local launcher, fakes/launch.ts, starts it)
+import { fileURLToPath } from "node:url";
+import type { RequestHandler } from "express";
 
-export async function startServer(opts: { dev?: boolean } = {}): Promise<Server> {
-  try {
-    loadEnv();
-  } catch (error) {
-    console.error((error as Error).message);
-    process.exit(1);
-  }
-  const config = env();
-  let app;
-  if (opts.dev) {
-    const vite = await import("vite");
-    const viteServer = await vite.createServer({ server: { middlewareMode: true }, appType: "custom" });
-    app = createApp({
-      devMiddleware: viteServer.middlewares,
-      build: () => viteServer.ssrLoadModule("virtual:react-router/server-build") as never,
-    });
-  } else {
-    const buildPath = new URL("../build/server/index.js", import.meta.url).href;
-    app = createApp({ build: await import(/* @vite-ignore */ buildPath) });
-  }
-  if (config.RUN_WORKERS === "true") await startWorkers();
+type AppModule = typeof import("./app.ts");
 
-  const server = app.listen(config.PORT, config.HOST, () => {
-    logger.info({ url: `http://${config.HOST}:${config.PORT}` }, "Eonscale is listening");
-  });
-
-  let stopping = false;
-  const shutdown = async (signal: string) => {
-    if (stopping) return;
-    stopping = true;
-    logger.info({ signal }, "shutting down");
-    const force = setTimeout(() => process.exit(1), 10_000);
-    force.unref();
-    server.close();
-    server.closeIdleConnections?.();
-    await stopBoss().catch(() => {});
-    await sequelize.close().catch(() => {});
-    process.exit(0);
-  };
-  process.once("SIGTERM", () => void shutdown("SIGTERM"));
-  process.once("SIGINT", () => void shutdown("SIGINT"));
-  return server;
+export interface LaunchOptions {
+  dev?: boolean;
+  /** Handlers mounted in front of the app (the local launcher's /dev/mail inbox). */
+  before?: { path: string; handler: RequestHandler }[];
+  /** Check that the schema is up to date before serving (production default). */
+  checkSchema?: boolean;
 }
 
-if (process.argv[1]?.endsWith("server/index.ts")) {
-  await startServer({ dev: process.argv.includes("--dev") });
+const root = fileURLToPath(new URL("..", import.meta.url));
+
+export async function launch(options: LaunchOptions = {}) {
+  if (options.dev) {
+    process.env.NODE_ENV ??= "development";
+    const { createServer } = await import("vite");
+    const vite = await createServer({ root, server: { middlewareMode: true }, appType: "custom" });
+    const app = (await vite.ssrLoadModule("/server/app.ts")) as AppModule;
+    return app.start({ devMiddleware: vite.middlewares, before: options.before, onStop: () => vite.close() });
+  }
+  const buildUrl = new URL("../build/server/index.js", import.meta.url).href;
+  const app = (await import(/* @vite-ignore */ buildUrl)) as AppModule;
+  return app.start({
+    before: options.before,
+    clientDir: fileURLToPath(new URL("../build/client", import.meta.url)),
+    migrationsDir: options.checkSchema === false ? undefined : fileURLToPath(new URL("../db/migrations", import.meta.url)),
+  });
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  try {
+    await launch({ dev: process.argv.includes("--dev") });
+  } catch (error) {
+    console.error(error instanceof Error ? error.message : error);
+    process.exit(1);
+  }
 }

@@ -5,7 +5,10 @@ import type { Transaction } from "sequelize";
 import { env } from "./env.server.ts";
 import { logger } from "./logger.server.ts";
 
-const globalForBoss = globalThis as unknown as { __eonscaleBoss?: Promise<PgBoss> };
+// In development the queue survives Vite's module reloads (globalThis), so a code change does not
+// start a second pg-boss; elsewhere this module is evaluated once and a module variable suffices.
+const globalForBoss: { __eonscaleBoss?: Promise<PgBoss> } =
+  process.env.NODE_ENV === "development" ? (globalThis as never) : {};
 
 export function getBoss(): Promise<PgBoss> {
   globalForBoss.__eonscaleBoss ??= (async () => {

@@ -1,10 +1,17 @@
 // The e-mail outbox: mail is queued in the same transaction as its cause, delivered by the pg-boss
-// worker, and survives an SMTP outage (retried with backoff until the server is back).
-import { afterAll, describe, expect, it } from "vitest";
+// worker, and survives an SMTP outage (retried with backoff until the server is back). This file
+// has its own SMTP stand-in on its own ports and mail folder: stopping it for the outage leaves
+// the shared stand-in and the developer's inbox alone.
+import { mkdtempSync, rmSync } from "node:fs";
+import { createServer } from "node:net";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { OutboxMessage } from "../../db/models/index.ts";
 import { sequelize } from "../../server/db.server.ts";
-import { clearInbox, waitForMessage } from "../../fakes/inbox.ts";
-import { startServices, stopServices } from "../../fakes/services.ts";
+import { waitForMessage } from "../../fakes/inbox.ts";
+import { startSmtpStandIn } from "../../fakes/smtp.ts";
+import { resetEnvForTests } from "../../server/env.server.ts";
 import { MAIL_QUEUE, queueEmail, startMailWorker } from "../../server/mail.server.ts";
 import { getBoss } from "../../server/queue.server.ts";
 import { unique } from "../helpers/db.ts";
@@ -24,9 +31,35 @@ async function until<T>(what: string, fn: () => Promise<T | null | undefined | f
   }
 }
 
+/** A TCP port nobody listens on right now (the kernel picks it). */
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once("error", reject);
+    probe.listen(0, "127.0.0.1", () => {
+      const { port } = probe.address() as { port: number };
+      probe.close(() => resolve(port));
+    });
+  });
+}
+
+const mailDir = mkdtempSync(path.join(tmpdir(), "eonscale-outbox-test-"));
+let smtp: Awaited<ReturnType<typeof startSmtpStandIn>> | undefined;
+let own: Parameters<typeof startSmtpStandIn>[0];
+
 describe("outbox delivery", () => {
+  beforeAll(async () => {
+    const [port, inboxPort] = [await freePort(), await freePort()];
+    own = { host: "127.0.0.1", port, inboxPort, url: `smtp://127.0.0.1:${port}`, inboxUrl: `http://127.0.0.1:${inboxPort}`, mailDir };
+    smtp = await startSmtpStandIn(own);
+    process.env.SMTP_URL = own.url;
+    process.env.INBOX_URL = own.inboxUrl;
+    resetEnvForTests(); // the mailer reads SMTP_URL when it first sends
+  });
+
   afterAll(async () => {
-    await startServices({ only: ["smtp"], quiet: true });
+    await smtp?.close();
+    rmSync(mailDir, { recursive: true, force: true });
   });
 
   it("a rolled-back change leaves neither a message nor a job", async () => {
@@ -43,7 +76,8 @@ describe("outbox delivery", () => {
   });
 
   it("keeps the message while SMTP is down and delivers it once SMTP is back", async () => {
-    await stopServices({ only: ["smtp"], quiet: true });
+    await smtp!.close();
+    smtp = undefined;
     const to = `${unique("outage")}@example.org`;
     const message = await sequelize.transaction((transaction) => queueEmail({ to, subject: "Delivered after an outage", text: "Hello from the outbox" }, transaction));
     expect(await jobsFor(message.id)).toHaveLength(1);
@@ -59,8 +93,7 @@ describe("outbox delivery", () => {
     expect(failed.lastError).toBeTruthy();
     expect(failed.sentAt).toBeNull();
 
-    await startServices({ only: ["smtp"], quiet: true });
-    await clearInbox().catch(() => {});
+    smtp = await startSmtpStandIn(own);
     const received = await waitForMessage({ to, subjectIncludes: "outage", timeoutMs: 45_000 });
     expect(received.text).toContain("Hello from the outbox");
 

@@ -8,6 +8,7 @@ import { loadEnv } from "../../server/env.server.ts";
 import { createSequelize } from "../../db/sequelize.ts";
 import { migrator } from "../../db/migrator.ts";
 import { dropDatabase, ensureDatabase } from "../../fakes/services.ts";
+import { TEST_DATABASE } from "../setup/test-env.ts";
 
 const fakeBuild = async () => {
   throw new Error("no React Router build in this test");
@@ -45,7 +46,7 @@ describe("server", () => {
   });
 
   it("migrations run up, down to nothing, and up again on a scratch database", async () => {
-    const name = "eonscale_migrations_check";
+    const name = `${TEST_DATABASE}_migrations_check`;
     await dropDatabase(name);
     const { url } = await ensureDatabase(name);
     const db = createSequelize(url);

@@ -1,5 +1,6 @@
 // vitest globalSetup for browser tests: builds the app and serves it (production build, local
-// stand-ins) on the test port against the test database; stopped after the run.
+// stand-ins) on the test port against the test database; stopped after the run. The server is
+// started the way `npm run serve` starts it: server/index.ts importing build/server/index.js.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { ensureChromium } from "./chromium.ts";
 import { applyTestEnv, E2E_PORT } from "./test-env.ts";
@@ -10,7 +11,7 @@ export default async function setup() {
   applyTestEnv();
   await ensureChromium();
   // Without vitest's own variables: vite.config.ts leaves the React Router plugin out under VITEST.
-  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production", EONSCALE_LOCAL: "1" };
+  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production" };
   for (const key of Object.keys(env)) if (key.startsWith("VITEST") || key === "TEST") delete env[key];
   if (process.env.EONSCALE_SKIP_BUILD !== "1") {
     const build = spawnSync("npx", ["react-router", "build"], { stdio: ["ignore", "ignore", "inherit"], env });
