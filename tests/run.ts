@@ -1,5 +1,6 @@
 // `npm test`: typecheck, then unit + integration tests, then browser tests, each against the
-// local stand-ins that the vitest global setup starts itself. Ends with one summary line.
+// local stand-ins that the vitest global setup starts itself. Prints the time of every step and
+// ends with a summary: counts and the time per step and in total.
 import { spawnSync } from "node:child_process";
 import { mkdirSync, readFileSync } from "node:fs";
 import path from "node:path";
@@ -40,10 +41,14 @@ const steps: [string, () => boolean][] = [
 
 let ok = true;
 const ran: string[] = [];
+const timings: [string, number][] = [];
+const runStarted = Date.now();
 for (const [name, step] of steps) {
   if (process.env.EONSCALE_TEST_ONLY && !process.env.EONSCALE_TEST_ONLY.split(",").includes(name)) continue;
   ran.push(name);
+  const started = Date.now();
   ok = step() && ok;
+  timings.push([name, (Date.now() - started) / 1000]);
 }
 
 const results = ran.filter((n) => n !== "typecheck").map((n) => counts(`${outDir}/vitest-${n === "browser" ? "e2e" : "main"}.json`));
@@ -54,4 +59,6 @@ function failed0() {
   return results.every((r) => r.numFailedTests === 0) ? 1 : 0; // a failing step with no failed test (typecheck, setup) still counts
 }
 console.log(`\n${passed} passed, ${failed} failed, ${skipped} skipped`);
+console.log(timings.map(([name, s]) => `  ${name.padEnd(20)} ${s.toFixed(1).padStart(7)} s`).join("\n"));
+console.log(`  ${"total".padEnd(20)} ${((Date.now() - runStarted) / 1000).toFixed(1).padStart(7)} s`);
 process.exit(ok ? 0 : 1);
