@@ -26,20 +26,21 @@ describe("invitations", () => {
   it("queues the e-mail with the invitation in one transaction, and the link creates the account once", async () => {
     const { org, admin } = await setup();
     const email = `${unique("new")}@example.org`;
-    const invitation = await inviteMember({ organisation: org, inviter: admin, email, role: "reviewer" });
+    const invitation = await inviteMember({ organisation: org, inviter: admin, email, roles: ["reviewer", "designer"] });
     const mail = await OutboxMessage.findOne({ where: { to: email } });
     expect(mail?.subject).toContain(org.name);
+    expect(mail?.text).toContain("as designer and reviewer.");
     const token = tokenFromOutbox(mail!.text, "/invite");
     expect(hashToken(token)).toBe(invitation.tokenHash);
 
     const shown = await settle(() => invite.loader(routeArgs(getRequest(`/invite/${token}`), { token })));
-    expect(shown.body).toMatchObject({ valid: true, email, role: "reviewer", organisation: org.name, hasAccount: false });
+    expect(shown.body).toMatchObject({ valid: true, email, roles: ["designer", "reviewer"], organisation: org.name, hasAccount: false });
 
     const accepted = await settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { name: "New Reviewer", password: "a-long-password", confirm: "a-long-password" }), { token })));
     expect(accepted.status).toBe(302);
     expect(accepted.headers.get("Set-Cookie")).toMatch(/^en_session=/);
     const user = await User.findOne({ where: { email } });
-    expect(await Membership.findOne({ where: { userId: user!.id, organisationId: org.id } })).toMatchObject({ role: "reviewer" });
+    expect(await Membership.findOne({ where: { userId: user!.id, organisationId: org.id } })).toMatchObject({ roles: ["designer", "reviewer"] });
 
     // Reused: refused with a clear message, nothing changes.
     const again = await settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { name: "Someone Else", password: "another-password", confirm: "another-password" }), { token })));
@@ -53,7 +54,7 @@ describe("invitations", () => {
   it("refuses an expired invitation and creates no user", async () => {
     const { org, admin } = await setup();
     const email = `${unique("late")}@example.org`;
-    const invitation = await inviteMember({ organisation: org, inviter: admin, email, role: "designer" });
+    const invitation = await inviteMember({ organisation: org, inviter: admin, email, roles: ["designer"] });
     const token = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: email } }))!.text, "/invite");
     await invitation.update({ expiresAt: new Date(Date.now() - 1000) });
     const shown = await settle(() => invite.loader(routeArgs(getRequest(`/invite/${token}`), { token })));
@@ -67,9 +68,9 @@ describe("invitations", () => {
   it("a newer invitation replaces the older one", async () => {
     const { org, admin } = await setup();
     const email = `${unique("twice")}@example.org`;
-    await inviteMember({ organisation: org, inviter: admin, email, role: "designer" });
+    await inviteMember({ organisation: org, inviter: admin, email, roles: ["designer"] });
     const first = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: email }, order: [["id", "ASC"]] }))!.text, "/invite");
-    await inviteMember({ organisation: org, inviter: admin, email, role: "editor" });
+    await inviteMember({ organisation: org, inviter: admin, email, roles: ["editor"] });
     const res = await settle(() => invite.loader(routeArgs(getRequest(`/invite/${first}`), { token: first })));
     expect((res.body as { message: string }).message).toMatch(/withdrawn or replaced/);
     expect(await Invitation.count({ where: { email, acceptedAt: null, revokedAt: null } })).toBe(1);
@@ -78,7 +79,7 @@ describe("invitations", () => {
   it("validates the invitee's form field by field and saves nothing", async () => {
     const { org, admin } = await setup();
     const email = `${unique("form")}@example.org`;
-    await inviteMember({ organisation: org, inviter: admin, email, role: "designer" });
+    await inviteMember({ organisation: org, inviter: admin, email, roles: ["designer"] });
     const token = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: email } }))!.text, "/invite");
     const short = await settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { name: "X", password: "short", confirm: "short" }), { token })));
     expect(short.body).toMatchObject({ field: "password", error: "Use at least 10 characters." });
@@ -92,7 +93,7 @@ describe("invitations", () => {
     const { org, admin } = await setup();
     const other = await createOrganisation();
     const { user } = await createMember(other, "designer");
-    await inviteMember({ organisation: org, inviter: admin, email: user.email, role: "reviewer" });
+    await inviteMember({ organisation: org, inviter: admin, email: user.email, roles: ["reviewer"] });
     const token = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: user.email }, order: [["id", "DESC"]] }))!.text, "/invite");
     const wrong = await settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { password: "not-it-at-all" }), { token })));
     expect(wrong.body).toMatchObject({ field: "password" });
@@ -104,7 +105,7 @@ describe("invitations", () => {
   it("refuses to invite someone who is already a member", async () => {
     const { org, admin } = await setup();
     const { user } = await createMember(org, "designer");
-    await expect(inviteMember({ organisation: org, inviter: admin, email: user.email, role: "editor" })).rejects.toThrow(/already a member/);
+    await expect(inviteMember({ organisation: org, inviter: admin, email: user.email, roles: ["editor"] })).rejects.toThrow(/already a member/);
     expect(await Invitation.count({ where: { email: user.email } })).toBe(0);
   });
 });
