@@ -4,19 +4,18 @@
 //
 // Shared entries (organisation_id NULL) are reference data from db/data/dated-events: read-only here.
 import { ForeignKeyConstraintError, Op, UniqueConstraintError, type WhereOptions } from "sequelize";
-import { DatedEvent, DecaySystem } from "../db/models/index.ts";
+import { DatedEvent, DecaySystem, User } from "../db/models/index.ts";
 import { sequelize } from "./db.server.ts";
 import { formatAge, type DatedEventInput, type DatedEventView, type Verification } from "../app/lib/dated-events.ts";
-import type { Role } from "../app/lib/roles.ts";
 import { audit } from "./audit.server.ts";
-import type { SeedDecaySystem } from "../db/data/dated-events/decay-systems.ts";
+import { SEED_DECAY_SYSTEMS, type SeedDecaySystem } from "../db/data/dated-events/decay-systems.ts";
+import { SEED_DATED_EVENTS } from "../db/data/dated-events/dated-events.ts";
+import { checkIntervalNames, type IntervalWarning } from "../app/lib/interval-consistency.ts";
+import { currentEditionFor, editionIntervals } from "./editions.server.ts";
 
-/** Roles that manage their organisation's library entries. Everyone else reads. */
-export const LIBRARY_MANAGERS = ["editor", "admin"] as const satisfies readonly Role[];
-
-export function canManageLibrary(role: Role): boolean {
-  return (LIBRARY_MANAGERS as readonly Role[]).includes(role);
-}
+/** What each shared entry was checked against (kept with the reference data, not in the database). */
+const SHARED_CHECKED = new Map(SEED_DATED_EVENTS.map((e) => [e.slug, e.checkedAgainst] as const));
+const SYSTEM_CHECKED = new Map(SEED_DECAY_SYSTEMS.map((d) => [d.slug, d.checkedAgainst] as const));
 
 export const LIBRARY_SCOPES = ["all", "shared", "ours"] as const;
 export type LibraryScope = (typeof LIBRARY_SCOPES)[number];
@@ -50,8 +49,31 @@ export function toEventView(row: DatedEvent): DatedEventView {
     url: row.url,
     datingMethod: row.datingMethod,
     verification: row.verification,
+    checkedAgainst: row.organisationId === null ? (SHARED_CHECKED.get(row.slug) ?? null) : null,
     scope: row.organisationId === null ? "shared" : "organisation",
   };
+}
+
+/** Names of the people who added and last changed an entry (null where unknown). */
+export async function entryPeople(row: DatedEvent): Promise<{ addedBy: string | null; changedBy: string | null }> {
+  const ids = [row.createdById, row.updatedById].filter((x): x is number => x !== null);
+  const people = ids.length ? await User.findAll({ where: { id: ids }, attributes: ["id", "name"] }) : [];
+  const nameOf = (id: number | null) => people.find((p) => p.id === id)?.name ?? null;
+  return { addedBy: nameOf(row.createdById), changedBy: nameOf(row.updatedById) };
+}
+
+/**
+ * Interval-name warnings for library entries on the organisation's current chart edition (the one
+ * place the library asks which edition that is). Empty when the organisation has no current edition.
+ */
+export async function libraryIntervalWarnings(
+  organisationId: number,
+  events: readonly DatedEventView[],
+): Promise<{ editionLabel: string | null; warnings: IntervalWarning[] }> {
+  const edition = await currentEditionFor(organisationId);
+  if (!edition) return { editionLabel: null, warnings: [] };
+  const intervals = await editionIntervals(edition.id);
+  return { editionLabel: edition.label, warnings: checkIntervalNames(intervals, events, { editionLabel: edition.label }) };
 }
 
 /** Entries an organisation can see: the shared library and its own. */
@@ -248,6 +270,7 @@ export function toDecaySystemView(row: DecaySystem): DecaySystemView {
     citation: row.citation,
     doi: row.doi,
     verification: row.verification,
+    checkedAgainst: SYSTEM_CHECKED.get(row.slug) ?? null,
     notes: row.notes,
   };
 }

@@ -267,6 +267,8 @@ export interface DatedEventView {
   url: string | null;
   datingMethod: string | null;
   verification: Verification;
+  /** Shared entries: the source the figures were checked against (null = not reached; own entries: null). */
+  checkedAgainst: string | null;
   /** "shared" = the Eonscale library every organisation sees; "organisation" = this organisation's own. */
   scope: "shared" | "organisation";
 }

@@ -80,7 +80,8 @@ describe("seeded reference data", () => {
     expect(bySlug.get("end-triassic-extinction")).toMatchObject({ ageMa: "201.564", uncertaintyMa: "0.015" });
     expect(bySlug.get("end-cretaceous-extinction")).toMatchObject({ ageMa: "66.043", uncertaintyMa: "0.011" });
     expect(bySlug.get("holocene-begins")).toMatchObject({ ageMa: "0.0117", uncertaintyMa: "0.000099" });
-    expect(bySlug.get("earliest-homo-sapiens-jebel-irhoud")).toMatchObject({ ageMa: "0.315", uncertaintyMa: "0.034", datingMethod: "Thermoluminescence of heated flint" });
+    // Richter et al. 2017 (Nature 546: 293–296): 315 ± 34 ka, a weighted average of TL ages on heated flint.
+    expect(bySlug.get("earliest-homo-sapiens-jebel-irhoud")).toMatchObject({ ageMa: "0.315", uncertaintyMa: "0.034", datingMethod: "Thermoluminescence of heated flint (weighted average)" });
     expect(bySlug.get("isua-stromatolites-contested")!.name).toMatch(/contested/);
   });
 
@@ -122,6 +123,38 @@ describe("the library page", () => {
     }
   });
 
+  it("editors, reviewers and admins see how far the figures were checked, and the interval-name check on the current edition; designers do not", async () => {
+    // An own entry whose text names an interval its age does not fall in (Late Devonian: 382.31–358.86 Ma on ICS 2024/12).
+    const bad = await createGood({ name: unique("Late Devonian fish bed"), ageValue: "300", uncertaintyValue: "", datingMethod: "" });
+    type Checking = { counts: Record<"checked" | "quoted" | "memory", number>; editionLabel: string | null; warnings: { eventId: number; interval: string; message: string }[] } | null;
+    for (const role of ["editor", "reviewer", "admin"]) {
+      const res = await settle(() => libraryPage.loader(routeArgs(getRequest("/studio/library", { cookie: cookie[role] }))));
+      const { checking, totals } = res.body as { checking: Checking; totals: { shared: number; ours: number } };
+      expect(checking!.counts.checked + checking!.counts.quoted + checking!.counts.memory).toBe(totals.shared + totals.ours);
+      expect(checking!.counts.checked).toBe(SEED_DATED_EVENTS.filter((e) => e.verification === "checked against the source").length + totals.ours);
+      expect(checking!.editionLabel).toBe("ICS 2024/12");
+      // Only the bad own entry warns: the shared library has none after its corrections.
+      expect(checking!.warnings.map((w) => [w.eventId, w.interval])).toEqual([[bad, "Late Devonian"]]);
+      expect(checking!.warnings[0].message).toContain("runs from 382.31 ± 1.36 to 358.86 Ma");
+    }
+    const designer = await settle(() => libraryPage.loader(routeArgs(getRequest("/studio/library", { cookie: cookie.designer }))));
+    expect((designer.body as { checking: Checking }).checking).toBeNull();
+    // The filter shows only the entries in one state.
+    const memory = await settle(() => libraryPage.loader(routeArgs(getRequest("/studio/library?checked=memory", { cookie: cookie.reviewer }))));
+    const events = (memory.body as { events: DatedEventView[] }).events;
+    expect(events.length).toBe(SEED_DATED_EVENTS.filter((e) => e.verification === "from memory").length);
+    expect(events.every((e) => e.verification === "from memory")).toBe(true);
+    await DatedEvent.destroy({ where: { id: bad } });
+  });
+
+  it("an entry page tells checkers, in a sentence, what the figures were checked against", async () => {
+    const irhoud = await DatedEvent.findOne({ where: { organisationId: null, slug: "earliest-homo-sapiens-jebel-irhoud" } });
+    const asReviewer = await settle(() => entryPage.loader(routeArgs(getRequest(`/studio/library/${irhoud!.id}`, { cookie: cookie.reviewer }), { id: String(irhoud!.id) })));
+    expect((asReviewer.body as { checked: string }).checked).toMatch(/^The figures were checked against the published source: Richter et al\. 2017 abstract/);
+    const asDesigner = await settle(() => entryPage.loader(routeArgs(getRequest(`/studio/library/${irhoud!.id}`, { cookie: cookie.designer }), { id: String(irhoud!.id) })));
+    expect((asDesigner.body as { checked: string | null }).checked).toBeNull();
+  });
+
   it("filters by shared / ours and searches name and summary", async () => {
     const name = unique("Quarry sandstone");
     await createGood({ name, summary: "Cross-bedded dune sandstone in the old Marrowby quarry." });
@@ -151,7 +184,7 @@ describe("the library page", () => {
     expect(res.status).toBe(200);
     const systems = (res.body as { systems: { slug: string; halfLifeYears: string }[] }).systems;
     expect(systems.map((s) => s.slug)).toEqual(SEED_DECAY_SYSTEMS.map((s) => s.slug));
-    expect(systems.find((s) => s.slug === "c14-n14")!.halfLifeYears).toBe("5730");
+    expect(systems.find((s) => s.slug === "c14-n14")!.halfLifeYears).toBe("5700"); // evaluated nuclear data; 5730 is the Cambridge convention
   });
 });
 
@@ -367,7 +400,7 @@ describe("GET /api/events", () => {
     expect(results[0].name).toBe(name); // starts with "Zircon"
     expect(results.map((r) => r.slug)).toEqual(expect.arrayContaining(["jack-hills-zircon"]));
     expect(Object.keys(results[0]).sort()).toEqual(
-      ["id", "slug", "name", "summary", "ageMa", "uncertaintyMa", "ageKind", "ageText", "citation", "doi", "url", "datingMethod", "verification", "scope"].sort(),
+      ["id", "slug", "name", "summary", "ageMa", "uncertaintyMa", "ageKind", "ageText", "citation", "doi", "url", "datingMethod", "verification", "checkedAgainst", "scope"].sort(),
     );
     expect(results.find((r) => r.slug === "jack-hills-zircon")).toMatchObject({ ageMa: "4404", uncertaintyMa: "8", ageText: "4404 ± 8 Ma", scope: "shared", datingMethod: "U–Pb zircon (SHRIMP ion microprobe)" });
 

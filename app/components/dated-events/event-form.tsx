@@ -182,18 +182,3 @@ export function ScopeBadge({ scope }: { scope: "shared" | "organisation" }) {
     <span className="inline-block rounded border border-sandstone-500 bg-sandstone-50 px-2 py-0.5 font-sans text-xs font-semibold text-sandstone-700">Ours</span>
   );
 }
-
-export function VerificationNote({ verification }: { verification: Verification }) {
-  const styles: Record<Verification, string> = {
-    "checked against the source": "text-ok",
-    "seen quoted by a secondary source": "text-slate-river-700",
-    "from memory": "text-warn",
-  };
-  const marks: Record<Verification, string> = { "checked against the source": "✓", "seen quoted by a secondary source": "≈", "from memory": "?" };
-  return (
-    <span className={`font-sans text-xs ${styles[verification]}`}>
-      <span aria-hidden="true">{marks[verification]} </span>
-      {verification[0].toUpperCase() + verification.slice(1)}
-    </span>
-  );
-}

@@ -3,13 +3,14 @@
 // entries. Shared entries are read-only (403 on any change); another organisation's entry is 404.
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { FormMessage } from "~/components/forms";
-import { EventForm, formValues, ScopeBadge, VerificationNote, type EventFormValues } from "~/components/dated-events/event-form";
+import { EventForm, formValues, ScopeBadge, type EventFormValues } from "~/components/dated-events/event-form";
+import { checkedSentence } from "~/components/dated-events/checking";
 import { decaySystemsForMethod, howWeKnow, decayFigures } from "~/lib/decay";
 import { AGE_KIND_HINTS, AGE_KIND_LABELS, DatedEventFormSchema, displayUnit, fromMa } from "~/lib/dated-events";
 import { parseForm } from "~/lib/validation";
-import { User } from "#db/models/index.ts";
-import { notFound, requireMember } from "#server/auth.server.ts";
-import { canManageLibrary, deleteEvent, findVisibleEvent, LIBRARY_MANAGERS, LibraryError, listDecaySystems, SHARED_READ_ONLY, toEventView, updateEvent } from "#server/dated-events.server.ts";
+import { can } from "~/lib/permissions";
+import { notFound, requireMember, requirePermission } from "#server/auth.server.ts";
+import { deleteEvent, entryPeople, findVisibleEvent, LibraryError, listDecaySystems, SHARED_READ_ONLY, toEventView, updateEvent } from "#server/dated-events.server.ts";
 import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/library.$id";
 
@@ -25,12 +26,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const row = await findVisibleEvent(member.organisation.id, idFrom(params));
   if (!row) notFound("There is no such entry in your library.");
   const event = toEventView(row);
-  const editable = event.scope === "organisation" && canManageLibrary(member.role);
-  const [people, systems] = await Promise.all([
-    User.findAll({ where: { id: [row.createdById, row.updatedById].filter((x): x is number => x !== null) }, attributes: ["id", "name"] }),
-    listDecaySystems(),
-  ]);
-  const nameOf = (id: number | null) => people.find((p) => p.id === id)?.name ?? null;
+  const editable = event.scope === "organisation" && can(member.subject, "dated-events.manage");
+  const [people, systems] = await Promise.all([entryPeople(row), listDecaySystems()]);
+  // Editors, reviewers and admins check figures: they read how far this entry's were checked.
+  const checker = member.roles.some((r) => r === "editor" || r === "reviewer" || r === "admin");
   const unit = displayUnit(event.ageMa);
   const values: EventFormValues | null = editable
     ? {
@@ -59,17 +58,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     event,
     organisation: member.organisation.name,
-    canManage: canManageLibrary(member.role),
+    canManage: can(member.subject, "dated-events.manage"),
     editable,
     values,
-    added: { by: nameOf(row.createdById), on: row.createdAt.toISOString().slice(0, 10) },
-    changed: { by: nameOf(row.updatedById), on: row.updatedAt.toISOString().slice(0, 10) },
+    added: { by: people.addedBy, on: row.createdAt.toISOString().slice(0, 10) },
+    changed: { by: people.changedBy, on: row.updatedAt.toISOString().slice(0, 10) },
+    checked: checker ? checkedSentence(event.verification, event.checkedAgainst, event.scope === "shared") : null,
     howWeKnow: howWeKnowPanels,
   };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const member = await requireMember(request, LIBRARY_MANAGERS);
+  const member = await requirePermission(request, "dated-events.manage");
   const id = idFrom(params);
   const form = await request.formData();
   const intent = String(form.get("intent") ?? "");
@@ -105,7 +105,7 @@ async function assertEditable(organisationId: number, id: number) {
 }
 
 export default function LibraryEntry({ loaderData, actionData }: Route.ComponentProps) {
-  const { event, organisation, canManage, editable, values, added, changed, howWeKnow: panels } = loaderData;
+  const { event, organisation, canManage, editable, values, added, changed, checked, howWeKnow: panels } = loaderData;
   const busy = useNavigation().state === "submitting";
   const doiLink = event.doi ? `https://doi.org/${event.doi}` : null;
   return (
@@ -138,8 +138,12 @@ export default function LibraryEntry({ loaderData, actionData }: Route.Component
             {doiLink ? <> <a href={doiLink} rel="noreferrer">doi:{event.doi}</a></> : null}
             {event.url ? <> · <a href={event.url} rel="noreferrer">{event.url}</a></> : null}
           </dd>
-          <dt className="font-semibold">Checked</dt>
-          <dd><VerificationNote verification={event.verification} /></dd>
+          {checked ? (
+            <>
+              <dt className="font-semibold">Checked</dt>
+              <dd>{checked}</dd>
+            </>
+          ) : null}
           {event.scope === "organisation" ? (
             <>
               <dt className="font-semibold">History</dt>
@@ -193,7 +197,7 @@ export default function LibraryEntry({ loaderData, actionData }: Route.Component
           <div className="card">
             <h2 className="text-lg">Shared reference entry</h2>
             <p className="mt-1 font-sans text-sm text-ink-soft">
-              Shared entries are read-only reference data, kept with their sources for every organisation. Figures marked “from memory” still need checking against the paper before anything is printed.
+              Shared entries are read-only reference data, kept with their sources for every organisation.
             </p>
             {canManage ? (
               <>

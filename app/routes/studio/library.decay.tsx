@@ -3,7 +3,7 @@
 // calculator runs the pure decay code in the browser.
 import { useMemo, useState } from "react";
 import { Link } from "react-router";
-import { VerificationNote } from "~/components/dated-events/event-form";
+import { checkedSentence } from "~/components/dated-events/checking";
 import { formatScientific, howWeKnow, decayFigures } from "~/lib/decay";
 import { DECIMAL_PATTERN, formatExactYears, toMa } from "~/lib/dated-events";
 import { AGE_UNITS, type AgeUnit } from "~/lib/units";
@@ -14,8 +14,11 @@ import type { Route } from "./+types/library.decay";
 export const meta: Route.MetaFunction = () => [{ title: "Decay systems · Event library · Eonscale" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireMember(request);
-  return { systems: await listDecaySystems() };
+  const member = await requireMember(request);
+  // Editors, reviewers and admins check figures: they read how far each half-life was checked.
+  const checker = member.roles.some((r) => r === "editor" || r === "reviewer" || r === "admin");
+  const systems = await listDecaySystems();
+  return { systems: systems.map((s) => ({ ...s, checked: checker ? checkedSentence(s.verification, s.checkedAgainst, true) : null })) };
 }
 
 /** "U-238" → "²³⁸U" for display. */
@@ -103,7 +106,7 @@ export default function DecaySystems({ loaderData }: Route.ComponentProps) {
                   </td>
                   <td className="max-w-md p-3">
                     <p className="font-serif">{s.citation}{s.doi ? <> <a href={`https://doi.org/${s.doi}`} rel="noreferrer">doi:{s.doi}</a></> : null}</p>
-                    <VerificationNote verification={s.verification} />
+                    {s.checked ? <p className="mt-1 font-sans text-xs">{s.checked}</p> : null}
                     {s.notes ? <p className="mt-1 text-ink-soft">{s.notes}</p> : null}
                   </td>
                 </tr>

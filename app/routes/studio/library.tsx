@@ -2,10 +2,12 @@
 // organisation's own. Everyone reads; editors and admins add, edit and delete their own entries.
 import { useEffect, useRef } from "react";
 import { Form, Link, useSubmit } from "react-router";
-import { ScopeBadge, VerificationNote } from "~/components/dated-events/event-form";
+import { ScopeBadge } from "~/components/dated-events/event-form";
+import { CHECK_FILTERS, CheckingSummary, IntervalWarnings, isCheckFilter, type CheckFilter } from "~/components/dated-events/checking";
 import { AGE_KIND_LABELS } from "~/lib/dated-events";
+import { can } from "~/lib/permissions";
 import { requireMember } from "#server/auth.server.ts";
-import { canManageLibrary, LIBRARY_SCOPES, listEvents, type LibraryScope } from "#server/dated-events.server.ts";
+import { LIBRARY_SCOPES, libraryIntervalWarnings, listEvents, type LibraryScope } from "#server/dated-events.server.ts";
 import type { Route } from "./+types/library";
 
 export const meta: Route.MetaFunction = () => [{ title: "Event library · Eonscale" }];
@@ -16,11 +18,22 @@ export async function loader({ request }: Route.LoaderArgs) {
   const q = (url.searchParams.get("q") ?? "").trim().slice(0, 100);
   const rawScope = url.searchParams.get("scope") ?? "all";
   const scope: LibraryScope = (LIBRARY_SCOPES as readonly string[]).includes(rawScope) ? (rawScope as LibraryScope) : "all";
-  const [events, all] = await Promise.all([listEvents(member.organisation.id, { q, scope }), q || scope !== "all" ? listEvents(member.organisation.id) : null]);
-  const everything = all ?? events;
+  const rawChecked = url.searchParams.get("checked");
+  const checked: CheckFilter | null = isCheckFilter(rawChecked) ? rawChecked : null;
+  const [listed, all] = await Promise.all([listEvents(member.organisation.id, { q, scope }), q || scope !== "all" ? listEvents(member.organisation.id) : null]);
+  const everything = all ?? listed;
+  // Editors, reviewers and admins check figures: they see how far each was checked and which
+  // entries name an interval their age does not fall in (on the organisation's current edition).
+  const checker = member.roles.some((r) => r === "editor" || r === "reviewer" || r === "admin");
+  const events = checker && checked ? listed.filter((e) => e.verification === CHECK_FILTERS[checked]) : listed;
+  const count = (f: CheckFilter) => listed.filter((e) => e.verification === CHECK_FILTERS[f]).length;
+  const checking = checker
+    ? { counts: { checked: count("checked"), quoted: count("quoted"), memory: count("memory") }, filter: checked, ...(await libraryIntervalWarnings(member.organisation.id, everything)) }
+    : null;
   return {
+    checking,
     organisation: member.organisation.name,
-    canManage: canManageLibrary(member.role),
+    canManage: can(member.subject, "dated-events.manage"),
     q,
     scope,
     events,
@@ -29,7 +42,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export default function Library({ loaderData }: Route.ComponentProps) {
-  const { organisation, canManage, q, scope, events, totals } = loaderData;
+  const { organisation, canManage, q, scope, events, totals, checking } = loaderData;
   const submit = useSubmit();
   const formRef = useRef<HTMLFormElement>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
@@ -72,6 +85,13 @@ export default function Library({ loaderData }: Route.ComponentProps) {
         {filtered ? <Link to="/studio/library" className="btn-quiet no-underline">Clear</Link> : null}
       </Form>
 
+      {checking ? (
+        <>
+          <CheckingSummary counts={checking.counts} filter={checking.filter} query={q} />
+          <IntervalWarnings editionLabel={checking.editionLabel} warnings={checking.warnings} />
+        </>
+      ) : null}
+
       <p className="mt-4 font-sans text-sm text-ink-soft" role="status">
         {events.length === 0 ? "No entries match." : `${events.length} ${events.length === 1 ? "entry" : "entries"}${filtered ? " match" : ""}, oldest first.`}
       </p>
@@ -98,7 +118,6 @@ export default function Library({ loaderData }: Route.ComponentProps) {
               <p className="mt-1 figures font-semibold">{e.ageText}{e.ageKind !== "point" ? <span className="ml-2 text-xs font-normal text-ink-soft">{AGE_KIND_LABELS[e.ageKind]}</span> : null}</p>
               <p className="mt-1 line-clamp-3 text-sm text-ink-soft">{e.summary}</p>
               {e.datingMethod ? <p className="mt-1 font-sans text-xs">{e.datingMethod}</p> : null}
-              <VerificationNote verification={e.verification} />
             </li>
           ))}
         </ul>
@@ -130,7 +149,6 @@ export default function Library({ loaderData }: Route.ComponentProps) {
                   <td className="max-w-48 p-3">{e.datingMethod ?? <span className="text-ink-soft">—</span>}</td>
                   <td className="max-w-72 p-3">
                     <p className="line-clamp-2" title={e.citation}>{e.citation}</p>
-                    <VerificationNote verification={e.verification} />
                   </td>
                 </tr>
               ))}
