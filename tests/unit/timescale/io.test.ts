@@ -82,6 +82,26 @@ describe("CSV and JSON import/export round-trip", () => {
 describe("import with errors reports line numbers and fields", () => {
   const good = exportCsv(tinyChart()).trimEnd().split("\n");
 
+  it("CSV: boundary_kind is optional (files written before it still read) and must be GSSP, GSSA or empty", () => {
+    const header = good[0].split(",");
+    const at = header.indexOf("boundary_kind");
+    expect(at).toBe(header.length - 1);
+    const withoutColumn = good.map((l) => l.replace(/,[^,]*$/, "")).join("\n");
+    const old = parseCsv(withoutColumn);
+    expect(old.problems).toEqual([]);
+    expect(old.intervals.every((iv) => iv.boundaryKind === null)).toBe(true);
+    const lines = [...good];
+    lines[3] = lines[3].replace(/,false,false,/, ",true,false,").replace(/,$/, ",gssa"); // E1 (line 4): lower case accepted
+    lines[4] = lines[4].replace(/,$/, ",GSSX"); // P1 (line 5)
+    const r = parseCsv(lines.join("\n"));
+    expect(r.problems.filter((p) => p.rule === "row")).toEqual([
+      { interval: "P1", field: "boundary_kind", line: 5, rule: "row", message: "boundary kind must be GSSP, GSSA or empty (not stated)" },
+    ]);
+    const kindWithoutRatification = [...good];
+    kindWithoutRatification[4] = kindWithoutRatification[4].replace(/,$/, ",GSSP"); // P1 is gssp false
+    expect(parseCsv(kindWithoutRatification.join("\n")).problems.map((p) => `${p.interval} ${p.field} ${p.rule}`)).toContain("P1 boundaryKind boundary-kind");
+  });
+
   it("CSV: bad values on their file lines, with the CSV column names", () => {
     const lines = [...good];
     lines[2] = lines[2].replace(",eon,", ",aeon,"); // Young (line 3)
