@@ -1,10 +1,11 @@
-// Helpers for the chart-edition integration tests: multipart uploads, fixtures, and putting the
-// seeded current edition back after a test changed it (the test database is shared by all files).
+// Helpers for the chart-edition integration tests: multipart uploads, fixtures, a chart steward, and
+// putting the seeded latest shared edition back after a test changed it.
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { ChartEdition } from "../../db/models/index.ts";
-import { makeCurrent } from "../../server/editions.server.ts";
+import { makeLatest, type EditionActor } from "../../server/editions.server.ts";
+import { createUser, makeSteward } from "./db.ts";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 
@@ -37,8 +38,15 @@ export const TEST_META = {
   licence: "CC BY 4.0 (derived from ICS chart data)",
 };
 
-/** Make the seeded edition current again if a test changed it. */
-export async function restoreSeededCurrent(actorId: number) {
-  const current = await ChartEdition.findOne({ where: { status: "current" } });
-  if (current?.slug !== SEEDED_CURRENT) await makeCurrent(SEEDED_CURRENT, { id: actorId }, null);
+/** A new chart steward (in no organisation), as an actor for the edition functions. */
+export async function newSteward(): Promise<{ user: Awaited<ReturnType<typeof createUser>>; actor: EditionActor }> {
+  const user = await createUser();
+  await makeSteward(user.id);
+  return { user, actor: { id: user.id, subject: { roles: [], steward: true, userId: user.id, organisationId: null } } };
+}
+
+/** Make the seeded edition the latest shared one again if a test changed it. */
+export async function restoreSeededLatest(actor: EditionActor) {
+  const latest = await ChartEdition.findOne({ where: { status: "current", organisationId: null } });
+  if (latest?.slug !== SEEDED_CURRENT) await makeLatest(SEEDED_CURRENT, actor);
 }

@@ -10,9 +10,9 @@ import { RANKS, type Rank } from "../../app/lib/timescale/index.ts";
 import { loader as listLoader } from "../../app/routes/api.timescales.ts";
 import { loader as editionLoader } from "../../app/routes/api.timescales.$slug.ts";
 import { ChartEdition } from "../../db/models/index.ts";
-import { createDraftEdition, discardDraft, editionIntervals } from "../../server/editions.server.ts";
+import { createDraftEdition, discardDraft, editionIntervals, setOrganisationCurrent } from "../../server/editions.server.ts";
 import { createMember, createOrganisation, routeArgs, unique } from "../helpers/db.ts";
-import { SEEDED_CURRENT, SEEDED_RETIRED, TEST_META } from "../helpers/editions.ts";
+import { newSteward, SEEDED_CURRENT, SEEDED_RETIRED, TEST_META } from "../helpers/editions.ts";
 
 import { SEEDS, type Seed } from "../fixtures/ics-chart-check-values.ts";
 
@@ -74,8 +74,9 @@ describe("GET /api/timescales", () => {
       [SEEDED_RETIRED, "ICS 2023/09", "retired"],
     ]);
     expect(body.editions[0].status).toBe("current");
+    expect(seeded.map((e) => e.latest)).toEqual([true, false]);
     for (const e of body.editions) {
-      expect(Object.keys(e).sort()).toEqual(["label", "licence", "slug", "source", "status"]);
+      expect(Object.keys(e).sort()).toEqual(["label", "latest", "licence", "slug", "source", "status"]);
       expect(e.status).not.toBe("draft");
     }
     expect(String(seeded[0].source)).toContain("Episodes 48: 105–115");
@@ -90,7 +91,7 @@ describe("GET /api/timescales/:slug", () => {
     expect((body.edition.corrections as unknown[]).length).toBeGreaterThan(0);
     expect(body.intervals).toHaveLength(177);
     for (const iv of body.intervals) {
-      expect(Object.keys(iv).sort()).toEqual(["approximate", "baseMa", "baseUncertaintyMa", "color", "gssp", "name", "parent", "rank", "topMa"]);
+      expect(Object.keys(iv).sort()).toEqual(["approximate", "baseMa", "baseUncertaintyMa", "boundaryKind", "color", "gssp", "name", "parent", "rank", "topMa"]);
       expect(RANKS).toContain(iv.rank);
       expect(iv.color).toMatch(/^#[0-9A-F]{6}$/i);
       expect(typeof iv.baseMa).toBe("number");
@@ -106,6 +107,7 @@ describe("GET /api/timescales/:slug", () => {
       topMa: 486.85,
       color: "#7FA056",
       gssp: true,
+      boundaryKind: "GSSP",
       approximate: false,
     });
   });
@@ -118,8 +120,12 @@ describe("GET /api/timescales/:slug", () => {
     expect(by("Holocene").topMa).toBe(0);
     expect(by("Late Pleistocene").parent).toBe("Pleistocene"); // English name from the corrections
     expect(body.intervals.find((i) => i.name === "Kreide")).toBeUndefined();
-    // 2023/09's file states no ratification at all: null, not false.
-    expect(bodies[SEEDED_RETIRED]!.intervals.every((i) => i.gssp === null)).toBe(true);
+    // 2023/09's file states no ratification at all; the flags are carried over from 2024/12 where
+    // the boundary is the same (listed among the edition's corrections): Tonian GSSA, Valanginian
+    // not yet ratified (2024/12 file's version note).
+    const retired = (n: string) => bodies[SEEDED_RETIRED]!.intervals.find((i) => i.name === n) as unknown as { gssp: boolean | null; boundaryKind: string | null };
+    expect(retired("Tonian")).toMatchObject({ gssp: true, boundaryKind: "GSSA" });
+    expect(retired("Valanginian")).toMatchObject({ gssp: false, boundaryKind: null });
   });
 
   it("keeps chart order: Hadean first, Meghalayan last, parents before children", () => {
@@ -142,33 +148,37 @@ describe("GET /api/timescales/:slug", () => {
   });
 });
 
-describe("drafts are not public", () => {
-  let slug: string;
-  let actorId: number;
+describe("drafts and organisations' own editions are not public", () => {
+  let draft: string;
+  let own: string;
+  let ownerActor: { id: number; subject: { roles: ["editor"]; steward: false; organisationId: number } };
   beforeAll(async () => {
     const org = await createOrganisation();
     const { user } = await createMember(org, "editor");
-    actorId = user.id;
+    ownerActor = { id: user.id, subject: { roles: ["editor"], steward: false, organisationId: org.id } };
     const seeded = await ChartEdition.findOne({ where: { slug: SEEDED_CURRENT } });
-    slug = unique("draft-api");
-    await createDraftEdition({
-      meta: { slug, ...TEST_META },
-      intervals: await editionIntervals(seeded!.id),
-      corrections: [],
-      sourceFile: null,
-      actor: { id: actorId },
-      organisationId: org.id,
-      format: "csv",
-    });
+    const intervals = await editionIntervals(seeded!.id);
+    draft = unique("draft-api");
+    own = unique("own-api");
+    const base = { intervals, corrections: [], sourceFile: null, actor: { id: user.id }, format: "csv" as const };
+    await createDraftEdition({ ...base, meta: { slug: draft, ...TEST_META }, ownerId: null });
+    await createDraftEdition({ ...base, meta: { slug: own, ...TEST_META }, ownerId: org.id });
+    // The organisation uses its own edition: it is released for the organisation, still not public.
+    await setOrganisationCurrent(own, ownerActor, org.id);
   });
   afterAll(async () => {
-    await discardDraft(slug, { id: actorId }, null);
+    const { actor } = await newSteward();
+    await discardDraft(draft, actor);
   });
 
-  it("404 for a draft, and the list leaves it out", async () => {
-    expect((await getEdition(slug)).status).toBe(404);
-    const list = (await (await getList()).json()) as { editions: { slug: string }[] };
-    expect(list.editions.map((e) => e.slug)).not.toContain(slug);
+  it("404 for a shared draft and for an organisation's own edition, and the list leaves both out", async () => {
+    expect((await ChartEdition.findOne({ where: { slug: own } }))!.status).toBe("current");
+    expect((await getEdition(draft)).status).toBe(404);
+    expect((await getEdition(own)).status).toBe(404);
+    const list = (await (await getList()).json()) as { editions: { slug: string }[]; latest: string };
+    expect(list.editions.map((e) => e.slug)).not.toContain(draft);
+    expect(list.editions.map((e) => e.slug)).not.toContain(own);
+    expect(list.latest).toBe(SEEDED_CURRENT);
   });
 });
 

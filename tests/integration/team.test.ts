@@ -8,9 +8,9 @@ import { migrator } from "../../db/migrator.ts";
 import { dropDatabase, ensureDatabase } from "../../fakes/services.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, routeArgs, settle } from "../helpers/db.ts";
 
-function post(cookie: string, fields: Record<string, string | string[]>) {
+function post(cookie: string, fields: Record<string, string | string[] | undefined>) {
   const body = new URLSearchParams();
-  for (const [k, v] of Object.entries(fields)) for (const one of [v].flat()) body.append(k, one);
+  for (const [k, v] of Object.entries(fields)) for (const one of [v ?? []].flat()) body.append(k, one);
   const request = formRequest("/studio/team", {}, { cookie });
   return settle(() => team.action(routeArgs(new Request(request.url, { method: "POST", headers: request.headers, body: body.toString() }))));
 }
