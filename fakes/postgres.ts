@@ -218,7 +218,7 @@ export async function startPg(config: ServiceConfig, log: (line: string) => void
 
   const bin = await ensurePgInstalled(log);
   const owner = isRoot() ? postgresIds() : undefined;
-  mkdirSync(config.dataDir, { recursive: true });
+  mkdirSync(path.dirname(cfg.dataDir), { recursive: true });
   for (const dir of [cfg.dataDir, cfg.socketDir]) {
     mkdirSync(dir, { recursive: true, mode: 0o700 });
     if (owner) chownSync(dir, owner.uid, owner.gid);
@@ -234,7 +234,7 @@ export async function startPg(config: ServiceConfig, log: (line: string) => void
   if (!existsSync(path.join(cfg.dataDir, "PG_VERSION"))) {
     const started = Date.now();
     log(`  initialising a new PostgreSQL cluster in ${cfg.dataDir} (${bin}) …`);
-    const pwfile = path.join(config.dataDir, `.pg-pwfile-${process.pid}`);
+    const pwfile = path.join(path.dirname(cfg.dataDir), `.pg-pwfile-${process.pid}`);
     writeOwned(pwfile, `${cfg.password}\n`, owner);
     try {
       const result = await pgTool(
@@ -249,7 +249,7 @@ export async function startPg(config: ServiceConfig, log: (line: string) => void
           "--auth-local=trust",
           "--auth-host=scram-sha-256",
         ],
-        config.dataDir,
+        path.dirname(cfg.dataDir),
       );
       if (result.code !== 0) throw new ServiceError(`initdb failed (exit ${result.code}):\n${result.output}`);
     } finally {
@@ -265,7 +265,7 @@ export async function startPg(config: ServiceConfig, log: (line: string) => void
   }
   writeOwned(path.join(cfg.dataDir, "eonscale.conf"), eonscaleConf(config), owner);
 
-  const result = await pgTool(bin, "pg_ctl", ["start", "-D", cfg.dataDir, "-l", cfg.logFile, "-w", "-t", "60", "-s"], config.dataDir);
+  const result = await pgTool(bin, "pg_ctl", ["start", "-D", cfg.dataDir, "-l", cfg.logFile, "-w", "-t", "60", "-s"], path.dirname(cfg.dataDir));
   if (result.code !== 0 || !(await waitUntil(() => pgAccepts(config), 30_000, 100))) {
     throw new ServiceError(
       `PostgreSQL did not start (pg_ctl exit ${result.code}). ${result.output.trim()}\n` +
@@ -281,7 +281,7 @@ export async function stopPg(config: ServiceConfig): Promise<string> {
   if (!running) return "not running";
   const bin = await findPgBin();
   if (!bin) throw new ServiceError("Postgres is running but pg_ctl was not found to stop it");
-  const result = await pgTool(bin, "pg_ctl", ["stop", "-D", config.pg.dataDir, "-m", "fast", "-w", "-t", "60", "-s"], config.dataDir);
+  const result = await pgTool(bin, "pg_ctl", ["stop", "-D", config.pg.dataDir, "-m", "fast", "-w", "-t", "60", "-s"], path.dirname(config.pg.dataDir));
   if (result.code !== 0) throw new ServiceError(`pg_ctl stop failed (exit ${result.code}): ${result.output}`);
   return `stopped (was pid ${running.pid})`;
 }
