@@ -1,11 +1,6 @@
 import { isRouteErrorResponse, Link, useRouteError } from "react-router";
+import { messageOf } from "~/lib/validation";
 
-function messageOf(data: unknown): string | null {
-  if (data && typeof data === "object" && "message" in data && typeof (data as { message: unknown }).message === "string") {
-    return (data as { message: string }).message;
-  }
-  return typeof data === "string" && data.length < 500 ? data : null;
-}
 
 const TITLES: Record<number, string> = {
   400: "That request could not be understood",

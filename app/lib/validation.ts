@@ -17,3 +17,11 @@ export function parseForm<S extends z.ZodType>(schema: S, form: FormData | Recor
   const first = Object.entries(fieldErrors)[0];
   return { ok: false, fieldErrors, formError: first ? `Check the form: ${first[1]}` : "Check the form." };
 }
+
+/** The message a server's error answer carries ({ message } or short text), or null. */
+export function messageOf(data: unknown): string | null {
+  if (data && typeof data === "object" && "message" in data && typeof (data as { message: unknown }).message === "string") {
+    return (data as { message: string }).message;
+  }
+  return typeof data === "string" && data.length < 500 ? data : null;
+}

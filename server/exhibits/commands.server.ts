@@ -2,8 +2,8 @@
 // (revise.server.ts): one transaction, the revision claimed first, the exhibit recomputed, audited.
 import { Op } from "sequelize";
 import { data } from "react-router";
-import type { LineStringGeometry } from "../../app/lib/exhibit/index.ts";
-import { toYears, type AgeUnit, type LengthUnit } from "../../app/lib/units/index.ts";
+import type { MediumInput, NewExhibitInput, RouteMediumInput, SettingsInput } from "../../app/lib/exhibit/index.ts";
+import { toYears } from "../../app/lib/units/index.ts";
 import type { MediumType } from "../../app/lib/scale/legibility.ts";
 import type { Interval, Rank } from "../../app/lib/timescale/types.ts";
 import { ChartEdition, DecaySystem, Exhibit, ExhibitMedium, Inset, Marker } from "../../db/models/index.ts";
@@ -14,22 +14,6 @@ import { computeBundle, ExhibitError, intervalsWithIds, requireBundle, type Exhi
 import { reviseExhibit, type Actor } from "./revise.server.ts";
 
 // ---------- creating ----------
-
-export interface SettingsInput {
-  title: string;
-  spanOlderValue: number;
-  spanOlderUnit: AgeUnit;
-  spanYoungerValue: number;
-  spanYoungerUnit: AgeUnit;
-  mediumType: MediumType;
-  unitsPreference: "metric" | "us";
-  minVisibleMm?: number;
-  minSpacingMm?: number;
-}
-
-export type MediumInput =
-  | { kind: "length"; lengthValue: number; lengthUnit: LengthUnit; panelWidthValue?: number; panelWidthUnit?: LengthUnit }
-  | { kind: "route"; geometry: LineStringGeometry; lengthMetres: number; vertexCount: number; sourceName: string };
 
 function legibilityOf(s: SettingsInput) {
   return {
@@ -44,7 +28,7 @@ function mediumColumns(medium: MediumInput, mediumType: MediumType) {
     : { kind: "route" as const, mediumType, lengthValue: null, lengthUnit: null, panelWidthValue: null, panelWidthUnit: null, geometry: medium.geometry, routeLengthM: medium.lengthMetres, routeVertexCount: medium.vertexCount, sourceName: medium.sourceName };
 }
 
-export async function createExhibit(actor: Actor, input: { slug: string; editionSlug: string; settings: SettingsInput; medium: MediumInput }) {
+export async function createExhibit(actor: Actor, input: NewExhibitInput) {
   // Shared editions, or the organisation's own: never another organisation's, never a draft.
   const edition = await ChartEdition.findOne({ where: { slug: input.editionSlug, status: { [Op.ne]: "draft" }, [Op.or]: [{ organisationId: null }, { organisationId: actor.organisationId }] } });
   if (!edition) throw new ExhibitError("Choose a published chart edition to pin the exhibit to.", "editionSlug");
@@ -93,7 +77,7 @@ export function updateSettings(actor: Actor, slug: string, revision: number, s: 
 }
 
 /** Replaces a route exhibit's route (a new GPX or GeoJSON upload); markers keep their ages and move with it. */
-export function replaceRoute(actor: Actor, slug: string, revision: number, route: Extract<MediumInput, { kind: "route" }>) {
+export function replaceRoute(actor: Actor, slug: string, revision: number, route: RouteMediumInput) {
   return reviseExhibit(actor, slug, revision, "route.replace", async (b, transaction) => {
     if (b.medium.kind !== "route") throw new ExhibitError("This exhibit is a straight length, not a route.", "routeFile");
     await b.medium.update(mediumColumns(route, b.medium.mediumType), { transaction });

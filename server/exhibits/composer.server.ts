@@ -1,6 +1,6 @@
 // The composer page's data, and its commands, one per intent of app/lib/exhibit/intents.ts: each runs the matching
 // change and returns the notice the designer sees after the redirect.
-import { formatAgeMa, formatLength, readRouteFile, type ComposerCommand, type ComposerView } from "../../app/lib/exhibit/index.ts";
+import { formatAgeMa, formatLength, routeMediumOf, type ComposerCommand, type ComposerView } from "../../app/lib/exhibit/index.ts";
 import { toYears } from "../../app/lib/units/index.ts";
 import { addBoundaries, addCustom, addEvent, addInset, editMarker, removeInset, removeMarker, replaceRoute, updateSettings } from "./commands.server.ts";
 import { renderMarkdown } from "../markdown.server.ts";
@@ -52,11 +52,10 @@ export async function runComposerCommand(actor: Actor, slug: string, command: Co
       await removeInset(actor, slug, revision, command.insetId);
       return "Inset removed.";
     case "replace-route": {
-      const file = command.routeFile;
-      const r = readRouteFile(file.name, await file.text());
+      const r = await routeMediumOf(command.routeFile);
       if (!r.ok) throw new ExhibitError(r.message, "routeFile");
-      await replaceRoute(actor, slug, revision, { kind: "route", geometry: r.geometry, lengthMetres: r.lengthMetres, vertexCount: r.vertexCount, sourceName: file.name });
-      return `Route replaced by ${file.name} (${formatLength(r.lengthMetres, "metric", 0.01)}); every marker moved with it.`;
+      await replaceRoute(actor, slug, revision, r.medium);
+      return `Route replaced by ${r.medium.sourceName} (${formatLength(r.medium.lengthMetres, "metric", 0.01)}); every marker moved with it.`;
     }
     case "repin": {
       const { result } = await repinToCurrent(actor, slug, revision);

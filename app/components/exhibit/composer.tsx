@@ -11,8 +11,7 @@ import { InsetsSection } from "~/components/exhibit/insets";
 import { MarkersTable } from "~/components/exhibit/markers-table";
 import { Preview } from "~/components/exhibit/preview";
 import { SettingsForm } from "~/components/exhibit/settings-form";
-import { bandsFor, computeExhibit, draftOf, specOfDraft, standardDurations, type ComposerRefusal, type ComposerView, type SettingsDraft } from "~/lib/exhibit";
-import type { PreparedRoute } from "~/lib/geo/route";
+import { bandsFor, computeExhibit, draftOf, routeCacheFor, specOfDraft, standardDurations, type ComposerRefusal, type ComposerView, type SettingsDraft } from "~/lib/exhibit";
 import { toYears } from "~/lib/units";
 
 export function Composer({ view, refusal }: { view: ComposerView; refusal?: ComposerRefusal }) {
@@ -27,16 +26,11 @@ function ComposerBody({ view, refusal }: { view: ComposerView; refusal?: Compose
   const [lifeYears, setLifeYears] = useState("80");
   const set = (k: keyof SettingsDraft) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setDraft((d) => ({ ...d, [k]: e.target.value }));
   const spec = useMemo(() => specOfDraft(draft, view.spec), [draft, view.spec]);
-  const [routeCache] = useState<{ route?: PreparedRoute; geometry?: unknown }>({});
+  // The saved route is measured once; the preview reuses it on every keystroke.
+  const routeGeometry = view.spec.medium.kind === "route" ? view.spec.medium.geometry : null;
+  const routeCache = useMemo(() => routeCacheFor(routeGeometry), [routeGeometry]);
   // The preview: the scale engine, in the browser, on every change.
-  const preview = useMemo(() => {
-    const c = computeExhibit(spec, markers, standardDurations(Math.max(1, Number(lifeYears) || 80)), routeCache);
-    if (c.ok && c.route && spec.medium.kind === "route") {
-      routeCache.route = c.route;
-      routeCache.geometry = spec.medium.geometry;
-    }
-    return c;
-  }, [spec, markers, lifeYears, routeCache]);
+  const preview = useMemo(() => computeExhibit(spec, markers, standardDurations(Math.max(1, Number(lifeYears) || 80)), routeCache), [spec, markers, lifeYears, routeCache]);
   const units = draft.unitsPreference;
   const result = preview.ok ? preview.result : null;
   const flagged = new Set(result?.warnings.filter((w) => w.code.startsWith("markers-")).flatMap((w) => w.pointIds) ?? []);

@@ -1,11 +1,12 @@
 // Turning an exhibit into a scale-engine request, and the comparisons every exhibit shows.
 import { parseScaleRequest, type ScaleRequest } from "../scale/schema";
 import { computeScale, type ScaleResult } from "../scale/compute";
-import type { PreparedRoute } from "../geo/route";
+import { prepareRoute, type PreparedRoute } from "../geo/route";
+import { parseGeoJsonRoute } from "../geo/parse";
 import { intervalsAt } from "../timescale/lookup";
 import { toMetres, toYears } from "../units";
 import type { Interval, Rank } from "../timescale/types";
-import type { DurationSpec, ExhibitSpec, ResolvedMarker } from "./types";
+import type { DurationSpec, ExhibitSpec, LineStringGeometry, ResolvedMarker } from "./types";
 
 /** Comparisons shown on every exhibit. The life span is the visitor's to change in the preview. */
 export function standardDurations(lifeYears = 80): DurationSpec[] {
@@ -62,6 +63,16 @@ export function computeExhibit(spec: ExhibitSpec, markers: ResolvedMarker[], dur
     return { ok: true, request, route: cache!.route, result: computeScale(request, { route: cache!.route }) };
   }
   return { ok: true, request: parsed.request, route: parsed.route, result: computeScale(parsed.request, { route: parsed.route }) };
+}
+
+/**
+ * computeExhibit's route cache for a saved route: measured once (10⁴–10⁵ points), then reused on
+ * every keystroke of the preview. Undefined for a length medium or a geometry the engine refuses.
+ */
+export function routeCacheFor(geometry: LineStringGeometry | null): { route: PreparedRoute; geometry: LineStringGeometry } | undefined {
+  if (!geometry) return undefined;
+  const parsed = parseGeoJsonRoute(geometry, "medium.geometry");
+  return parsed.ok ? { route: prepareRoute(parsed.coords), geometry } : undefined;
 }
 
 /** Metres per year of an exhibit from its stored figures (a route's length was measured on upload). */

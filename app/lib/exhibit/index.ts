@@ -11,3 +11,4 @@ export * from "./list";
 export * from "./intents";
 export * from "./draft";
 export * from "./view";
+export * from "./new-exhibit";

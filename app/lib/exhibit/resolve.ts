@@ -43,7 +43,7 @@ export function resolveMarkers(
 ): ResolvedMarker[] {
   const resolved = rows.map((m): ResolvedMarker => {
     let ageMa: number;
-    let uncertaintyMa: number | null = null;
+    let uncertaintyMa: number | null;
     let intervalName: string | null = null;
     let intervalRank: Rank | null = null;
     let eventName: string | null = null;

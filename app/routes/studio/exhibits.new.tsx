@@ -2,13 +2,12 @@ import { useState } from "react";
 import { data, Form, redirect, useNavigation } from "react-router";
 import { Field, FormMessage, UnitSelect } from "~/components/forms";
 import { PageHeader } from "~/components/page-header";
-import { LengthMediumSchema, NewExhibitSchema, readRouteFile, SettingsSchema, slugify } from "~/lib/exhibit";
+import { readNewExhibitForm } from "~/lib/exhibit";
 import { MEDIUM_TYPES } from "~/lib/scale/legibility";
 import { AGE_UNITS, LENGTH_UNITS } from "~/lib/units";
-import { parseForm } from "~/lib/validation";
 import { requirePermission } from "#server/auth.server.ts";
 import { currentEditionFor, editionIntervals } from "#server/editions.server.ts";
-import { createExhibit, type MediumInput } from "#server/exhibits/commands.server.ts";
+import { createExhibit } from "#server/exhibits/commands.server.ts";
 import { pinnableEditions } from "#server/exhibits/list.server.ts";
 import { ExhibitError } from "#server/exhibits/load.server.ts";
 import { readExhibitForm } from "#server/exhibits/revise.server.ts";
@@ -33,36 +32,16 @@ export async function action({ request }: Route.ActionArgs) {
   const member = await requirePermission(request, "exhibit.edit");
   const read = await readExhibitForm(request);
   if (!read.ok) return data({ error: read.message, fields: { routeFile: read.message } as Record<string, string> }, { status: 413 });
-  const form = read.form;
-  const fields: Record<string, string> = {};
-  const base = parseForm(NewExhibitSchema, form);
-  const settings = parseForm(SettingsSchema, form);
-  if (!base.ok) Object.assign(fields, base.fieldErrors);
-  if (!settings.ok) Object.assign(fields, settings.fieldErrors);
-  let medium: MediumInput | null = null;
-  if (base.ok && base.data.mediumKind === "length") {
-    const m = parseForm(LengthMediumSchema, form);
-    if (m.ok) medium = { kind: "length", ...m.data };
-    else Object.assign(fields, m.fieldErrors);
-  } else if (base.ok) {
-    const file = form.get("routeFile");
-    if (!(file instanceof File) || file.size === 0) fields.routeFile = "Upload the route as a GeoJSON or GPX file.";
-    else {
-      const r = readRouteFile(file.name, await file.text());
-      if (r.ok) medium = { kind: "route", geometry: r.geometry, lengthMetres: r.lengthMetres, vertexCount: r.vertexCount, sourceName: file.name };
-      else fields.routeFile = r.message;
-    }
-  }
-  if (!base.ok || !settings.ok || !medium) return data({ error: "Check the highlighted fields.", fields }, { status: 400 });
-  const slug = base.data.slug ?? slugify(settings.data.title);
-  if (!slug) return data({ error: "Check the highlighted fields.", fields: { slug: "Give the exhibit a slug made of letters and digits." } as Record<string, string> }, { status: 400 });
+  const parsed = await readNewExhibitForm(read.form);
+  if (!parsed.ok) return data({ error: "Check the highlighted fields.", fields: parsed.fields }, { status: 400 });
+  const { input } = parsed;
   try {
-    await createExhibit({ organisationId: member.organisation.id, user: member.user }, { slug, editionSlug: base.data.editionSlug, settings: settings.data, medium });
+    await createExhibit({ organisationId: member.organisation.id, user: member.user }, input);
   } catch (error) {
     if (error instanceof ExhibitError) return data({ error: error.message, fields: { [error.field]: error.message } }, { status: 400 });
     throw error;
   }
-  return redirect(`/studio/exhibits/${slug}`, { headers: { "Set-Cookie": await noticeHeader({ kind: "success", message: `Exhibit created. Now add its markers.` }) } });
+  return redirect(`/studio/exhibits/${input.slug}`, { headers: { "Set-Cookie": await noticeHeader({ kind: "success", message: `Exhibit created. Now add its markers.` }) } });
 }
 
 export default function NewExhibit({ loaderData, actionData }: Route.ComponentProps) {
