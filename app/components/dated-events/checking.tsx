@@ -5,6 +5,11 @@ import { Link } from "react-router";
 import type { IntervalWarning } from "~/lib/interval-consistency";
 import type { Verification } from "~/lib/dated-events";
 
+/** The roles that check figures and so see how far each was checked: editors, reviewers, admins. */
+export function checksFigures(roles: readonly string[]): boolean {
+  return roles.some((r) => r === "editor" || r === "reviewer" || r === "admin");
+}
+
 export const CHECK_FILTERS = { checked: "checked against the source", quoted: "seen quoted by a secondary source", memory: "from memory" } as const satisfies Record<string, Verification>;
 export type CheckFilter = keyof typeof CHECK_FILTERS;
 

@@ -4,7 +4,7 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { FormMessage } from "~/components/forms";
 import { EventForm, formValues, ScopeBadge, type EventFormValues } from "~/components/dated-events/event-form";
-import { checkedSentence } from "~/components/dated-events/checking";
+import { checkedSentence, checksFigures } from "~/components/dated-events/checking";
 import { decaySystemsForMethod, howWeKnow, decayFigures } from "~/lib/decay";
 import { AGE_KIND_HINTS, AGE_KIND_LABELS, DatedEventFormSchema, displayUnit, fromMa } from "~/lib/dated-events";
 import { parseForm } from "~/lib/validation";
@@ -29,7 +29,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const editable = event.scope === "organisation" && can(member.subject, "dated-events.manage");
   const [people, systems] = await Promise.all([entryPeople(row), listDecaySystems()]);
   // Editors, reviewers and admins check figures: they read how far this entry's were checked.
-  const checker = member.roles.some((r) => r === "editor" || r === "reviewer" || r === "admin");
+  const checker = checksFigures(member.roles);
   const unit = displayUnit(event.ageMa);
   const values: EventFormValues | null = editable
     ? {

@@ -3,7 +3,7 @@
 // calculator runs the pure decay code in the browser.
 import { useMemo, useState } from "react";
 import { Link } from "react-router";
-import { checkedSentence } from "~/components/dated-events/checking";
+import { checkedSentence, checksFigures } from "~/components/dated-events/checking";
 import { formatScientific, howWeKnow, decayFigures } from "~/lib/decay";
 import { DECIMAL_PATTERN, formatExactYears, toMa } from "~/lib/dated-events";
 import { AGE_UNITS, type AgeUnit } from "~/lib/units";
@@ -16,7 +16,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Decay systems · Event 
 export async function loader({ request }: Route.LoaderArgs) {
   const member = await requireMember(request);
   // Editors, reviewers and admins check figures: they read how far each half-life was checked.
-  const checker = member.roles.some((r) => r === "editor" || r === "reviewer" || r === "admin");
+  const checker = checksFigures(member.roles);
   const systems = await listDecaySystems();
   return { systems: systems.map((s) => ({ ...s, checked: checker ? checkedSentence(s.verification, s.checkedAgainst, true) : null })) };
 }

@@ -3,7 +3,7 @@
 import { useEffect, useRef } from "react";
 import { Form, Link, useSubmit } from "react-router";
 import { ScopeBadge } from "~/components/dated-events/event-form";
-import { CHECK_FILTERS, CheckingSummary, IntervalWarnings, isCheckFilter, type CheckFilter } from "~/components/dated-events/checking";
+import { CHECK_FILTERS, CheckingSummary, checksFigures, IntervalWarnings, isCheckFilter, type CheckFilter } from "~/components/dated-events/checking";
 import { AGE_KIND_LABELS } from "~/lib/dated-events";
 import { can } from "~/lib/permissions";
 import { requireMember } from "#server/auth.server.ts";
@@ -24,7 +24,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const everything = all ?? listed;
   // Editors, reviewers and admins check figures: they see how far each was checked and which
   // entries name an interval their age does not fall in (on the organisation's current edition).
-  const checker = member.roles.some((r) => r === "editor" || r === "reviewer" || r === "admin");
+  const checker = checksFigures(member.roles);
   const events = checker && checked ? listed.filter((e) => e.verification === CHECK_FILTERS[checked]) : listed;
   const count = (f: CheckFilter) => listed.filter((e) => e.verification === CHECK_FILTERS[f]).length;
   const checking = checker
