@@ -19,8 +19,8 @@ function runner(folder: string, modelName: string, db: Sequelize, quiet: boolean
       glob: ["*.ts", { cwd: dir, ignore: ["*.d.ts", "*.test.ts"] }],
       resolve: ({ name, path: file, context }) => ({
         name: folder === "migrations" ? name : `${folder}/${name}`,
-        up: async () => (await import(file!)).up(context),
-        down: async () => (await import(file!)).down?.(context),
+        up: async () => (await import(/* @vite-ignore */ file!)).up(context),
+        down: async () => (await import(/* @vite-ignore */ file!)).down?.(context),
       }),
     },
     context: { sequelize: db, queryInterface: db.getQueryInterface() },
