@@ -146,7 +146,6 @@ export async function start(options: StartOptions = {}): Promise<Running> {
   if (options.migrationsDir) {
     const pending = await pendingMigrations(sequelize, options.migrationsDir);
     if (pending.length) {
-      await closeDatabase();
       throw new StartError(
         `Eonscale will not start: the database schema is out of date (${pending.length} migration${pending.length === 1 ? "" : "s"} not run: ${pending.join(", ")}).\n` +
           "Run the migrations first: DATABASE_URL=… npx tsx db/cli.ts migrate",

@@ -3,7 +3,10 @@
 import { once } from "node:events";
 import type { AddressInfo } from "node:net";
 import { describe, expect, it } from "vitest";
-import { createApp, healthCheck } from "../../server/app.ts";
+import { cpSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { createApp, healthCheck, start } from "../../server/app.ts";
 import { loadEnv } from "../../server/env.server.ts";
 import { createSequelize } from "../../db/sequelize.ts";
 import { migrator } from "../../db/migrator.ts";
@@ -63,6 +66,19 @@ describe("server", () => {
     } finally {
       await db.close();
       await dropDatabase(name);
+    }
+  });
+
+  it("production start-up refuses a database with a migration it has not run, naming it", async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), "eonscale-migrations-"));
+    try {
+      cpSync("db/migrations", dir, { recursive: true });
+      writeFileSync(path.join(dir, "2099.01.01T00.00.00.not-yet-run.ts"), "export const up = async () => {};\n");
+      await expect(start({ migrationsDir: dir, port: 0, handleSignals: false })).rejects.toThrow(
+        /schema is out of date \(1 migration not run: 2099\.01\.01T00\.00\.00\.not-yet-run\.ts\)/,
+      );
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
     }
   });
 });
