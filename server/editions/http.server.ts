@@ -3,7 +3,7 @@
 // organisation's own editions.
 import { createHash } from "node:crypto";
 import { exportCsv, exportJson } from "../../app/lib/timescale/index.ts";
-import { jsonError } from "../http.server.ts";
+import { JSON_CONTENT_TYPE, jsonError } from "../http.server.ts";
 import { loadEdition } from "./reads.server.ts";
 import { scopeOf, viewerOf } from "./viewer.server.ts";
 
@@ -39,7 +39,7 @@ export function cachedJson(request: Request, body: unknown, extra: Record<string
     ...extra,
   };
   if (notModified(request, etag)) return new Response(null, { status: 304, headers });
-  return new Response(text, { status: 200, headers: { ...headers, "Content-Type": "application/json; charset=utf-8" } });
+  return new Response(text, { status: 200, headers: { ...headers, "Content-Type": JSON_CONTENT_TYPE } });
 }
 
 /** A JSON error of the public timescale API (readable from any origin). */
@@ -64,6 +64,6 @@ export async function exportResponse(request: Request, slug: string, format: "cs
   };
   if (notModified(request, etag)) return new Response(null, { status: 304, headers });
   return new Response(text, {
-    headers: { ...headers, "Content-Type": format === "csv" ? "text/csv; charset=utf-8" : "application/json; charset=utf-8" },
+    headers: { ...headers, "Content-Type": format === "csv" ? "text/csv; charset=utf-8" : JSON_CONTENT_TYPE },
   });
 }
