@@ -5,7 +5,6 @@
 // Set EONSCALE_SKIP_SERVICE_TESTS=1 to skip (e.g. on a machine without Debian packages).
 import { randomBytes } from "node:crypto";
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, rmSync } from "node:fs";
-import { createServer, type Server } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
@@ -22,6 +21,7 @@ import {
   stopServices,
 } from "../../fakes/services.ts";
 import { placePg, sharedPgHome } from "../../fakes/postgres.ts";
+import { freePort, listenOn } from "../helpers/net.ts";
 
 const pg = createRequire(import.meta.url)("pg") as {
   Client: new (url: { connectionString: string }) => {
@@ -188,21 +188,6 @@ describe.skipIf(process.env.EONSCALE_SKIP_SERVICE_TESTS === "1")("local service 
   });
 });
 
-/** A port nobody listens on right now (the kernel picks it). */
-async function freePort(): Promise<number> {
-  const server = await listenOn(0);
-  const { port } = server.address() as { port: number };
-  await new Promise((r) => server.close(r));
-  return port;
-}
-
-function listenOn(port: number): Promise<Server> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.once("error", reject);
-    server.listen(port, "127.0.0.1", () => resolve(server));
-  });
-}
 
 /** Runs `fn` with the service manager pointed at a private data folder and private s3/smtp ports. */
 async function withPrivateServices(fn: () => Promise<void>) {

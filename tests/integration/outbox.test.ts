@@ -3,7 +3,6 @@
 // has its own SMTP stand-in on its own ports and mail folder: stopping it for the outage leaves
 // the shared stand-in and the developer's inbox alone.
 import { mkdtempSync, rmSync } from "node:fs";
-import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -15,6 +14,7 @@ import { resetEnvForTests } from "../../server/env.server.ts";
 import { MAIL_QUEUE, queueEmail, startMailWorker } from "../../server/mail.server.ts";
 import { getBoss } from "../../server/queue.server.ts";
 import { unique } from "../helpers/db.ts";
+import { freePort } from "../helpers/net.ts";
 
 async function jobsFor(outboxId: number) {
   const [rows] = await sequelize.query(`SELECT state, retry_count FROM pgboss.job WHERE name = $1 AND (data->>'outboxId')::bigint = $2`, { bind: [MAIL_QUEUE, outboxId] });
@@ -31,17 +31,6 @@ async function until<T>(what: string, fn: () => Promise<T | null | undefined | f
   }
 }
 
-/** A TCP port nobody listens on right now (the kernel picks it). */
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once("error", reject);
-    probe.listen(0, "127.0.0.1", () => {
-      const { port } = probe.address() as { port: number };
-      probe.close(() => resolve(port));
-    });
-  });
-}
 
 const mailDir = mkdtempSync(path.join(tmpdir(), "eonscale-outbox-test-"));
 let smtp: Awaited<ReturnType<typeof startSmtpStandIn>> | undefined;
