@@ -83,13 +83,42 @@ describe("dated-event corrections", () => {
     expect(event("end-cretaceous-extinction").summary).toMatch(/± 0\.043 Ma with it/);
   });
 
+  it("Last Glacial Maximum: the compilation is of ¹⁴C, ¹⁰Be and ³He ages — no luminescence", () => {
+    // Clark et al. 2009 abstract (Science 325: 710–714): "We used 5704 14C, 10Be, and 3He ages";
+    // nearly all ice sheets at their LGM positions from 26.5 ka to 19–20 ka.
+    const e = event("last-glacial-maximum");
+    expect(e.ageMa).toBe("0.0265");
+    expect(e.datingMethod).not.toMatch(/luminescence/);
+    expect(e.datingMethod).toMatch(/5704 radiocarbon and cosmogenic-exposure \(¹⁰Be, ³He\)/);
+  });
+
+  it("First land plants: the paper's c. 473–471 Ma is said to be on the 2010 time scale; 470 Ma is Dapingian today", () => {
+    // Rubinstein et al. 2010 abstract (New Phytologist 188: 365–369): "Dapingian (early Middle
+    // Ordovician, c. 473-471 Ma)". ICS 2024/12 Dapingian 471.3–469.4 Ma, ICS 2023/09 470.0–467.3 Ma
+    // (db/data/ics).
+    const e = event("first-land-plants-spores");
+    expect(e.ageMa).toBe("470");
+    expect(e.summary).toMatch(/about 473–471 Ma on the time scale of 2010/);
+    expect(Number(e.ageMa)).toBeLessThanOrEqual(471.3);
+    expect(Number(e.ageMa)).toBeGreaterThanOrEqual(469.4);
+  });
+
   it("every entry records its verification state, and a source wherever it is not 'from memory'", () => {
     for (const e of SEED_DATED_EVENTS) {
       expect(VERIFICATIONS).toContain(e.verification);
       if (e.verification !== "from memory") expect(e.checkedAgainst, e.slug).toBeTruthy();
     }
-    const checked = SEED_DATED_EVENTS.filter((e) => e.verification !== "from memory").length;
-    expect(checked).toBeGreaterThanOrEqual(15);
+    const count = (v: string) => SEED_DATED_EVENTS.filter((e) => e.verification === v).length;
+    // 22 checked against the source, 9 seen quoted, 4 from memory (README in db/data/dated-events).
+    expect(count("checked against the source")).toBeGreaterThanOrEqual(22);
+    expect(count("seen quoted by a secondary source")).toBeGreaterThanOrEqual(9);
+    expect(count("from memory")).toBeLessThanOrEqual(4);
+  });
+
+  it("entries still 'from memory' say what could and could not be checked", () => {
+    for (const e of SEED_DATED_EVENTS.filter((x) => x.verification === "from memory")) {
+      expect(e.checkedAgainst, e.slug).toMatch(/from memory/);
+    }
   });
 });
 
@@ -122,6 +151,34 @@ describe("decay-system corrections", () => {
   it("U-235: measured ²³⁸U/²³⁵U = 137.818 (Hiess et al. 2012) beside the conventional 137.88", () => {
     // Hiess et al. 2012 abstract (Science 335: 1610): 137.818 ± 0.045 (2σ).
     expect(system("u235-pb207").notes).toMatch(/137\.88 is the 1977 convention.*137\.818 ± 0\.045 \(2σ\)/);
+  });
+
+  it("U-238 and U-235: the 2σ ± shown is twice the 1σ of Jaffey et al. 1971", () => {
+    // IsoplotR constants, citing Jaffey et al. 1971 (standard errors): λ238 = 1.55125 ± 0.00083 ×
+    // 10⁻¹⁰ a⁻¹, λ235 = 9.8485 ± 0.0067 × 10⁻¹⁰ a⁻¹; relative 1σ = 0.0535 % and 0.068 %.
+    const u238 = system("u238-pb206");
+    const u235 = system("u235-pb207");
+    expect(Number(u238.halfLifeUncertaintyYears) / Number(u238.halfLifeYears) / 2).toBeCloseTo(0.00083 / 1.55125, 5);
+    expect(Number(u235.halfLifeUncertaintyYears) / Number(u235.halfLifeYears) / 2).toBeCloseTo(0.0067 / 9.8485, 5);
+  });
+
+  it("Rb-87: the ± of the 2015 recommendation is 0.0045 × 10⁻¹¹ a⁻¹ on λ, the same share as 0.16 Ga on t½", () => {
+    // georefdatar decay constants (uncertainty as stated by the source): Villa et al. 2015,
+    // λ = 1.3972 ± 0.0045 × 10⁻¹¹ a⁻¹; Steiger & Jäger 1977, 1.42 × 10⁻¹¹ a⁻¹ without uncertainty.
+    const s = system("rb87-sr87");
+    expect(s.decayConstantPerYear).toBe("1.3972e-11");
+    expect(Number(s.halfLifeUncertaintyYears) / Number(s.halfLifeYears)).toBeCloseTo(0.0045 / 1.3972, 4);
+    expect(s.notes).toMatch(/λ = 1\.3972 ± 0\.0045 × 10⁻¹¹ a⁻¹/);
+    expect(s.notes).toMatch(/1977 convention λ = 1\.42 × 10⁻¹¹ a⁻¹/);
+  });
+
+  it("every decay system records its state; a source wherever it is not 'from memory'", () => {
+    for (const s of SEED_DECAY_SYSTEMS) {
+      expect(VERIFICATIONS).toContain(s.verification);
+      if (s.verification !== "from memory") expect(s.checkedAgainst, s.slug).toBeTruthy();
+    }
+    // 6 of 10 seen quoted (U-238, U-235, Rb-87, K-40, Lu-176, C-14); Th-232, Sm-147, Re-187, Al-26 from memory.
+    expect(SEED_DECAY_SYSTEMS.filter((s) => s.verification !== "from memory").length).toBeGreaterThanOrEqual(6);
   });
 
   it("every ± says whether it is 1σ or 2σ, or that the level was not checked", () => {
