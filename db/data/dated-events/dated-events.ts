@@ -209,8 +209,8 @@ export const SEED_DATED_EVENTS: readonly SeedDatedEvent[] = [
     doi: "10.1126/science.1107765",
     url: null,
     datingMethod: "U–Pb zircon (ID-TIMS) of an ash bed",
-    verification: "from memory",
-    checkedAgainst: "Condon et al. 2005 abstract (Science 308(5718): 95–98, doi:10.1126/science.1107765; PubMed 15731406): U–Pb zircon dates of ash beds put Doushantuo deposition between 635 and 551 Ma, its base recording the end of the Marinoan glaciation — checked to 635 Ma. The figure shown, 635.2 ± 0.6 Ma, is not in the abstract and was not found elsewhere (from memory).",
+    verification: "seen quoted by a secondary source",
+    checkedAgainst: "An abstract on the age of the Nantuo Formation and Nantuo glaciation in South China (SHRIMP ages 654.5 ± 3.8 and 636.3 ± 4.9 Ma) quoting “the existing age of 635.2 ± 0.6 Ma from its overlying Doushantuo cap carbonate” — seen quoted. Condon et al. 2005 abstract (Science 308(5718): 95–98, doi:10.1126/science.1107765; PubMed 15731406): U–Pb zircon dates of ash beds put Doushantuo deposition between 635 and 551 Ma, its base recording the end of the Marinoan glaciation — checked to 635 Ma; the decimal and ± are not in the abstract.",
   },
   {
     slug: "oldest-ediacaran-macrofossils",
