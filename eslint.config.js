@@ -6,7 +6,7 @@ import globals from "globals";
 import tseslint from "typescript-eslint";
 
 export default tseslint.config(
-  { ignores: ["build/", ".react-router/", "node_modules/", ".data/", "test-results/", "db/data/ics/source/"] },
+  { ignores: ["build/", "build-*/", ".react-router/", "node_modules/", ".data/", "test-results/", "db/data/ics/source/"] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -17,6 +17,8 @@ export interface LaunchOptions {
 }
 
 const root = fileURLToPath(new URL("..", import.meta.url));
+/** The build folder (EONSCALE_BUILD_DIR, relative to the repository; default "build"). */
+const buildDir = new URL(`../${(process.env.EONSCALE_BUILD_DIR || "build").replace(/\/+$/, "")}/`, import.meta.url);
 
 export async function launch(options: LaunchOptions = {}) {
   if (options.dev) {
@@ -26,11 +28,11 @@ export async function launch(options: LaunchOptions = {}) {
     const app = (await vite.ssrLoadModule("/server/app.ts")) as AppModule;
     return app.start({ devMiddleware: vite.middlewares, before: options.before, onStop: () => vite.close() });
   }
-  const buildUrl = new URL("../build/server/index.js", import.meta.url).href;
+  const buildUrl = new URL("server/index.js", buildDir).href;
   const app = (await import(/* @vite-ignore */ buildUrl)) as AppModule;
   return app.start({
     before: options.before,
-    clientDir: fileURLToPath(new URL("../build/client", import.meta.url)),
+    clientDir: fileURLToPath(new URL("client", buildDir)),
     migrationsDir: options.checkSchema === false ? undefined : fileURLToPath(new URL("../db/migrations", import.meta.url)),
   });
 }
