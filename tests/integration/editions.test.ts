@@ -512,7 +512,8 @@ describe("reading: visitors and members see published editions; drafts only edit
   it("compare: the seeded editions' moved boundaries, grouped by boundary", async () => {
     const res = await settle(() => compareRoute.loader(routeArgs(getRequest(`/editions/compare?from=${SEEDED_RETIRED}&to=${SEEDED_CURRENT}`))));
     const pair = (res.body as { pair: { moved: { names: string[]; oldBaseMa: number; newBaseMa: number; shiftMa: number }[]; movedIntervals: number; gsspStated: unknown[] } }).pair;
-    expect(pair.movedIntervals).toBe(73);
+    // 72: the 2023/09 Sakmarian base is corrected to the printed chart's 293.52 Ma (its data file had 293.51), the same as 2024/12, so it no longer moves.
+    expect(pair.movedIntervals).toBe(72);
     const cretaceous = pair.moved.find((m) => m.names[0] === "Cretaceous")!;
     expect(cretaceous).toMatchObject({ names: ["Cretaceous", "Early Cretaceous", "Berriasian"], oldBaseMa: 145, newBaseMa: 143.1, shiftMa: -1.9 });
     expect(pair.gsspStated).toHaveLength(0); // 2023/09's flags are carried over from 2024/12 (its corrections list)
