@@ -1,5 +1,5 @@
-// Where the local stand-ins live and how to reach them. Pure: no I/O, safe to import anywhere
-// on the server side (the app's dev pages, tests, the service processes themselves).
+// Where the local stand-ins live and how to reach them. Pure: no I/O. Imported by the local
+// launcher, the tests and the service processes themselves — never by the app (app/, server/).
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 

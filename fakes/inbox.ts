@@ -1,5 +1,5 @@
 // Client for the local SMTP stand-in's inbox API (fakes/smtp.ts). Used by tests and by the
-// app's /dev/mail page. Reads INBOX_URL (or SMTP_INBOX_PORT) from the environment.
+// local launcher's /dev/mail page (fakes/inbox-page.ts). Reads INBOX_URL (or SMTP_INBOX_PORT).
 import { serviceConfig } from "./config.ts";
 
 export interface Message {

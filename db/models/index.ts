@@ -73,10 +73,4 @@ export function initModels(sequelize: Sequelize): Sequelize {
   return sequelize;
 }
 
-/** The instance initModels bound the models to. */
-export function boundSequelize(): Sequelize {
-  if (!boundTo) throw new Error("initModels(sequelize) has not been called in this process");
-  return boundTo;
-}
-
 export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, Inset, Marker, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
