@@ -24,11 +24,12 @@ export default [
     route("exhibits/:slug/schedule.csv", "routes/studio/exhibits.$slug.schedule-csv.ts"),
     route("exhibits/:slug/points.geojson", "routes/studio/exhibits.$slug.points-geojson.ts"),
   ]),
-  // Chart editions: readable by everyone (drafts only by editors and admins).
+  // Chart editions and the glossary: readable by everyone (drafts only by editors and admins).
   layout("routes/editions.layout.tsx", [
     route("editions", "routes/editions.index.tsx"),
     route("editions/compare", "routes/editions.compare.tsx"),
     route("editions/:slug", "routes/editions.$slug.tsx"),
+    route("glossary", "routes/glossary.tsx"),
   ]),
   route("editions/:slug/intervals.csv", "routes/editions.$slug.csv.tsx"),
   route("editions/:slug/intervals.json", "routes/editions.$slug.json.tsx"),

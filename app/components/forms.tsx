@@ -1,4 +1,5 @@
-import { useId } from "react";
+import { useEffect, useId, useState } from "react";
+import { useNavigation } from "react-router";
 
 export function Field({
   label,
@@ -54,4 +55,23 @@ export function UnitSelect({ name, label, units, ...rest }: { name: string; labe
       </select>
     </div>
   );
+}
+
+export interface Notice {
+  kind: "error" | "success" | "info";
+  message: string;
+}
+
+/**
+ * The notice a redirect left for this page ("Added 22 boundaries."). It goes as soon as the next
+ * form is sent, so a success never stands beside a later error: one current message at a time.
+ */
+export function FlashNotice({ notice }: { notice: Notice | null | undefined }) {
+  const navigation = useNavigation();
+  const [dismissed, setDismissed] = useState<Notice | null>(null);
+  useEffect(() => {
+    if (navigation.state === "submitting" && notice) setDismissed(notice);
+  }, [navigation.state, notice]);
+  if (!notice || dismissed === notice) return null;
+  return <FormMessage kind={notice.kind}>{notice.message}</FormMessage>;
 }

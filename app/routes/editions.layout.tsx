@@ -1,52 +1,35 @@
-// The frame of the public chart-edition pages (/editions…): readable by visitors and by every
-// signed-in member; those who manage editions also see their drafts and the management links.
-import { Link, Outlet, data } from "react-router";
+// The frame of the chart-edition pages (/editions…) and the glossary: readable by visitors and by
+// every signed-in member. A member sees the same site navigation as in the studio, so the chart
+// editions are one area (browse, compare, manage) with one navigation.
+import { Outlet, data, useLocation } from "react-router";
 import { GeneralErrorBoundary } from "~/components/error-boundary";
-import { FormMessage } from "~/components/forms";
-import { SiteNav } from "~/components/site-nav";
-import { managesEditions, viewerOf } from "#server/editions.server.ts";
+import { FlashNotice } from "~/components/forms";
+import { EditionsTabs } from "~/components/site-nav";
+import { StudioHeader } from "~/components/studio-header";
+import { getSigned } from "#server/auth.server.ts";
 import { readNotice } from "#server/session.server.ts";
+import { studioHeaderOf } from "#server/studio-header.server.ts";
 import type { Route } from "./+types/editions.layout";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const viewer = await viewerOf(request);
+  const signed = await getSigned(request);
   const { notice, setCookie } = await readNotice(request);
-  return data(
-    { viewer: viewer ? { name: viewer.name, canManage: managesEditions(viewer), member: viewer.member || viewer.subject.steward } : null, notice },
-    setCookie ? { headers: { "Set-Cookie": setCookie } } : undefined,
-  );
+  return data({ header: signed ? studioHeaderOf(signed) : null, notice }, setCookie ? { headers: { "Set-Cookie": setCookie } } : undefined);
 }
 
 export default function EditionsLayout({ loaderData }: Route.ComponentProps) {
-  const { viewer, notice } = loaderData;
-  const links = [
-    { to: "/editions", label: "Chart editions", end: true },
-    { to: "/editions/compare", label: "Compare" },
-    ...(viewer?.canManage ? [{ to: "/studio/editions", label: "Manage", end: false }] : []),
-  ];
+  const { header, notice } = loaderData;
+  const { pathname } = useLocation();
   return (
     <div className="min-h-screen">
-      <header className="border-b border-rule bg-white">
-        <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-5 py-3">
-          <SiteNav label="Chart editions" links={links} />
-          <div className="flex items-center gap-3 font-sans text-sm">
-            {viewer ? (
-              <>
-                <span className="text-ink-soft">{viewer.name}</span>
-                {viewer.member ? <Link to="/studio" className="btn-quiet no-underline">Back to the studio</Link> : null}
-              </>
-            ) : (
-              <Link to="/login?redirectTo=%2Feditions" className="btn-quiet no-underline">Sign in</Link>
-            )}
-          </div>
-        </div>
-      </header>
-      <main className="mx-auto max-w-6xl px-5 py-8">
-        {notice ? <FormMessage kind={notice.kind}>{notice.message}</FormMessage> : null}
+      <StudioHeader header={header} signInTo={pathname} />
+      <main className="mx-auto max-w-6xl px-4 py-6 sm:px-5 sm:py-8">
+        {pathname.startsWith("/editions") ? <EditionsTabs canManage={Boolean(header?.may.editions)} canImport={Boolean(header?.may.importEditions)} /> : null}
+        <FlashNotice notice={notice} />
         <Outlet />
       </main>
-      <footer className="border-t border-rule py-6 text-center font-sans text-sm text-ink-soft">
-        Shared chart data: International Commission on Stratigraphy, CC BY 4.0 · Public JSON of the shared editions at <code>/api/timescales</code>
+      <footer className="border-t border-rule px-4 py-6 text-center font-sans text-sm text-ink-soft">
+        Shared chart data: International Commission on Stratigraphy, CC BY 4.0. The shared editions are also published as JSON for other programs: <a href="/api/timescales">list of editions (JSON)</a>.
       </footer>
     </div>
   );
