@@ -4,7 +4,7 @@
 import { parseScaleRequest, type ScaleRequest } from "./schema";
 import { computeScale, type ScaleResult } from "./compute";
 import { prepareRoute, type PreparedRoute } from "../../../../app/lib/geo/route";
-import { parseGeoJsonRoute } from "../../../../app/lib/geo/parse";
+import { parseGeoJsonRoute } from "./geo-parse";
 import { toMetres, toYears } from "./units";
 import type { DurationSpec, ExhibitSpec, LineStringGeometry, ResolvedMarker } from "../../../../app/lib/exhibit/types";
 

@@ -4,7 +4,7 @@
  * computeScale: the linear time-as-distance scale, marker distances and labels, durations,
  * insets, legibility warnings and (on routes) coordinates, bearings and walking figures.
  */
-import { parseGeoJsonRoute, parseGpxRoute } from "../../../../app/lib/geo/parse";
+import { parseGeoJsonRoute, parseGpxRoute } from "./geo-parse";
 import { positionsAt, prepareRoute, type PreparedRoute } from "../../../../app/lib/geo/route";
 import { clean, toMetres, toYears, type LengthUnit } from "./units";
 import { formatDuration, formatFixed, formatLengthSig, formatYears, scaleStatement, type ScaleStatement } from "./format";

@@ -5,7 +5,7 @@
  * designer's preview.
  */
 import { z } from "zod";
-import { parseGeoJsonRoute, parseGpxRoute, MAX_ROUTE_VERTICES } from "../../../../app/lib/geo/parse";
+import { parseGeoJsonRoute, parseGpxRoute, MAX_ROUTE_VERTICES } from "./geo-parse";
 import { prepareRoute, type PreparedRoute } from "../../../../app/lib/geo/route";
 import {
   AGE_UNITS,

@@ -1,0 +1,218 @@
+// TEST ORACLE (test-only): the route parser as it was before issue 10 (for the benchmark's "today" figure). Do not change.
+/**
+ * Route input: GeoJSON (LineString, MultiLineString, Feature, FeatureCollection of lines) and GPX
+ * (tracks, else routes). Produces validated interleaved coordinates [lon0, lat0, lon1, lat1, …].
+ *
+ * Multi-part input (MultiLineString parts, several features, several GPX tracks or track
+ * segments) is joined in order: the end of one part is connected to the start of the next by a
+ * straight (geodesic) segment, which counts towards the length.
+ */
+import { gpx as gpxToGeoJSON } from "@tmcw/togeojson";
+import { DOMParser as XmlDomParser } from "@xmldom/xmldom";
+
+/** Default upper bound on the number of vertices in one route. */
+export const MAX_ROUTE_VERTICES = 200_000;
+/** At most this many coordinate issues are reported (the first ones found). */
+const MAX_ISSUES = 20;
+
+export interface RouteIssue {
+  /** Dotted path into the input, e.g. "geometry.coordinates.12.1". */
+  path: string;
+  message: string;
+}
+
+export type RouteParseResult =
+  | { ok: true; coords: Float64Array; vertexCount: number }
+  | { ok: false; issues: RouteIssue[] };
+
+export interface RouteParseOptions {
+  maxVertices?: number;
+}
+
+const join = (base: string, key: string | number) => (base === "" ? String(key) : `${base}.${key}`);
+
+function isObject(x: unknown): x is Record<string, unknown> {
+  return typeof x === "object" && x !== null && !Array.isArray(x);
+}
+
+interface Collector {
+  lines: { path: string; coords: unknown[] }[];
+  issues: RouteIssue[];
+}
+
+function collectGeometry(geom: unknown, path: string, out: Collector): void {
+  if (!isObject(geom)) {
+    out.issues.push({ path, message: "Expected a GeoJSON geometry object (LineString or MultiLineString)." });
+    return;
+  }
+  const type = geom.type;
+  if (type === "LineString") {
+    if (!Array.isArray(geom.coordinates)) {
+      out.issues.push({ path: join(path, "coordinates"), message: "LineString coordinates must be an array of positions." });
+      return;
+    }
+    out.lines.push({ path: join(path, "coordinates"), coords: geom.coordinates });
+  } else if (type === "MultiLineString") {
+    if (!Array.isArray(geom.coordinates)) {
+      out.issues.push({
+        path: join(path, "coordinates"),
+        message: "MultiLineString coordinates must be an array of LineString coordinate arrays.",
+      });
+      return;
+    }
+    geom.coordinates.forEach((part, j) => {
+      const p = join(join(path, "coordinates"), j);
+      if (!Array.isArray(part)) out.issues.push({ path: p, message: "Each MultiLineString part must be an array of positions." });
+      else out.lines.push({ path: p, coords: part });
+    });
+  } else if (type === "Feature") {
+    collectGeometry(geom.geometry, join(path, "geometry"), out);
+  } else if (type === "FeatureCollection") {
+    if (!Array.isArray(geom.features)) {
+      out.issues.push({ path: join(path, "features"), message: "FeatureCollection features must be an array." });
+      return;
+    }
+    if (geom.features.length === 0) {
+      out.issues.push({ path: join(path, "features"), message: "The FeatureCollection has no features; a route needs a line." });
+    }
+    geom.features.forEach((f, j) => collectGeometry(f, join(join(path, "features"), j), out));
+  } else if (type === "GeometryCollection") {
+    if (!Array.isArray(geom.geometries)) {
+      out.issues.push({ path: join(path, "geometries"), message: "GeometryCollection geometries must be an array." });
+      return;
+    }
+    geom.geometries.forEach((g, j) => collectGeometry(g, join(join(path, "geometries"), j), out));
+  } else {
+    out.issues.push({
+      path: join(path, "type"),
+      message:
+        typeof type === "string"
+          ? `A route must be a line: GeoJSON type "${type}" is not accepted (use LineString, MultiLineString, Feature or FeatureCollection of lines).`
+          : "Missing GeoJSON \"type\" (expected LineString, MultiLineString, Feature or FeatureCollection).",
+    });
+  }
+}
+
+/**
+ * Validate a GeoJSON route and flatten it to interleaved lon/lat coordinates.
+ * `basePath` prefixes every issue path (e.g. "medium.geometry").
+ */
+export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteParseOptions = {}): RouteParseResult {
+  const maxVertices = options.maxVertices ?? MAX_ROUTE_VERTICES;
+  const out: Collector = { lines: [], issues: [] };
+  collectGeometry(input, basePath, out);
+  if (out.issues.length > 0) return { ok: false, issues: out.issues.slice(0, MAX_ISSUES) };
+  let total = 0;
+  for (const l of out.lines) total += l.coords.length;
+  if (total > maxVertices) {
+    return {
+      ok: false,
+      issues: [
+        {
+          path: basePath,
+          message: `The route has ${total.toLocaleString("en-US")} vertices; at most ${maxVertices.toLocaleString("en-US")} are accepted. Simplify the track first.`,
+        },
+      ],
+    };
+  }
+  const coords = new Float64Array(total * 2);
+  let k = 0;
+  const issues: RouteIssue[] = [];
+  for (const line of out.lines) {
+    for (let j = 0; j < line.coords.length; j++) {
+      const pos = line.coords[j];
+      const p = join(line.path, j);
+      if (!Array.isArray(pos) || pos.length < 2) {
+        issues.push({ path: p, message: "A position must be an array [longitude, latitude] (optionally with elevation)." });
+      } else {
+        const lon = pos[0];
+        const lat = pos[1];
+        if (typeof lon !== "number" || !Number.isFinite(lon)) {
+          issues.push({ path: join(p, 0), message: "Longitude must be a finite number." });
+        } else if (lon < -180 || lon > 180) {
+          issues.push({ path: join(p, 0), message: `Longitude ${lon} is outside −180…180 degrees.` });
+        }
+        if (typeof lat !== "number" || !Number.isFinite(lat)) {
+          issues.push({ path: join(p, 1), message: "Latitude must be a finite number." });
+        } else if (lat < -90 || lat > 90) {
+          issues.push({ path: join(p, 1), message: `Latitude ${lat} is outside −90…90 degrees.` });
+        }
+        coords[k] = lon as number;
+        coords[k + 1] = lat as number;
+      }
+      k += 2;
+      if (issues.length >= MAX_ISSUES) return { ok: false, issues };
+    }
+  }
+  if (issues.length > 0) return { ok: false, issues };
+  // at least two distinct points
+  let distinct = false;
+  for (let i = 2; i < coords.length; i += 2) {
+    if (coords[i] !== coords[0] || coords[i + 1] !== coords[1]) {
+      distinct = true;
+      break;
+    }
+  }
+  if (!distinct) {
+    return {
+      ok: false,
+      issues: [{ path: basePath, message: "A route needs at least two distinct points." }],
+    };
+  }
+  return { ok: true, coords, vertexCount: total };
+}
+
+type DomParserCtor = new () => { parseFromString(text: string, type: string): unknown };
+
+/**
+ * Parse a GPX document (tracks; if it has none, routes) into a validated route.
+ * Uses @xmldom/xmldom's DOMParser, which runs in the browser and in Node; a different parser
+ * (e.g. the browser's own DOMParser) may be passed in.
+ */
+export function parseGpxRoute(
+  text: string,
+  basePath = "gpx",
+  options: RouteParseOptions & { DOMParser?: DomParserCtor } = {},
+): RouteParseResult {
+  if (typeof text !== "string" || text.trim() === "") {
+    return { ok: false, issues: [{ path: basePath, message: "The GPX document is empty." }] };
+  }
+  let doc: unknown;
+  try {
+    const parser = options.DOMParser
+      ? new options.DOMParser()
+      : new XmlDomParser({
+          // errors become the message below instead of console output; warnings are ignored
+          onError: (level, msg) => {
+            if (level !== "warning") throw new Error(msg.trim());
+          },
+        });
+    doc = parser.parseFromString(text, "text/xml");
+  } catch (err) {
+    return {
+      ok: false,
+      issues: [{ path: basePath, message: `The GPX document is not well-formed XML: ${(err as Error).message}` }],
+    };
+  }
+  const root = (doc as { documentElement?: { nodeName?: string } } | null)?.documentElement;
+  if (!root || String(root.nodeName).toLowerCase() !== "gpx") {
+    return { ok: false, issues: [{ path: basePath, message: "The document is not GPX (its root element is not <gpx>)." }] };
+  }
+  let fc: { features: { geometry: unknown; properties?: Record<string, unknown> | null }[] };
+  try {
+    fc = gpxToGeoJSON(doc as Document) as unknown as typeof fc;
+  } catch (err) {
+    return { ok: false, issues: [{ path: basePath, message: `The GPX document could not be read: ${(err as Error).message}` }] };
+  }
+  const isLine = (f: { geometry: unknown }) => {
+    const t = (f.geometry as { type?: string } | null)?.type;
+    return t === "LineString" || t === "MultiLineString";
+  };
+  const lines = fc.features.filter(isLine);
+  const tracks = lines.filter((f) => f.properties?._gpxType === "trk");
+  const chosen = tracks.length > 0 ? tracks : lines;
+  if (chosen.length === 0) {
+    return { ok: false, issues: [{ path: basePath, message: "The GPX document has no track (<trk>) or route (<rte>) with points." }] };
+  }
+  return parseGeoJsonRoute({ type: "FeatureCollection", features: chosen }, basePath, options);
+}
