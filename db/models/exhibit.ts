@@ -10,6 +10,7 @@ import {
 import type { Sequelize } from "sequelize";
 import type { LegibilitySettings, UnitsPreference } from "../../app/lib/exhibit/types.ts";
 import { AGE_UNITS, type AgeUnit } from "../../app/lib/units/index.ts";
+import type { ExhibitStatus } from "../../app/lib/review/lifecycle.ts";
 import type { ChartEdition } from "./chart-edition.ts";
 import type { ExhibitMedium } from "./exhibit-medium.ts";
 import type { Inset } from "./inset.ts";
@@ -31,7 +32,13 @@ export class Exhibit extends Model<InferAttributes<Exhibit>, InferCreationAttrib
   declare spanYoungerUnit: AgeUnit;
   declare unitsPreference: CreationOptional<UnitsPreference>;
   declare legibility: CreationOptional<LegibilitySettings>;
-  declare status: CreationOptional<"draft">;
+  /** The lifecycle (app/lib/review/lifecycle.ts): draft → in_review → approved → published; in_review → changes_requested. */
+  declare status: CreationOptional<ExhibitStatus>;
+  /** The revision a reviewer approved (null unless approved or published). */
+  declare approvedRevision: CreationOptional<number | null>;
+  declare approvedById: CreationOptional<ForeignKey<User["id"]> | null>;
+  declare approvedAt: CreationOptional<Date | null>;
+  declare statusChangedAt: CreationOptional<Date | null>;
   /** Optimistic locking: every saved change increments it; a save based on an older one is refused. */
   declare revision: CreationOptional<number>;
   declare createdById: ForeignKey<User["id"]> | null;
@@ -43,6 +50,7 @@ export class Exhibit extends Model<InferAttributes<Exhibit>, InferCreationAttrib
   declare markers?: NonAttribute<Marker[]>;
   declare insets?: NonAttribute<Inset[]>;
   declare updatedBy?: NonAttribute<User | null>;
+  declare approvedBy?: NonAttribute<User | null>;
 }
 
 /** Binds the model to the process's Sequelize instance (called once, by initModels). */
@@ -60,7 +68,11 @@ export function initExhibit(sequelize: Sequelize) {
       spanYoungerUnit: { type: DataTypes.ENUM(...AGE_UNITS), allowNull: false },
       unitsPreference: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
       legibility: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-      status: { type: DataTypes.ENUM("draft"), allowNull: false, defaultValue: "draft" },
+      status: { type: DataTypes.STRING(20), allowNull: false, defaultValue: "draft" },
+      approvedRevision: { type: DataTypes.INTEGER, allowNull: true },
+      approvedById: { type: DataTypes.INTEGER, allowNull: true },
+      approvedAt: { type: DataTypes.DATE, allowNull: true },
+      statusChangedAt: { type: DataTypes.DATE, allowNull: true },
       revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       createdById: { type: DataTypes.INTEGER, allowNull: true },
       updatedById: { type: DataTypes.INTEGER, allowNull: true },

@@ -7,6 +7,11 @@ import { DatedEvent, initDatedEvent } from "./dated-event.ts";
 import { DecaySystem, initDecaySystem } from "./decay-system.ts";
 import { Exhibit, initExhibit } from "./exhibit.ts";
 import { ExhibitMedium, initExhibitMedium } from "./exhibit-medium.ts";
+import { ExhibitComment, initExhibitComment } from "./exhibit-comment.ts";
+import { ExhibitReview, initExhibitReview } from "./exhibit-review.ts";
+import { ExhibitRevision, initExhibitRevision } from "./exhibit-revision.ts";
+import { MarkerSign, initMarkerSign } from "./marker-sign.ts";
+import { Publication, initPublication } from "./publication.ts";
 import { Inset, initInset } from "./inset.ts";
 import { Marker, initMarker } from "./marker.ts";
 import { Interval, initInterval } from "./interval.ts";
@@ -32,6 +37,11 @@ export function initModels(sequelize: Sequelize): Sequelize {
   initDecaySystem(sequelize);
   initExhibit(sequelize);
   initExhibitMedium(sequelize);
+  initExhibitComment(sequelize);
+  initExhibitReview(sequelize);
+  initExhibitRevision(sequelize);
+  initMarkerSign(sequelize);
+  initPublication(sequelize);
   initInset(sequelize);
   initMarker(sequelize);
   initInterval(sequelize);
@@ -69,8 +79,14 @@ export function initModels(sequelize: Sequelize): Sequelize {
   Exhibit.hasMany(Marker, { foreignKey: "exhibitId", as: "markers" });
   Exhibit.hasMany(Inset, { foreignKey: "exhibitId", as: "insets" });
   Marker.belongsTo(Interval, { foreignKey: "intervalId", as: "interval" });
+  Exhibit.belongsTo(User, { foreignKey: "approvedById", as: "approvedBy" });
+  ExhibitRevision.belongsTo(User, { foreignKey: "authorId", as: "author" });
+  ExhibitReview.belongsTo(User, { foreignKey: "reviewerId", as: "reviewer" });
+  ExhibitComment.belongsTo(User, { foreignKey: "authorId", as: "author" });
+  ExhibitComment.belongsTo(User, { foreignKey: "resolvedById", as: "resolvedBy" });
   boundTo = sequelize;
   return sequelize;
 }
 
 export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, Inset, Marker, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
+export { ExhibitComment, ExhibitReview, ExhibitRevision, MarkerSign, Publication };
