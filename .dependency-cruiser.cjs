@@ -72,7 +72,7 @@ module.exports = {
   ],
   options: {
     doNotFollow: { path: "node_modules" },
-    exclude: { path: ["^build(-[^/]+)?/", "^\\.react-router/", "^db/data/ics/source/"] },
+    exclude: { path: ["^build", "^\\.react-router/", "^db/data/ics/source/"] },
     tsPreCompilationDeps: true,
     tsConfig: { fileName: "tsconfig.json" },
     combinedDependencies: false,

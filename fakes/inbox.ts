@@ -38,6 +38,7 @@ async function request(path: string, init?: RequestInit): Promise<Response> {
   } catch (error) {
     throw new Error(
       `The local mail inbox at ${url} is not reachable (is it running? npm run services:start): ${String(error)}`,
+      { cause: error },
     );
   }
 }

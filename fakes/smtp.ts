@@ -9,6 +9,7 @@
 // their own server (and inbox) call startSmtpStandIn() on other ports.
 import { randomBytes } from "node:crypto";
 import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
+import type { EventEmitter } from "node:events";
 import http from "node:http";
 import path from "node:path";
 import { simpleParser, type AddressObject } from "mailparser";
@@ -219,7 +220,7 @@ export async function startSmtpStandIn(smtp: SmtpStandInOptions): Promise<{ clos
     }
   });
 
-  function listen(server: { listen: (port: number, host: string) => unknown; once: Function }, port: number) {
+  function listen(server: Pick<EventEmitter, "once"> & { listen: (port: number, host: string) => unknown }, port: number) {
     return new Promise<void>((resolve, reject) => {
       server.once("error", reject);
       server.once("listening", () => resolve());

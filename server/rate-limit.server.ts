@@ -1,5 +1,5 @@
 // Failed sign-in counters kept in Postgres (rate-limiter-flexible), so every app server shares them.
-import { RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterPostgres, type RateLimiterRes } from "rate-limiter-flexible";
 import { sequelize } from "./db.server.ts";
 
 const WINDOW_SECONDS = 15 * 60;

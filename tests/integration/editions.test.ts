@@ -3,7 +3,7 @@
 // edition the latest (stewards) or current for an organisation (its editors and admins), ownership
 // across two organisations, the role guard and draft visibility.
 import { QueryTypes } from "sequelize";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as compareRoute from "../../app/routes/editions.compare.tsx";
 import * as editionPage from "../../app/routes/editions.$slug.tsx";
 import * as editionCsv from "../../app/routes/editions.$slug.csv.tsx";
