@@ -286,7 +286,7 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
               ))}
             </tbody>
           </table>
-          <p className="mt-3"><strong>JSON</strong>: an array of intervals with the fields <code>name, rank, parent, baseMa, baseUncertaintyMa, topMa, color, gssp, approximate, names, order</code>, or an edition file <code>{"{ edition, intervals }"}</code>. Problems name the array index, from 0.</p>
+          <p className="mt-3"><strong>JSON</strong>: an array of intervals with the fields <code>name, rank, parent, baseMa, baseUncertaintyMa, topMa, color, gssp, boundaryKind, approximate, names, order</code> (<code>boundaryKind</code> may be left out), or an edition file <code>{"{ edition, intervals }"}</code>. Problems name the array index, from 0.</p>
           <p className="mt-3"><strong>Turtle</strong>: the ICS chart's own linked-data file (<code>.ttl</code>). The super-eon is left out; problems name the line where the interval's description starts.</p>
           <p className="mt-3">Any edition's page has a CSV and a JSON download in exactly this form{current ? <> — start from <a href={`/editions/${current.slug}/intervals.csv`}>{current.label} as CSV</a></> : null}.</p>
         </aside>
@@ -303,8 +303,9 @@ const COLUMN_HELP: Record<string, string> = {
   base_uncertainty_ma: "± of the base in Ma; empty if the chart gives none",
   top_ma: "top age in Ma",
   color: "standard chart colour, #RRGGBB",
-  gssp: "true / false; empty = not stated",
+  gssp: "true / false — the base is ratified (by a GSSP or a GSSA); empty = not stated",
   approximate: "true / false — the chart's “~”",
   order: "chart order, whole number from 1",
   names_json: 'names in other languages, e.g. {"de":"Kreide"}; may be empty',
+  boundary_kind: "GSSP (a point in a rock section) or GSSA (a numerical age); empty = not ratified or not stated. Optional: older files without this column still read",
 };

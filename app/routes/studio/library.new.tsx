@@ -5,15 +5,15 @@ import { data, Link, redirect, useNavigation } from "react-router";
 import { EMPTY_EVENT_FORM, EventForm, formValues, type EventFormValues } from "~/components/dated-events/event-form";
 import { DatedEventFormSchema, displayUnit, fromMa } from "~/lib/dated-events";
 import { parseForm } from "~/lib/validation";
-import { requireMember } from "#server/auth.server.ts";
-import { createEvent, findVisibleEvent, LIBRARY_MANAGERS, LibraryError } from "#server/dated-events.server.ts";
+import { requirePermission } from "#server/auth.server.ts";
+import { createEvent, findVisibleEvent, LibraryError } from "#server/dated-events.server.ts";
 import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/library.new";
 
 export const meta: Route.MetaFunction = () => [{ title: "Add an event · Event library · Eonscale" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const member = await requireMember(request, LIBRARY_MANAGERS);
+  const member = await requirePermission(request, "dated-events.manage");
   const from = Number(new URL(request.url).searchParams.get("from"));
   let values: EventFormValues = EMPTY_EVENT_FORM;
   let copiedFrom: string | null = null;
@@ -42,7 +42,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const member = await requireMember(request, LIBRARY_MANAGERS);
+  const member = await requirePermission(request, "dated-events.manage");
   const form = await request.formData();
   const parsed = parseForm(DatedEventFormSchema, form);
   if (!parsed.ok) return data({ error: parsed.formError, fields: parsed.fieldErrors, values: formValues(form) }, { status: 400 });
