@@ -1,6 +1,7 @@
 // All models and their associations. Import models from here; the process that owns the
 // Sequelize instance (server/db.server.ts, the migration CLI, the test setup) calls initModels once.
 import type { Sequelize } from "sequelize";
+import { Asset, initAsset } from "./asset.ts";
 import { AuditEvent, initAuditEvent } from "./audit-event.ts";
 import { ChartEdition, initChartEdition } from "./chart-edition.ts";
 import { DatedEvent, initDatedEvent } from "./dated-event.ts";
@@ -12,6 +13,7 @@ import { ExhibitReview, initExhibitReview } from "./exhibit-review.ts";
 import { ExhibitRevision, initExhibitRevision } from "./exhibit-revision.ts";
 import { MarkerSign, initMarkerSign } from "./marker-sign.ts";
 import { Publication, initPublication } from "./publication.ts";
+import { ImageUse, initImageUse } from "./image-use.ts";
 import { Inset, initInset } from "./inset.ts";
 import { Marker, initMarker } from "./marker.ts";
 import { Interval, initInterval } from "./interval.ts";
@@ -31,6 +33,7 @@ let boundTo: Sequelize | undefined;
  */
 export function initModels(sequelize: Sequelize): Sequelize {
   if (boundTo === sequelize) return sequelize;
+  initAsset(sequelize);
   initAuditEvent(sequelize);
   initChartEdition(sequelize);
   initDatedEvent(sequelize);
@@ -42,6 +45,7 @@ export function initModels(sequelize: Sequelize): Sequelize {
   initExhibitRevision(sequelize);
   initMarkerSign(sequelize);
   initPublication(sequelize);
+  initImageUse(sequelize);
   initInset(sequelize);
   initMarker(sequelize);
   initInterval(sequelize);
@@ -84,9 +88,10 @@ export function initModels(sequelize: Sequelize): Sequelize {
   ExhibitReview.belongsTo(User, { foreignKey: "reviewerId", as: "reviewer" });
   ExhibitComment.belongsTo(User, { foreignKey: "authorId", as: "author" });
   ExhibitComment.belongsTo(User, { foreignKey: "resolvedById", as: "resolvedBy" });
+  ImageUse.belongsTo(Asset, { foreignKey: "assetId", as: "asset" });
   boundTo = sequelize;
   return sequelize;
 }
 
-export { AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, Inset, Marker, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
+export { Asset, AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, ImageUse, Inset, Marker, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
 export { ExhibitComment, ExhibitReview, ExhibitRevision, MarkerSign, Publication };
