@@ -38,6 +38,10 @@ export default [
     route("timescales", "routes/api.timescales.ts"),
     route("timescales/:slug", "routes/api.timescales.$slug.ts"),
     route("events", "routes/api.events.ts"),
+    route("assets", "routes/api.assets.ts"),
+    route("assets/:id", "routes/api.assets.$id.ts"),
   ]),
+  // Images: stable URLs; drafts for the organisation only, published ones for everyone.
+  route("media/:assetId/:file", "routes/media.$assetId.$file.ts"),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;

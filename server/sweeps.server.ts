@@ -4,6 +4,7 @@
 import type PgBoss from "pg-boss";
 import { Op } from "sequelize";
 import { PasswordReset, Session } from "../db/models/index.ts";
+import { sweepAssets } from "./assets/jobs.server.ts";
 import { sequelize } from "./db.server.ts";
 import { logger } from "./logger.server.ts";
 
@@ -22,5 +23,8 @@ export async function startSweeps(boss: PgBoss) {
   await boss.work(SWEEP_QUEUE, async () => {
     const removed = await sweepExpired();
     logger.info({ removed }, "housekeeping sweep");
+    // S3 objects of interrupted uploads (no row) and uploads never attached to anything.
+    const images = await sweepAssets();
+    logger.info({ images }, "image sweep");
   });
 }

@@ -12,6 +12,7 @@ import { audit } from "../audit.server.ts";
 import { eventsByIds } from "../dated-events.server.ts";
 import { computeBundle, ExhibitError, intervalsWithIds, requireBundle, type ExhibitBundle } from "./load.server.ts";
 import { reviseExhibit, type Actor } from "./revise.server.ts";
+import { cleanupAfterMarkerRemoval } from "../assets/attach.server.ts";
 
 // ---------- creating ----------
 
@@ -169,6 +170,7 @@ export function editMarker(actor: Actor, slug: string, revision: number, markerI
 export function removeMarker(actor: Actor, slug: string, revision: number, markerId: number) {
   return reviseExhibit(actor, slug, revision, "markers.remove", async (b, transaction) => {
     const row = await markerOf(b, markerId);
+    await cleanupAfterMarkerRemoval(row.id, transaction);
     await row.destroy({ transaction });
     return row.label;
   }, (label) => ({ markerId, label }));

@@ -4,6 +4,7 @@ import { formatAgeMa, formatLength, routeMediumOf, type ComposerCommand, type Co
 import { toYears } from "../../app/lib/units/index.ts";
 import { addBoundaries, addCustom, addEvent, addInset, editMarker, removeInset, removeMarker, replaceRoute, updateSettings } from "./commands.server.ts";
 import { renderMarkdown } from "../markdown.server.ts";
+import { removeImage, setImage } from "../assets/attach.server.ts";
 import { impactFor, repinToCurrent } from "./impact.server.ts";
 import { ExhibitError, howWeKnowFor, requireBundle } from "./load.server.ts";
 import type { Actor } from "./revise.server.ts";
@@ -57,6 +58,16 @@ export async function runComposerCommand(actor: Actor, slug: string, command: Co
       await replaceRoute(actor, slug, revision, r.medium);
       return `Route replaced by ${r.medium.sourceName} (${formatLength(r.medium.lengthMetres, "metric", 0.01)}); every marker moved with it.`;
     }
+    case "set-marker-image":
+    case "set-cover-image": {
+      const markerId = command.intent === "set-marker-image" ? command.markerId : null;
+      await setImage(actor, slug, revision, markerId, { assetId: command.assetId, alt: command.alt, credit: command.credit });
+      const what = markerId === null ? "Cover image" : "Image";
+      return command.alt ? `${what} saved.` : `${what} saved. Add its alt text before review: the review checks need it.`;
+    }
+    case "remove-image":
+      await removeImage(actor, slug, revision, command.markerId === "cover" ? null : command.markerId);
+      return command.markerId === "cover" ? "Cover image removed." : "Image removed from the marker.";
     case "repin": {
       const { result } = await repinToCurrent(actor, slug, revision);
       return `Re-pinned from ${result.from} to ${result.to}; ${result.moved} marker${result.moved === 1 ? "" : "s"} changed. The exhibit needs review again.`;

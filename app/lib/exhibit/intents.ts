@@ -12,6 +12,7 @@ import {
   RevisionSchema,
   SettingsSchema,
 } from "./forms";
+import { ImageWordsSchema, MarkerImageSchema, RemoveImageSchema } from "../images";
 
 const intent = <const I extends string>(name: I) => ({ intent: z.literal(name), revision: RevisionSchema });
 
@@ -28,6 +29,9 @@ export const COMPOSER_INTENTS = [
   "remove-inset",
   "replace-route",
   "repin",
+  "set-marker-image",
+  "set-cover-image",
+  "remove-image",
 ] as const;
 export type ComposerIntent = (typeof COMPOSER_INTENTS)[number];
 
@@ -55,6 +59,9 @@ export const ComposerCommandSchema = z.discriminatedUnion(
     z.object({ ...intent("remove-inset"), insetId: z.preprocess((v) => (typeof v === "string" ? v.replace(/^inset-/, "") : v), idField("Missing inset.")) }),
     z.object({ ...intent("replace-route"), routeFile: z.instanceof(File, { error: NO_ROUTE_FILE }).refine((f) => f.size > 0, { error: NO_ROUTE_FILE }) }),
     z.object(intent("repin")),
+    MarkerImageSchema.safeExtend(intent("set-marker-image")),
+    ImageWordsSchema.safeExtend(intent("set-cover-image")),
+    RemoveImageSchema.safeExtend(intent("remove-image")),
   ],
   { error: "Unknown action." },
 );

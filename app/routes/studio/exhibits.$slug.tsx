@@ -7,6 +7,7 @@ import { ComposerCommandSchema, type ComposerRefusal } from "~/lib/exhibit";
 import { can } from "~/lib/permissions";
 import { parseForm } from "~/lib/validation";
 import { requireMember, requirePermission } from "#server/auth.server.ts";
+import { composerImages } from "#server/assets/usage.server.ts";
 import { composerView, runComposerCommand } from "#server/exhibits/composer.server.ts";
 import { ExhibitError } from "#server/exhibits/load.server.ts";
 import { readExhibitForm } from "#server/exhibits/revise.server.ts";
@@ -17,7 +18,8 @@ export const meta: Route.MetaFunction = ({ loaderData }) => [{ title: `${loaderD
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request);
-  return composerView(member.organisation.id, params.slug, can(member.subject, "exhibit.edit"));
+  const [view, images] = await Promise.all([composerView(member.organisation.id, params.slug, can(member.subject, "exhibit.edit")), composerImages(member.organisation.id, params.slug)]);
+  return { ...view, images };
 }
 
 const refuse = (status: number, refusal: ComposerRefusal) => data(refusal, { status });
