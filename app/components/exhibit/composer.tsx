@@ -1,55 +1,75 @@
-// The composer: one exhibit's settings, markers, insets and live preview. The scale engine runs in
-// the browser on every change of the settings draft, reusing the prepared route. Every form carries
-// the revision it was based on; the server refuses a save based on an older one.
-import { useMemo, useState } from "react";
+// The composer: one exhibit's settings, markers, insets and live preview. The preview pane stays in
+// view at the top of the window (sticky) while everything below it is edited; the scale engine runs
+// in the browser on every change of the settings draft, reusing the prepared route, and React
+// draws the preview at a lower priority than the typing (useDeferredValue), so keystrokes stay
+// quick. Every form carries the revision it was based on; the server refuses a save based on an
+// older one.
+import { useDeferredValue, useMemo, useState } from "react";
 import { FormMessage } from "~/components/forms";
 import { PageHeader } from "~/components/page-header";
+import { Term } from "~/components/term";
 import { AddBoundaries, AddCustom, AddEvent } from "~/components/exhibit/add-markers";
 import type { FieldError } from "~/components/exhibit/form-bits";
 import { ImpactSection } from "~/components/exhibit/impact-section";
 import { InsetsSection } from "~/components/exhibit/insets";
 import { MarkersTable } from "~/components/exhibit/markers-table";
-import { Preview } from "~/components/exhibit/preview";
+import { DurationsSection, PreviewPane, RouteSection } from "~/components/exhibit/preview";
 import { SettingsForm } from "~/components/exhibit/settings-form";
+import { WarningsSection, warningKeyOf, type Acknowledgement } from "~/components/exhibit/warnings";
 import { bandsFor, computeExhibit, draftOf, routeCacheFor, specOfDraft, standardDurations, type ComposerRefusal, type ComposerView, type SettingsDraft } from "~/lib/exhibit";
 import { toYears } from "~/lib/units";
 
-export function Composer({ view, refusal }: { view: ComposerView; refusal?: ComposerRefusal }) {
+export function Composer({ view, refusal, children }: { view: ComposerView; refusal?: ComposerRefusal; children?: React.ReactNode }) {
   // Re-mount after every save so the drafts start from what was saved.
-  return <ComposerBody key={view.exhibit.revision} view={view} refusal={refusal} />;
+  return <ComposerBody key={view.exhibit.revision} view={view} refusal={refusal}>{children}</ComposerBody>;
 }
 
-function ComposerBody({ view, refusal }: { view: ComposerView; refusal?: ComposerRefusal }) {
+const STATUS_WORDS: Record<string, string> = { draft: "Draft", in_review: "In review", "in-review": "In review", changes_requested: "Changes requested", approved: "Approved", published: "Published" };
+
+/** Acknowledged warnings as the server lists them (when it does). */
+function acknowledgementsOf(view: ComposerView): Map<string, Acknowledgement> {
+  const list = (view as ComposerView & { acknowledgements?: ({ warningKey: string } & Acknowledgement)[] }).acknowledgements ?? [];
+  return new Map(list.map((a) => [a.warningKey, a]));
+}
+
+function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal?: ComposerRefusal; children?: React.ReactNode }) {
   const { exhibit, edition, markers, intervals, impact, canEdit, decaySystems } = view;
   const saved = useMemo(() => draftOf(exhibit.title, view.spec), [exhibit.title, view.spec]);
   const [draft, setDraft] = useState<SettingsDraft>(saved);
   const [lifeYears, setLifeYears] = useState("80");
-  const set = (k: keyof SettingsDraft) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setDraft((d) => ({ ...d, [k]: e.target.value }));
-  const spec = useMemo(() => specOfDraft(draft, view.spec), [draft, view.spec]);
+  const setField = (k: keyof SettingsDraft, value: string) => setDraft((d) => ({ ...d, [k]: value }));
+  // The fields update at once; the preview follows at a lower priority.
+  const shownDraft = useDeferredValue(draft);
+  const shownLife = useDeferredValue(lifeYears);
+  const spec = useMemo(() => specOfDraft(shownDraft, view.spec), [shownDraft, view.spec]);
   // The saved route is measured once; the preview reuses it on every keystroke.
   const routeGeometry = view.spec.medium.kind === "route" ? view.spec.medium.geometry : null;
   const routeCache = useMemo(() => routeCacheFor(routeGeometry), [routeGeometry]);
-  // The preview: the scale engine, in the browser, on every change.
-  const preview = useMemo(() => computeExhibit(spec, markers, standardDurations(Math.max(1, Number(lifeYears) || 80)), routeCache), [spec, markers, lifeYears, routeCache]);
-  const units = draft.unitsPreference;
+  const preview = useMemo(() => computeExhibit(spec, markers, standardDurations(Math.max(1, Number(shownLife) || 80)), routeCache), [spec, markers, shownLife, routeCache]);
+  const units = shownDraft.unitsPreference;
   const result = preview.ok ? preview.result : null;
-  const flagged = new Set(result?.warnings.filter((w) => w.code.startsWith("markers-")).flatMap((w) => w.pointIds) ?? []);
+  const acknowledged = useMemo(() => acknowledgementsOf(view), [view]);
+  const warnings = result?.warnings ?? [];
+  const openWarnings = warnings.filter((w) => !acknowledged.has(warningKeyOf(w)));
+  const flagged = useMemo(() => new Set(openWarnings.filter((w) => w.code.startsWith("markers-")).flatMap((w) => w.pointIds)), [openWarnings]);
   const olderMa = toYears(spec.spanOlder) / 1e6;
   const youngerMa = toYears(spec.spanYounger) / 1e6;
   const bands = useMemo(() => (preview.ok ? bandsFor(intervals, olderMa, youngerMa) : []), [intervals, olderMa, youngerMa, preview.ok]);
-  const points = new Map(result?.points.map((p) => [p.id, p]) ?? []);
+  const points = useMemo(() => new Map(result?.points.map((p) => [p.id, p]) ?? []), [result]);
   const dirty = JSON.stringify(draft) !== JSON.stringify(saved);
   const isRoute = spec.medium.kind === "route";
   const fieldsOf = (intent: string) => (refusal?.intent === intent ? refusal.fields : {});
   const err: FieldError = (intent, field) => fieldsOf(intent)[field];
   const revision = exhibit.revision;
+  // Errors of forms that show their own message beside the form are not repeated at the top.
+  const ownMessage = refusal && ["acknowledge-warning", "combine-markers"].includes(refusal.intent);
 
   return (
     <div>
       <PageHeader
         align="start"
         crumbs={[{ to: "/studio/exhibits", label: "Exhibits" }]}
-        current={exhibit.slug}
+        current={exhibit.title}
         title={exhibit.title}
         actions={
           <>
@@ -59,56 +79,53 @@ function ComposerBody({ view, refusal }: { view: ComposerView; refusal?: Compose
         }
       >
         <p className="mt-1 font-sans text-sm text-ink-soft">
-          {exhibit.status} · revision {revision} · pinned to {edition.label}
+          {STATUS_WORDS[exhibit.status] ?? exhibit.status} · saved version (<Term id="revision" />) {revision} · checked against chart edition <strong className="text-ink">{edition.label}</strong> (<Term id="pinned">pinned</Term>)
           {exhibit.updatedBy ? ` · last saved by ${exhibit.updatedBy} ${exhibit.updatedAt.slice(0, 16).replace("T", " ")} UTC` : ""}
         </p>
-        {impact ? <p className="mt-2 inline-block rounded bg-sandstone-100 px-3 py-1 font-sans text-sm font-semibold text-sandstone-700">Needs re-check: pinned to {edition.label}; {impact.edition.label} is current for your organisation.</p> : null}
+        {impact ? <p className="mt-2 inline-block rounded bg-sandstone-100 px-3 py-1 font-sans text-sm font-semibold text-sandstone-700"><Term id="needs-recheck">Needs re-check</Term>: checked against {edition.label}; {impact.edition.label} is current for your organisation.</p> : null}
       </PageHeader>
 
-      {refusal?.error ? <div className="mt-4"><FormMessage>{refusal.error}</FormMessage></div> : null}
+      {refusal?.error && !ownMessage ? <div className="mt-4"><FormMessage>{refusal.error}</FormMessage></div> : null}
+      {children}
 
-      {isRoute ? <RouteCautions /> : null}
+      <div className="mt-4">
+        <PreviewPane title={exhibit.title} preview={preview} markers={markers} bands={bands} units={units} flagged={flagged} olderMa={olderMa} youngerMa={youngerMa} dirty={dirty} openWarnings={openWarnings.length} />
+      </div>
 
-      <Preview
-        title={exhibit.title}
-        revision={revision}
-        spec={spec}
-        preview={preview}
-        markers={markers}
-        bands={bands}
-        units={units}
-        flagged={flagged}
-        olderMa={olderMa}
-        youngerMa={youngerMa}
-        dirty={dirty}
-        canEdit={canEdit}
-        lifeYears={lifeYears}
-        onLifeYears={setLifeYears}
-        err={err}
-      />
+      <div className="mt-6 space-y-6">
+        {canEdit ? <SettingsForm spec={spec} draft={draft} setField={setField} revision={revision} err={err} /> : null}
 
-      {impact ? <ImpactSection impact={impact} editionLabel={edition.label} units={units} revision={revision} canEdit={canEdit} /> : null}
+        {result ? (
+          <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+            <WarningsSection warnings={warnings} markers={markers} acknowledged={acknowledged} canEdit={canEdit} revision={revision} refusal={refusal} />
+            <DurationsSection result={result} units={units} lifeYears={lifeYears} onLifeYears={setLifeYears} />
+          </div>
+        ) : null}
 
-      <MarkersTable markers={markers} decaySystems={decaySystems} points={points} flagged={flagged} units={units} isRoute={isRoute} canEdit={canEdit} revision={revision} />
+        {impact ? <ImpactSection impact={impact} editionLabel={edition.label} units={units} revision={revision} canEdit={canEdit} /> : null}
 
-      {canEdit ? (
-        <section className="mt-6 grid gap-6 lg:grid-cols-3" aria-label="Add markers">
-          <AddBoundaries revision={revision} intervals={intervals.filter((i) => i.baseMa <= olderMa && i.baseMa >= youngerMa)} error={err("add-boundaries", "intervalName") ?? err("add-boundaries", "rank")} />
-          <AddEvent revision={revision} error={err("add-event", "eventId")} />
-          <AddCustom revision={revision} fields={fieldsOf("add-custom")} />
-        </section>
-      ) : null}
+        <MarkersTable markers={markers} decaySystems={decaySystems} points={points} flagged={flagged} units={units} isRoute={isRoute} canEdit={canEdit} revision={revision} />
 
-      <InsetsSection insets={result?.insets} savedCount={view.insetIds.length} units={units} canEdit={canEdit} revision={revision} fields={fieldsOf("add-inset")} />
+        {canEdit ? (
+          <section className="grid gap-6 lg:grid-cols-3" aria-label="Add markers">
+            <AddBoundaries revision={revision} intervals={intervals.filter((i) => i.baseMa <= olderMa && i.baseMa >= youngerMa)} error={err("add-boundaries", "intervalName") ?? err("add-boundaries", "rank")} />
+            <AddEvent revision={revision} error={err("add-event", "eventId")} />
+            <AddCustom revision={revision} fields={fieldsOf("add-custom")} />
+          </section>
+        ) : null}
 
-      {canEdit ? <SettingsForm spec={spec} draft={draft} set={set} revision={revision} err={err} /> : null}
+        <InsetsSection insets={result?.insets} savedCount={view.insetIds.length} units={units} canEdit={canEdit} revision={revision} fields={fieldsOf("add-inset")} />
+
+        {isRoute ? <RouteSection spec={spec} result={result} markers={markers} units={units} canEdit={canEdit} revision={revision} err={err} /> : null}
+        {isRoute ? <RouteCautions /> : null}
+      </div>
     </div>
   );
 }
 
 function RouteCautions() {
   return (
-    <aside className="mt-4 rounded-lg border-l-4 border-warn bg-sandstone-50 p-4 font-sans text-sm" aria-label="Cautions for route exhibits">
+    <aside className="rounded-lg border-l-4 border-warn bg-sandstone-50 p-4 font-sans text-sm" aria-label="Cautions for route exhibits">
       <p className="font-semibold">Before anyone walks this route</p>
       <ul className="mt-1 list-disc pl-5">
         <li>Walk the route yourself first, for hazards and for accessibility (surface, width, slopes, resting places).</li>

@@ -1,19 +1,21 @@
 // The exhibit's insets (sub-spans at a magnified scale, each with its own scale statement).
 import { Form } from "react-router";
 import { IntentFields, Labelled } from "~/components/exhibit/form-bits";
+import { insetLetter } from "~/components/exhibit/scale-strip";
+import { Term } from "~/components/term";
 import { formatLength, type UnitsPreference } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
 import { AGE_UNITS } from "~/lib/units";
 
 export function InsetsSection({ insets, savedCount, units, canEdit, revision, fields }: { insets: ScaleResult["insets"] | undefined; savedCount: number; units: UnitsPreference; canEdit: boolean; revision: number; fields: Record<string, string> }) {
   return (
-    <section className="card mt-6" aria-labelledby="insets-h">
+    <section className="card" aria-labelledby="insets-h">
       <h2 id="insets-h" className="text-xl">Insets ({insets?.length ?? savedCount})</h2>
-      <p className="mt-1 font-sans text-sm text-ink-soft">A sub-span shown at a magnified scale, with its own scale statement on the sign.</p>
+      <p className="mt-1 font-sans text-sm text-ink-soft">An <Term id="inset">inset</Term> shows a short stretch of time at a <Term id="magnification">magnified</Term> scale, with its own scale statement on the sign; lettered as on the strip.</p>
       <ul className="mt-3 space-y-2 font-sans text-sm">
-        {insets?.map((i) => (
+        {insets?.map((i, k) => (
           <li key={i.id} className="flex flex-wrap items-center justify-between gap-2 rounded border border-rule p-2">
-            <span><strong>{i.label}</strong> — {i.statement.lengthPerTime}; {formatLength(i.lengthMetres, units, i.lengthMetres / 1000)} long</span>
+            <span><strong>{insetLetter(k)} — {i.label}</strong> — {i.statement.lengthPerTime}; {formatLength(i.lengthMetres, units, i.lengthMetres / 1000)} long</span>
             {canEdit ? (
               <Form method="post">
                 <IntentFields intent="remove-inset" revision={revision} />

@@ -2,6 +2,7 @@
 // (on routes) coordinates and walking time; designers edit or remove each one in place.
 import { Form } from "react-router";
 import { IntentFields } from "~/components/exhibit/form-bits";
+import { Term } from "~/components/term";
 import { formatAgeMa, formatLength, type ComposerView, type UnitsPreference } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
 
@@ -18,10 +19,12 @@ export interface MarkersTableProps {
 
 export function MarkersTable({ markers, decaySystems, points: byId, flagged, units, isRoute, canEdit, revision }: MarkersTableProps) {
   return (
-    <section className="card mt-6 overflow-x-auto" aria-labelledby="markers-h">
+    <section className="card" aria-labelledby="markers-h">
       <h2 id="markers-h" className="text-xl">Markers ({markers.length})</h2>
+      <p className="mt-1 font-sans text-sm text-ink-soft">Numbered in visiting order, from the older end. Kinds: <Term id="boundary">boundary</Term> (start of a chart interval), <Term id="event">event</Term> (from the library), <Term id="custom">custom</Term> (an age of your own). Distances are rounded to what the age's <Term id="uncertainty">±</Term> supports.</p>
       {markers.length === 0 ? <p className="mt-2 text-ink-soft">No markers yet. Add the bases of periods, events from the library, or ages of your own below.</p> : (
-        <table className="mt-3 w-full text-left font-sans text-sm">
+        <div className="md:overflow-x-auto">
+        <table className="table-cards mt-3 w-full text-left font-sans text-sm">
           <thead className="border-b border-rule">
             <tr>
               <th className="p-2">#</th><th className="p-2">Label</th><th className="p-2">Kind</th><th className="p-2">Age</th><th className="p-2">From start</th><th className="p-2">To end</th><th className="p-2">±</th>
@@ -33,30 +36,30 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
             {markers.map((m) => {
               const p = byId.get(m.id);
               return (
-                <tr key={m.id} className={`border-b border-rule align-top last:border-0 ${flagged.has(m.id) ? "bg-red-50" : ""}`}>
-                  <td className="num p-2"><span className="mr-1 inline-block h-3 w-3 rounded-sm border border-ink/30 align-middle" style={{ background: m.color }} aria-hidden="true" />{m.number}</td>
-                  <td className="p-2">
+                <tr key={m.id} id={`marker-${m.id}`} className={`scroll-mt-[58vh] border-b border-rule align-top last:border-0 target:outline-3 target:outline-sandstone-500 ${flagged.has(m.id) ? "bg-red-50" : ""}`}>
+                  <td className="num p-2" data-label="#"><span className="mr-1 inline-block h-3 w-3 rounded-sm border border-ink/30 align-middle" style={{ background: m.color }} aria-hidden="true" />{m.number}{flagged.has(m.id) ? <span className="ml-1 whitespace-nowrap rounded bg-danger px-1 text-xs font-semibold text-white">too close</span> : null}</td>
+                  <td className="p-2" data-label="Label">
                     <span className="font-semibold">{m.label}</span>
                     <div className="text-xs text-ink-soft">{m.source}</div>
                     {m.html ? <div className="prose-sm mt-1 text-xs" dangerouslySetInnerHTML={{ __html: m.html }} /> : null}
                     {m.howWeKnow ? <p className="mt-1 text-xs text-slate-river-700"><span className="font-semibold">How we know:</span> {m.howWeKnow}</p> : null}
                   </td>
-                  <td className="p-2">{m.kind}</td>
-                  <td className="num p-2">{m.approximate ? "~" : ""}{formatAgeMa(m.ageMa)}{m.uncertaintyMa ? ` ± ${formatAgeMa(m.uncertaintyMa)}` : ""}</td>
-                  <td className="num p-2">{p ? (units === "metric" ? p.display.fromOlderEnd : formatLength(p.fromOlderEndMetres, units, p.display.stepMetres)) : "—"}</td>
-                  <td className="num p-2">{p ? (units === "metric" ? p.display.fromYoungerEnd : formatLength(p.fromYoungerEndMetres, units, p.display.stepMetres)) : "—"}</td>
-                  <td className="num p-2">{p?.display.uncertainty ?? "—"}</td>
+                  <td className="p-2" data-label="Kind">{m.kind}</td>
+                  <td className="num p-2" data-label="Age">{m.approximate ? "~" : ""}{formatAgeMa(m.ageMa)}{m.uncertaintyMa ? ` ± ${formatAgeMa(m.uncertaintyMa)}` : ""}</td>
+                  <td className="num p-2" data-label="From start">{p ? (units === "metric" ? p.display.fromOlderEnd : formatLength(p.fromOlderEndMetres, units, p.display.stepMetres)) : "—"}</td>
+                  <td className="num p-2" data-label="To end">{p ? (units === "metric" ? p.display.fromYoungerEnd : formatLength(p.fromYoungerEndMetres, units, p.display.stepMetres)) : "—"}</td>
+                  <td className="num p-2" data-label="±">{p?.display.uncertainty ?? "—"}</td>
                   {isRoute ? (
                     <>
-                      <td className="num p-2">{p?.position ? `${p.position.lat.toFixed(6)}, ${p.position.lon.toFixed(6)}` : "—"}</td>
-                      <td className="num p-2">{p?.walking ? `${Math.round(p.walking.seconds / 60)} min` : "—"}</td>
+                      <td className="num p-2" data-label="Coordinates">{p?.position ? `${p.position.lat.toFixed(6)}, ${p.position.lon.toFixed(6)}` : "—"}</td>
+                      <td className="num p-2" data-label="Walk from the start">{p?.walking ? `${Math.round(p.walking.seconds / 60)} min` : "—"}</td>
                     </>
                   ) : null}
                   {canEdit ? (
                     <td className="p-2">
                       <details>
                         <summary className="cursor-pointer">Edit</summary>
-                        <Form method="post" className="mt-2 w-64 space-y-2">
+                        <Form method="post" className="mt-2 w-64 max-w-full space-y-2">
                           <IntentFields intent="edit-marker" revision={revision} />
                           <input type="hidden" name="markerId" value={m.id} />
                           <label className="block text-xs font-semibold">Label<input name="label" defaultValue={m.label} className="field" /></label>
@@ -82,6 +85,7 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
             })}
           </tbody>
         </table>
+        </div>
       )}
     </section>
   );

@@ -1,17 +1,21 @@
-// The live preview: the scale engine's result for the settings as typed — scale statement, strip,
-// legibility warnings (with the suggested inset one click away), durations, and the route.
+// The live preview: the scale engine's result for the settings as typed. The pane with the scale
+// statement and the strip stays in view (sticky) while the settings, markers and insets below are
+// edited; durations and the route plan are sections of their own further down.
+import { useState } from "react";
 import { Form } from "react-router";
 import { FormMessage } from "~/components/forms";
 import { RoutePlan } from "~/components/exhibit/route-plan";
 import { ScaleStrip } from "~/components/exhibit/scale-strip";
 import { IntentFields, type FieldError } from "~/components/exhibit/form-bits";
+import { Term } from "~/components/term";
 import { formatAgeMa, formatLength, type Band, type computeExhibit, type ExhibitSpec, type ResolvedMarker, type UnitsPreference } from "~/lib/exhibit";
+import type { ScaleResult } from "~/lib/scale/compute";
 
-export interface PreviewProps {
+type Preview = ReturnType<typeof computeExhibit>;
+
+export interface PreviewPaneProps {
   title: string;
-  revision: number;
-  spec: ExhibitSpec;
-  preview: ReturnType<typeof computeExhibit>;
+  preview: Preview;
   markers: ResolvedMarker[];
   bands: Band[];
   units: UnitsPreference;
@@ -19,92 +23,93 @@ export interface PreviewProps {
   olderMa: number;
   youngerMa: number;
   dirty: boolean;
-  canEdit: boolean;
-  lifeYears: string;
-  onLifeYears: (value: string) => void;
-  err: FieldError;
+  openWarnings: number;
 }
 
-export function Preview({ title, revision, spec, preview, markers, bands, units, flagged, olderMa, youngerMa, dirty, canEdit, lifeYears, onLifeYears, err }: PreviewProps) {
+export function PreviewPane({ title, preview, markers, bands, units, flagged, olderMa, youngerMa, dirty, openWarnings }: PreviewPaneProps) {
+  const [shown, setShown] = useState(true);
   const result = preview.ok ? preview.result : null;
-  const isRoute = spec.medium.kind === "route";
   return (
-    <section className="card mt-6" aria-labelledby="preview-h">
-      <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id="preview-h" className="text-xl">Preview</h2>
-        {dirty ? <p className="font-sans text-sm text-sandstone-700">Showing unsaved settings — save them below to keep them.</p> : null}
+    <section className="sticky top-0 z-20 -mx-4 max-h-[55vh] overflow-y-auto border-b border-rule bg-white px-4 py-3 shadow-sm sm:mx-0 sm:rounded-b-lg sm:border sm:border-t-0" aria-labelledby="preview-h" data-testid="preview-pane">
+      <div className="flex flex-wrap items-center justify-between gap-x-3 gap-y-1">
+        <h2 id="preview-h" className="text-lg">Preview</h2>
+        <div className="flex flex-wrap items-center gap-x-3 gap-y-1 font-sans text-sm">
+          {dirty ? <span className="font-semibold text-sandstone-700" role="status">Unsaved settings shown — Save settings keeps them</span> : null}
+          {openWarnings ? <a href="#warnings" className="font-semibold text-warn">⚠ {openWarnings} warning{openWarnings === 1 ? "" : "s"}</a> : null}
+          <button type="button" className="btn-quiet min-h-8 px-2 py-0.5" aria-expanded={shown} aria-controls="preview-body" onClick={() => setShown((s) => !s)}>
+            {shown ? "Hide the strip" : "Show the strip"}
+          </button>
+        </div>
       </div>
       {preview.ok && result ? (
-        <>
+        <div id="preview-body">
           <p className="mt-1 font-sans text-sm">
             <strong>{formatLength(result.scale.totalMetres, units, result.scale.totalMetres / 1e5)}</strong> for {formatAgeMa(olderMa)} to {youngerMa === 0 ? "the present" : formatAgeMa(youngerMa)}: {result.scale.statement.lengthPerTime} ({result.scale.statement.timePerLength}).
-            {result.scale.route ? ` Walking it takes about ${Math.round(result.scale.route.walkingSeconds / 60)} min at ${result.scale.route.walkingSpeedMps} m/s (${Math.round(result.scale.route.accessibleWalkingSeconds / 60)} min at ${result.scale.route.accessibleSpeedMps} m/s).` : ""}
           </p>
-          <div className="mt-4"><ScaleStrip result={result} markers={markers} bands={bands} units={units} flagged={flagged} title={`Scale strip of ${title}`} /></div>
-          <div className="mt-6 grid gap-6 lg:grid-cols-2">
-            <div>
-              <h3 className="text-lg">Legibility</h3>
-              <p className="font-sans text-xs text-ink-soft">Smallest visible length {formatLength(result.scale.legibility.minVisibleMetres, "metric")}, smallest spacing {formatLength(result.scale.legibility.minSpacingMetres, "metric")} ({result.scale.legibility.source}).</p>
-              {result.warnings.length === 0 ? <p className="mt-2 font-sans text-sm text-ok">No crowded markers or invisible durations.</p> : (
-                <ul className="mt-2 space-y-3">
-                  {result.warnings.map((w, i) => (
-                    <li key={i} className="rounded border border-rule bg-paper p-3 font-sans text-sm">
-                      <p><span className="font-semibold text-warn">{w.code.replaceAll("-", " ")}:</span> {w.message}</p>
-                      {w.suggestedInset && canEdit ? (
-                        <Form method="post" className="mt-2">
-                          <IntentFields intent="add-inset" revision={revision} />
-                          <input type="hidden" name="olderValue" value={w.suggestedInset.olderYears} />
-                          <input type="hidden" name="olderUnit" value="a" />
-                          <input type="hidden" name="youngerValue" value={w.suggestedInset.youngerYears} />
-                          <input type="hidden" name="youngerUnit" value="a" />
-                          <input type="hidden" name="magnification" value={w.suggestedInset.magnification} />
-                          <input type="hidden" name="label" value={w.suggestedInset.label} />
-                          <button type="submit" className="btn-quiet">Add the suggested inset: {w.suggestedInset.label}</button>
-                        </Form>
-                      ) : null}
-                    </li>
-                  ))}
-                </ul>
-              )}
-            </div>
-            <div>
-              <h3 className="text-lg">Durations on this scale</h3>
-              <label className="mt-2 flex items-center gap-2 font-sans text-sm">Your own life, in years: <input className="field w-24" inputMode="numeric" value={lifeYears} onChange={(e) => onLifeYears(e.target.value)} aria-label="Your age in years" /></label>
-              <ul className="mt-2 space-y-1 font-sans text-sm">
-                {result.durations.map((d) => (
-                  <li key={d.id}>
-                    {d.label}: <strong>{formatLength(d.metres, units, d.metres / 1000)}</strong>
-                    {d.visible ? "" : " — too small to see at this scale"}
-                    {d.insets.map((ins) => <span key={ins.insetId} className="text-ink-soft"> · {formatLength(ins.metres, units, ins.metres / 1000)} in the inset</span>)}
-                  </li>
-                ))}
-              </ul>
-            </div>
-          </div>
-        </>
-      ) : (
-        <FormMessage>{preview.ok ? null : `The preview cannot be drawn: ${preview.message}`}</FormMessage>
-      )}
-      {isRoute && spec.medium.kind === "route" ? (
-        <div className="mt-6 grid gap-4 lg:grid-cols-[3fr_2fr]">
-          <RoutePlan geometry={spec.medium.geometry} result={result} markers={markers} />
-          <div className="font-sans text-sm">
-            <h3 className="font-serif text-lg">Route</h3>
-            <p className="mt-1">{spec.medium.sourceName ?? "uploaded route"}: {formatLength(spec.medium.lengthMetres, units, 0.01)} on the WGS84 ellipsoid, {(spec.medium.geometry.coordinates as unknown[]).length.toLocaleString("en-GB")} points.</p>
-            <p className="mt-1 text-ink-soft">The walk starts at the route's first point (the older end) and ends at its last point (the present).</p>
-            {canEdit ? (
-              <Form method="post" encType="multipart/form-data" className="mt-4 space-y-2">
-                <IntentFields intent="replace-route" revision={revision} />
-                <label className="block"><span className="mb-1 block font-semibold">Replace the route (GPX or GeoJSON)</span>
-                  <input type="file" name="routeFile" accept=".gpx,.geojson,.json" className="field" />
-                </label>
-                {err("replace-route", "routeFile") ? <p className="text-danger">{err("replace-route", "routeFile")}</p> : null}
-                <button type="submit" className="btn-quiet">Upload the new route</button>
-              </Form>
-            ) : null}
-          </div>
+          {shown ? <div className="mt-2"><ScaleStrip result={result} markers={markers} bands={bands} units={units} flagged={flagged} title={`Scale strip of ${title}`} /></div> : null}
         </div>
-      ) : null}
+      ) : (
+        <div id="preview-body" className="mt-2"><FormMessage>{preview.ok ? null : `The preview cannot be drawn: ${preview.message}`}</FormMessage></div>
+      )}
+    </section>
+  );
+}
+
+export function DurationsSection({ result, units, lifeYears, onLifeYears }: { result: ScaleResult; units: UnitsPreference; lifeYears: string; onLifeYears: (value: string) => void }) {
+  const insetLabel = new Map(result.insets.map((i) => [i.id, i.label]));
+  return (
+    <section className="card" aria-labelledby="durations-h">
+      <h2 id="durations-h" className="text-xl">Durations on this scale</h2>
+      <p className="mt-1 font-sans text-xs text-ink-soft">
+        Smallest visible length {formatLength(result.scale.legibility.minVisibleMetres, units)}, smallest spacing between markers {formatLength(result.scale.legibility.minSpacingMetres, units)} ({result.scale.legibility.source}).
+      </p>
+      <label className="mt-2 flex flex-wrap items-center gap-2 font-sans text-sm">
+        <span>Your own life, in years:</span>
+        <input className="field w-24" inputMode="numeric" value={lifeYears} onChange={(e) => onLifeYears(e.target.value)} />
+      </label>
+      <ul className="mt-2 space-y-1 font-sans text-sm">
+        {result.durations.map((d) => (
+          <li key={d.id}>
+            {d.label}: <strong>{formatLength(d.metres, units, d.metres / 1000)}</strong>
+            {d.visible ? "" : " — too small to see at this scale"}
+            {d.insets.map((ins) => (
+              <span key={ins.insetId} className="text-ink-soft"> · {formatLength(ins.metres, units, ins.metres / 1000)} in the inset “{insetLabel.get(ins.insetId) ?? ins.insetId}”</span>
+            ))}
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
+
+export function RouteSection({ spec, result, markers, units, canEdit, revision, err }: { spec: ExhibitSpec; result: ScaleResult | null; markers: ResolvedMarker[]; units: UnitsPreference; canEdit: boolean; revision: number; err: FieldError }) {
+  if (spec.medium.kind !== "route") return null;
+  const medium = spec.medium;
+  return (
+    <section className="card" aria-labelledby="route-h">
+      <h2 id="route-h" className="text-xl">The route</h2>
+      <div className="mt-3 grid gap-4 lg:grid-cols-[3fr_2fr]">
+        <RoutePlan geometry={medium.geometry} result={result} markers={markers} units={units} />
+        <div className="font-sans text-sm">
+          <p>
+            {medium.sourceName ?? "uploaded route"}: {formatLength(medium.lengthMetres, units, 0.01)} measured on the <Term id="wgs84" />, {(medium.geometry.coordinates as unknown[]).length.toLocaleString("en-GB")} points.
+          </p>
+          {result?.scale.route ? (
+            <p className="mt-1">Walking it takes about {Math.round(result.scale.route.walkingSeconds / 60)} min at {result.scale.route.walkingSpeedMps} m/s ({Math.round(result.scale.route.accessibleWalkingSeconds / 60)} min at {result.scale.route.accessibleSpeedMps} m/s).</p>
+          ) : null}
+          <p className="mt-1 text-ink-soft">The walk starts at the route's first point (the older end) and ends at its last point (the present).</p>
+          {canEdit ? (
+            <Form method="post" encType="multipart/form-data" className="mt-4 space-y-2">
+              <IntentFields intent="replace-route" revision={revision} />
+              <label className="block"><span className="mb-1 block font-semibold">Replace the route (a GPX or GeoJSON file)</span>
+                <input type="file" name="routeFile" accept=".gpx,.geojson,.json" className="field" />
+              </label>
+              {err("replace-route", "routeFile") ? <p className="text-danger">{err("replace-route", "routeFile")}</p> : null}
+              <button type="submit" className="btn-quiet">Upload the new route</button>
+            </Form>
+          ) : null}
+        </div>
+      </div>
     </section>
   );
 }
