@@ -12,6 +12,7 @@ import { audit } from "../audit.server.ts";
 import { eventsByIds } from "../dated-events.server.ts";
 import { computeBundle, ExhibitError, intervalsWithIds, requireBundle, type ExhibitBundle } from "./load.server.ts";
 import { reviseExhibit, type Actor } from "./revise.server.ts";
+import { recordRevision } from "../review/revisions.server.ts";
 import { cleanupAfterMarkerRemoval } from "../assets/attach.server.ts";
 
 // ---------- creating ----------
@@ -59,6 +60,7 @@ export async function createExhibit(actor: Actor, input: NewExhibitInput) {
     const bundle = await requireBundle(actor.organisationId, input.slug, transaction);
     const computed = computeBundle(bundle);
     if (!computed.ok) throw new ExhibitError(computed.message);
+    await recordRevision(bundle, actor.user.id, "create", transaction);
     await audit({ organisationId: actor.organisationId, actorId: actor.user.id, action: "exhibit.create", objectType: "exhibit", objectId: exhibit.id, details: { slug: input.slug, edition: edition.slug, medium: input.medium.kind } }, transaction);
     return exhibit;
   });

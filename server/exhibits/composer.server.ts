@@ -8,6 +8,8 @@ import { removeImage, setImage } from "../assets/attach.server.ts";
 import { impactFor, repinToCurrent } from "./impact.server.ts";
 import { ExhibitError, howWeKnowFor, requireBundle } from "./load.server.ts";
 import type { Actor } from "./revise.server.ts";
+import { reviewActorOf, submitForReview } from "../review/lifecycle.server.ts";
+import { publish } from "../publications/publish.server.ts";
 
 const ma = (value: number, unit: Parameters<typeof toYears>[0]["unit"]) => toYears({ value, unit }) / 1e6;
 
@@ -68,6 +70,14 @@ export async function runComposerCommand(actor: Actor, slug: string, command: Co
     case "remove-image":
       await removeImage(actor, slug, revision, command.markerId === "cover" ? null : command.markerId);
       return command.markerId === "cover" ? "Cover image removed." : "Image removed from the marker.";
+    case "submit-for-review": {
+      const { report, mailed } = await submitForReview(reviewActorOf(actor), slug, revision);
+      return `Submitted for review${report.counts.warning ? ` with ${report.counts.warning} warning${report.counts.warning === 1 ? "" : "s"} for the reviewer to weigh` : ""}; ${mailed.length} reviewer${mailed.length === 1 ? " was" : "s were"} told by e-mail.`;
+    }
+    case "publish": {
+      const { number, newSigns } = await publish(reviewActorOf(actor), slug, revision);
+      return `Published as publication ${number}${newSigns ? ` (${newSigns} new sign number${newSigns === 1 ? "" : "s"})` : ""}. Visitors now see this version.`;
+    }
     case "repin": {
       const { result } = await repinToCurrent(actor, slug, revision);
       return `Re-pinned from ${result.from} to ${result.to}; ${result.moved} marker${result.moved === 1 ? "" : "s"} changed. The exhibit needs review again.`;

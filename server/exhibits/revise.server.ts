@@ -5,9 +5,11 @@
 import type { Transaction } from "sequelize";
 import { data } from "react-router";
 import { Exhibit, User } from "../../db/models/index.ts";
+import type { Subject } from "../../app/lib/permissions.ts";
 import { sequelize } from "../db.server.ts";
 import { audit } from "../audit.server.ts";
 import { BodyTooLargeError, megabytes, readLimitedFormData } from "../http.server.ts";
+import { recordEdit } from "../review/revisions.server.ts";
 import { computeBundle, EXHIBIT_NOT_FOUND, ExhibitError, requireBundle, type ExhibitBundle } from "./load.server.ts";
 
 /** Another person saved first: nothing of this change was written. */
@@ -25,6 +27,8 @@ export class RevisionConflictError extends ExhibitError {
 export interface Actor {
   organisationId: number;
   user: User;
+  /** The permission subject (the review transitions ask it: four-eyes, publish). */
+  subject?: Subject;
 }
 
 /**
@@ -56,8 +60,10 @@ export async function reviseExhibit<T>(
     const after = await requireBundle(actor.organisationId, slug, transaction);
     const computed = computeBundle(after);
     if (!computed.ok) throw new ExhibitError(`Not saved: ${computed.message}`);
+    // Keep the revision's content; an edit of an exhibit in review, approved or published returns it to draft.
+    const status = await recordEdit(after, actor.user.id, action, transaction);
     await audit(
-      { organisationId: actor.organisationId, actorId: actor.user.id, action: `exhibit.${action}`, objectType: "exhibit", objectId: before.exhibit.id, details: { slug, revision: rows[0].revision, ...details(result) } },
+      { organisationId: actor.organisationId, actorId: actor.user.id, action: `exhibit.${action}`, objectType: "exhibit", objectId: before.exhibit.id, details: { slug, revision: rows[0].revision, ...(status.after !== status.before ? { status: status.after, statusBefore: status.before } : {}), ...details(result) } },
       transaction,
     );
     return { result, revision: rows[0].revision };

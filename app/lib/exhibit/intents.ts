@@ -32,6 +32,8 @@ export const COMPOSER_INTENTS = [
   "set-marker-image",
   "set-cover-image",
   "remove-image",
+  "submit-for-review",
+  "publish",
 ] as const;
 export type ComposerIntent = (typeof COMPOSER_INTENTS)[number];
 
@@ -62,6 +64,8 @@ export const ComposerCommandSchema = z.discriminatedUnion(
     MarkerImageSchema.safeExtend(intent("set-marker-image")),
     ImageWordsSchema.safeExtend(intent("set-cover-image")),
     RemoveImageSchema.safeExtend(intent("remove-image")),
+    z.object(intent("submit-for-review")),
+    z.object(intent("publish")),
   ],
   { error: "Unknown action." },
 );

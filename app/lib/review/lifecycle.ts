@@ -48,3 +48,8 @@ export function statusAfterEdit(status: ExhibitStatus): ExhibitStatus {
 export function isExhibitStatus(value: unknown): value is ExhibitStatus {
   return typeof value === "string" && (EXHIBIT_STATUSES as readonly string[]).includes(value);
 }
+
+/** The permission a composer form needs: publishing and submitting have their own; every other intent edits. */
+export function composerPermission(intent: string): "exhibit.publish" | "exhibit.submit" | "exhibit.edit" {
+  return intent === "publish" ? "exhibit.publish" : intent === "submit-for-review" ? "exhibit.submit" : "exhibit.edit";
+}

@@ -5,6 +5,7 @@ import { data, redirect } from "react-router";
 import { Composer } from "~/components/exhibit/composer";
 import { ComposerCommandSchema, type ComposerRefusal } from "~/lib/exhibit";
 import { can } from "~/lib/permissions";
+import { composerPermission } from "~/lib/review/lifecycle";
 import { parseForm } from "~/lib/validation";
 import { requireMember, requirePermission } from "#server/auth.server.ts";
 import { composerImages } from "#server/assets/usage.server.ts";
@@ -25,15 +26,17 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 const refuse = (status: number, refusal: ComposerRefusal) => data(refusal, { status });
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const member = await requirePermission(request, "exhibit.edit");
+  await requireMember(request);
   const read = await readExhibitForm(request);
   if (!read.ok) return refuse(413, { intent: "replace-route", error: read.message, fields: { routeFile: read.message } });
   const intent = String(read.form.get("intent") ?? "");
+  // Publishing (designers and admins) and submitting have their own permissions; every other form edits.
+  const member = await requirePermission(request, composerPermission(intent));
   const command = parseForm(ComposerCommandSchema, read.form);
   if (!command.ok) return refuse(400, { intent, error: command.formError, fields: command.fieldErrors });
   let message: string;
   try {
-    message = await runComposerCommand({ organisationId: member.organisation.id, user: member.user }, params.slug, command.data);
+    message = await runComposerCommand({ organisationId: member.organisation.id, user: member.user, subject: member.subject }, params.slug, command.data);
   } catch (error) {
     if (error instanceof ExhibitError) return refuse(error.status, { intent, error: error.message, fields: { [error.field]: error.message } });
     throw error;
