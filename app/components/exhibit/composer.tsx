@@ -13,6 +13,7 @@ import type { FieldError } from "~/components/exhibit/form-bits";
 import { ImpactSection } from "~/components/exhibit/impact-section";
 import { InsetsSection } from "~/components/exhibit/insets";
 import { MarkersTable } from "~/components/exhibit/markers-table";
+import { CoverImageSection } from "~/components/exhibit/marker-image";
 import { DurationsSection, PreviewPane, RouteSection } from "~/components/exhibit/preview";
 import { SettingsForm } from "~/components/exhibit/settings-form";
 import { WarningsSection, warningKeyOf, type Acknowledgement } from "~/components/exhibit/warnings";
@@ -105,6 +106,8 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
         {impact ? <ImpactSection impact={impact} editionLabel={edition.label} units={units} revision={revision} canEdit={canEdit} /> : null}
 
         <MarkersTable markers={markers} decaySystems={decaySystems} points={points} flagged={flagged} units={units} isRoute={isRoute} canEdit={canEdit} revision={revision} />
+
+        <CoverImageSection revision={revision} canEdit={canEdit} />
 
         {canEdit ? (
           <section className="grid gap-6 lg:grid-cols-3" aria-label="Add markers">

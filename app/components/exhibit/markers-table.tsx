@@ -2,6 +2,7 @@
 // (on routes) coordinates and walking time; designers edit or remove each one in place.
 import { Form } from "react-router";
 import { IntentFields } from "~/components/exhibit/form-bits";
+import { ImageControl } from "~/components/exhibit/marker-image";
 import { Term } from "~/components/term";
 import { formatAgeMa, formatLength, type ComposerView, type UnitsPreference } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
@@ -43,6 +44,7 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
                     <div className="text-xs text-ink-soft">{m.source}</div>
                     {m.html ? <div className="prose-sm mt-1 text-xs" dangerouslySetInnerHTML={{ __html: m.html }} /> : null}
                     {m.howWeKnow ? <p className="mt-1 text-xs text-slate-river-700"><span className="font-semibold">How we know:</span> {m.howWeKnow}</p> : null}
+                    <ImageControl target={m.id} revision={revision} canEdit={canEdit} />
                   </td>
                   <td className="p-2" data-label="Kind">{m.kind}</td>
                   <td className="num p-2" data-label="Age">{m.approximate ? "~" : ""}{formatAgeMa(m.ageMa)}{m.uncertaintyMa ? ` ± ${formatAgeMa(m.uncertaintyMa)}` : ""}</td>
