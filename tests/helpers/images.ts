@@ -6,6 +6,12 @@ import sharp from "sharp";
 /** The GPS IFD pointer tag (0x8825) as it appears in a big-endian EXIF block. */
 export const GPS_TAG = Buffer.from([0x88, 0x25]);
 
+/** Does a file carry an EXIF block at all (the APP1/chunk header "Exif\0\0")? */
+export function hasExifBlock(bytes: Uint8Array): boolean {
+  return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).includes(Buffer.from("Exif\0\0", "latin1"));
+}
+
+/** Does an EXIF block (sharp's metadata().exif) hold a GPS directory? */
 export function hasGps(exif: Buffer | undefined): boolean {
   return Boolean(exif && (exif.includes(GPS_TAG) || exif.includes(Buffer.from([0x25, 0x88]))));
 }

@@ -15,7 +15,7 @@ import { imagesForExhibit } from "../../server/assets/usage.server.ts";
 import { sequelize } from "../../server/db.server.ts";
 import { listObjects, putObject } from "../../server/storage/s3.server.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle } from "../helpers/db.ts";
-import { hasGps, HTML_PAGE, jpegWithGps, pngBomb, pngWithAlpha, SVG_WITH_SCRIPT, uploadRequest, useOwnBucket, zipArchive } from "../helpers/images.ts";
+import { hasExifBlock, hasGps, HTML_PAGE, jpegWithGps, pngBomb, pngWithAlpha, SVG_WITH_SCRIPT, uploadRequest, useOwnBucket, zipArchive } from "../helpers/images.ts";
 import { workerDatabase } from "../setup/test-env.ts";
 
 let org: Organisation;
@@ -103,7 +103,7 @@ describe("upload, process, serve", () => {
       const meta = await sharp(bytes).metadata();
       expect(meta.width).toBe(size.width);
       expect(meta.exif).toBeUndefined();
-      expect(hasGps(bytes)).toBe(false);
+      expect(hasExifBlock(bytes)).toBe(false);
       const again = await fetchMedia(size.url, designer, { "If-None-Match": r.headers.get("ETag")! });
       expect(again.status).toBe(304);
     }
