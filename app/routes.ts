@@ -23,6 +23,9 @@ export default [
     route("exhibits/:slug", "routes/studio/exhibits.$slug.tsx"),
     route("exhibits/:slug/schedule.csv", "routes/studio/exhibits.$slug.schedule-csv.ts"),
     route("exhibits/:slug/points.geojson", "routes/studio/exhibits.$slug.points-geojson.ts"),
+    route("exhibits/:slug/review", "routes/studio/exhibits.$slug.review.tsx"),
+    route("exhibits/:slug/revisions", "routes/studio/exhibits.$slug.revisions.tsx"),
+    route("exhibits/:slug/revisions/compare", "routes/studio/exhibits.$slug.revisions.compare.tsx"),
   ]),
   // Chart editions and the glossary: readable by everyone (drafts only by editors and admins).
   layout("routes/editions.layout.tsx", [
@@ -38,6 +41,9 @@ export default [
     route("timescales", "routes/api.timescales.ts"),
     route("timescales/:slug", "routes/api.timescales.$slug.ts"),
     route("events", "routes/api.events.ts"),
+    route("exhibits/:org/:slug", "routes/api.exhibits.$org.$slug.ts"),
+    route("exhibits/:org/:slug/publications", "routes/api.exhibits.$org.$slug.publications.ts"),
+    route("exhibits/:org/:slug/publications/:number", "routes/api.exhibits.$org.$slug.publications.$number.ts"),
     route("assets", "routes/api.assets.ts"),
     route("assets/:id", "routes/api.assets.$id.ts"),
   ]),

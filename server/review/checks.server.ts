@@ -9,7 +9,8 @@ import { DatedEvent } from "../../db/models/index.ts";
 import { imagesForExhibit } from "../assets/usage.server.ts";
 import { sequelize } from "../db.server.ts";
 import { impactFor } from "../exhibits/impact.server.ts";
-import { ExhibitError, loadBundle, type ExhibitBundle } from "../exhibits/load.server.ts";
+import { data } from "react-router";
+import { EXHIBIT_NOT_FOUND, loadBundle, type ExhibitBundle } from "../exhibits/load.server.ts";
 
 /** The interval each boundary marker points to, straight from the tables (it may be another edition's by mistake). */
 async function boundaryFacts(exhibitId: number, transaction?: Transaction): Promise<BoundaryFact[]> {
@@ -54,7 +55,7 @@ export async function checkExhibit(organisationId: number, slug: string, transac
     `SELECT e.id, e.revision, e.edition_id AS "editionId", c.slug AS "editionSlug", c.label AS "editionLabel" FROM exhibits e JOIN chart_editions c ON c.id = e.edition_id WHERE e.organisation_id = $1 AND e.slug = $2`,
     { bind: [organisationId, slug], transaction },
   )) as [{ id: number; revision: number; editionId: number; editionSlug: string; editionLabel: string }[], unknown];
-  if (!row) throw new ExhibitError("There is no exhibit at this address in your organisation.", "_form", 404);
+  if (!row) throw data({ message: EXHIBIT_NOT_FOUND }, { status: 404 });
   const facts = await boundaryFacts(row.id, transaction);
   const foreign = facts.filter((f) => f.editionId !== row.editionId);
   if (foreign.length) {

@@ -2,7 +2,8 @@
 import { data } from "react-router";
 import { decide, can } from "../../app/lib/permissions.ts";
 import { diffRevisions, type RevisionDiff } from "../../app/lib/review/diff.ts";
-import type { ReviewCommand } from "../../app/lib/review/forms.ts";
+import { CompareQuerySchema, type ReviewCommand } from "../../app/lib/review/forms.ts";
+import { parseForm } from "../../app/lib/validation.ts";
 import type { ExhibitStatus } from "../../app/lib/review/lifecycle.ts";
 import type { CheckReport } from "../../app/lib/review/types.ts";
 import { formatAgeMa } from "../../app/lib/exhibit/display.ts";
@@ -122,6 +123,26 @@ export async function runReviewCommand(actor: ReviewActor, slug: string, command
   }
 }
 
+/** The composer's status bar: status, the approved revision, which button this member may press, the live publication. */
+export async function lifecycleView(actor: ReviewActor, slug: string) {
+  const exhibit = await Exhibit.findOne({ where: { organisationId: actor.organisationId, slug } });
+  if (!exhibit) throw data({ message: EXHIBIT_NOT_FOUND }, { status: 404 });
+  const [latest, org] = await Promise.all([
+    Publication.findOne({ where: { exhibitId: exhibit.id }, order: [["number", "DESC"]], attributes: ["number", "revision", "publishedAt"] }),
+    Organisation.findByPk(actor.organisationId, { attributes: ["slug"] }),
+  ]);
+  return {
+    slug: exhibit.slug,
+    organisation: org?.slug ?? "",
+    status: exhibit.status,
+    revision: exhibit.revision,
+    approvedRevision: exhibit.approvedRevision,
+    canSubmit: can(actor.subject, "exhibit.submit"),
+    canPublish: can(actor.subject, "exhibit.publish"),
+    latestPublication: latest ? { number: latest.number, revision: latest.revision, at: latest.publishedAt.toISOString() } : null,
+  };
+}
+
 export interface RevisionsView {
   exhibit: { title: string; slug: string; status: ExhibitStatus; revision: number };
   revisions: { revision: number; author: string; action: string; at: string; markers: number; published: number | null; reviewed: string | null }[];
@@ -150,9 +171,13 @@ export interface CompareView {
   diff: RevisionDiff;
 }
 
-export async function compareView(organisationId: number, slug: string, from: number, to: number | "published"): Promise<CompareView> {
+/** `?from=N&to=M|published`, read after the exhibit is found (an unknown exhibit is 404 whatever the query). */
+export async function compareView(organisationId: number, slug: string, query: URLSearchParams): Promise<CompareView> {
   const exhibit = await Exhibit.findOne({ where: { organisationId, slug } });
   if (!exhibit) throw data({ message: EXHIBIT_NOT_FOUND }, { status: 404 });
+  const parsed = parseForm(CompareQuerySchema, { from: query.get("from") ?? undefined, to: query.get("to") ?? undefined });
+  if (!parsed.ok) throw new ExhibitError(`Choose two revisions to compare: ${Object.values(parsed.fieldErrors)[0]}`, Object.keys(parsed.fieldErrors)[0]);
+  const { from, to } = parsed.data;
   let toRevision: number;
   let toLabel: string;
   if (to === "published") {

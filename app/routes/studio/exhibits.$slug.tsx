@@ -3,6 +3,7 @@
 // (app/lib/exhibit/intents.ts) and runs the matching command. The page is components/exhibit/composer.
 import { data, redirect } from "react-router";
 import { Composer } from "~/components/exhibit/composer";
+import { LifecycleBar } from "~/components/exhibit/lifecycle-bar";
 import { ComposerCommandSchema, type ComposerRefusal } from "~/lib/exhibit";
 import { can } from "~/lib/permissions";
 import { composerPermission } from "~/lib/review/lifecycle";
@@ -12,6 +13,7 @@ import { composerImages } from "#server/assets/usage.server.ts";
 import { composerView, runComposerCommand } from "#server/exhibits/composer.server.ts";
 import { ExhibitError } from "#server/exhibits/load.server.ts";
 import { readExhibitForm } from "#server/exhibits/revise.server.ts";
+import { lifecycleView } from "#server/review/view.server.ts";
 import { noticeHeader } from "#server/session.server.ts";
 import type { Route } from "./+types/exhibits.$slug";
 
@@ -19,8 +21,12 @@ export const meta: Route.MetaFunction = ({ loaderData }) => [{ title: `${loaderD
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request);
-  const [view, images] = await Promise.all([composerView(member.organisation.id, params.slug, can(member.subject, "exhibit.edit")), composerImages(member.organisation.id, params.slug)]);
-  return { ...view, images };
+  const [view, images, lifecycle] = await Promise.all([
+    composerView(member.organisation.id, params.slug, can(member.subject, "exhibit.edit")),
+    composerImages(member.organisation.id, params.slug),
+    lifecycleView({ organisationId: member.organisation.id, user: member.user, subject: member.subject }, params.slug),
+  ]);
+  return { ...view, images, lifecycle };
 }
 
 const refuse = (status: number, refusal: ComposerRefusal) => data(refusal, { status });
@@ -45,5 +51,9 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ExhibitPage({ loaderData, actionData }: Route.ComponentProps) {
-  return <Composer view={loaderData} refusal={actionData} />;
+  return (
+    <Composer view={loaderData} refusal={actionData}>
+      <LifecycleBar view={loaderData.lifecycle} />
+    </Composer>
+  );
 }

@@ -1,0 +1,10 @@
+/**
+ * GET /api/exhibits/:org/:slug/publications — every publication of the exhibit, newest first:
+ * { "exhibit": { organisation, slug, latest }, "publications": [{ number, hash, publishedAt, approvedBy, edition, url }] }.
+ */
+import { publicationsListResponse } from "#server/publications/public.server.ts";
+import type { Route } from "./+types/api.exhibits.$org.$slug.publications";
+
+export function loader({ request, params }: Route.LoaderArgs) {
+  return publicationsListResponse(request, params.org, params.slug);
+}
