@@ -1,6 +1,6 @@
 // Turning an exhibit into a scale-engine request, and the comparisons every exhibit shows.
-import { parseScaleRequest, type ScaleRequest } from "../scale/schema";
-import { computeScale, type ScaleResult } from "../scale/compute";
+import { MAX_AGE_YEARS, MAX_POINTS, parseScaleRequest, type ScaleRequest } from "../scale/schema";
+import { computeScale, type PointYears, type ScaleResult } from "../scale/compute";
 import { prepareRoute, type PreparedRoute } from "../geo/route";
 import { parseGeoJsonRoute } from "../geo/parse";
 import { intervalsAt } from "../timescale/lookup";
@@ -8,17 +8,29 @@ import { toMetres, toYears } from "../units";
 import type { Interval, Rank } from "../timescale/types";
 import type { DurationSpec, ExhibitSpec, LineStringGeometry, ResolvedMarker } from "./types";
 
-/** Comparisons shown on every exhibit. The life span is the visitor's to change in the preview. */
+/**
+ * Comparisons shown on every exhibit. The life span is the visitor's to change in the preview.
+ * Each is a located span — the last N years — so it shows only on an inset that contains it.
+ */
 export function standardDurations(lifeYears = 80): DurationSpec[] {
   return [
-    { id: "life", label: `a ${lifeYears}-year life`, years: lifeYears },
+    { id: "life", label: `a ${lifeYears}-year life`, years: lifeYears, endsAgoYears: 0 },
     // Oldest writing, about 5,200 years ago (Sumerian cuneiform; common practice figure).
-    { id: "writing", label: "recorded history (about 5,200 years)", years: 5200 },
+    { id: "writing", label: "recorded history (about 5,200 years)", years: 5200, endsAgoYears: 0 },
     // Holocene base 11,700 years b2k (ICS chart).
-    { id: "holocene", label: "the Holocene (11,700 years)", years: 11_700 },
+    { id: "holocene", label: "the Holocene (11,700 years)", years: 11_700, endsAgoYears: 0 },
     // Earliest Homo sapiens fossils, about 300,000 years (common practice round figure).
-    { id: "sapiens", label: "our species (about 300,000 years)", years: 300_000 },
+    { id: "sapiens", label: "our species (about 300,000 years)", years: 300_000, endsAgoYears: 0 },
   ];
+}
+
+function pointOf(m: ResolvedMarker) {
+  return {
+    id: m.id,
+    label: m.label,
+    age: { value: m.ageMa, unit: "Ma" as const },
+    ...(m.uncertaintyMa != null && m.uncertaintyMa > 0 ? { uncertainty: { value: m.uncertaintyMa, unit: "Ma" as const } } : {}),
+  };
 }
 
 /** The scale-engine request for an exhibit (not yet validated: run it through parseScaleRequest). */
@@ -28,13 +40,9 @@ export function scaleRequestFor(spec: ExhibitSpec, markers: ResolvedMarker[], du
     medium: spec.medium.kind === "length" ? { kind: "length", length: spec.medium.length } : { kind: "route", geometry: spec.medium.geometry },
     mediumType: spec.medium.mediumType,
     legibility: spec.legibility,
-    points: markers.map((m) => ({
-      id: m.id,
-      label: m.label,
-      age: { value: m.ageMa, unit: "Ma" },
-      ...(m.uncertaintyMa != null && m.uncertaintyMa > 0 ? { uncertainty: { value: m.uncertaintyMa, unit: "Ma" } } : {}),
-    })),
-    durations: durations.map((d) => ({ id: d.id, label: d.label, years: d.years })),
+    unitSystem: spec.unitsPreference,
+    points: markers.map(pointOf),
+    durations: durations.map((d) => ({ id: d.id, label: d.label, years: d.years, ...(d.endsAgoYears !== undefined ? { endsAgo: { value: d.endsAgoYears, unit: "a" } } : {}) })),
     insets: spec.insets.map((i) => ({
       id: i.id,
       label: i.label,
@@ -49,20 +57,80 @@ export type ExhibitComputation =
   | { ok: true; request: ScaleRequest; route?: PreparedRoute; result: ScaleResult }
   | { ok: false; message: string; issues: { path: string; message: string }[] };
 
+/** The markers as request points, with their ages and ± in years, and the range of ages. */
+interface MarkerPoints {
+  points: ScaleRequest["points"];
+  years: PointYears;
+  oldest: number;
+  youngest: number;
+}
+
+const checkedMarkers = new WeakMap<readonly ResolvedMarker[], MarkerPoints | null>();
+
+/**
+ * The markers as request points, when every one passes what the request schema checks of a point
+ * (a finite age ≥ 0, an id and label of sensible length, no id twice, a ± ≥ 0; the span is checked
+ * by the caller); null otherwise — the full schema then says what is wrong. Worked out once per
+ * markers array (the preview passes the same, never changed, array on every keystroke).
+ */
+function markerPoints(markers: readonly ResolvedMarker[]): MarkerPoints | null {
+  const known = checkedMarkers.get(markers);
+  if (known !== undefined) return known;
+  let out: MarkerPoints | null = null;
+  if (markers.length <= MAX_POINTS) {
+    const seen = new Set<string>();
+    const points: ScaleRequest["points"] = new Array(markers.length);
+    const ages = new Float64Array(markers.length);
+    const uncertainties = new Float64Array(markers.length);
+    let oldest = -Infinity;
+    let youngest = Infinity;
+    let ok = true;
+    for (let i = 0; i < markers.length && ok; i++) {
+      const m = markers[i];
+      const a = m.ageMa;
+      const u = m.uncertaintyMa;
+      ok =
+        typeof a === "number" && a >= 0 && a <= MAX_AGE_YEARS &&
+        typeof m.id === "string" && m.id.length >= 1 && m.id.length <= 200 && !seen.has(m.id) &&
+        typeof m.label === "string" && m.label.length <= 500 &&
+        (u == null || (typeof u === "number" && u >= 0 && u < Infinity));
+      if (!ok) break;
+      seen.add(m.id);
+      points[i] = pointOf(m);
+      ages[i] = toYears(points[i].age);
+      uncertainties[i] = points[i].uncertainty ? toYears(points[i].uncertainty!) : NaN;
+      if (ages[i] > oldest) oldest = ages[i];
+      if (ages[i] < youngest) youngest = ages[i];
+    }
+    if (ok) out = { points, years: { ages, uncertainties }, oldest, youngest };
+  }
+  checkedMarkers.set(markers, out);
+  return out;
+}
+
 /**
  * Validate and compute an exhibit. Pass `route` (from an earlier call) to skip re-measuring the
- * route on every keystroke in the preview.
+ * route on every keystroke in the preview. The exhibit's settings go through the request schema;
+ * the markers (already stored, so already checked) through a quick check of the same rules, and
+ * through the schema only when one fails it, for its message.
  */
 export function computeExhibit(spec: ExhibitSpec, markers: ResolvedMarker[], durations: DurationSpec[] = [], cache?: { route?: PreparedRoute; geometry?: unknown }): ExhibitComputation {
-  const body = scaleRequestFor(spec, markers, durations) as { medium: { kind: string; geometry?: unknown } };
-  const reuse = cache?.route && spec.medium.kind === "route" && cache.geometry === spec.medium.geometry;
-  const parsed = parseScaleRequest(reuse ? { ...body, medium: { kind: "length", length: { value: cache!.route!.totalMetres, unit: "m" } } } : body);
-  if (!parsed.ok) return { ok: false, message: parsed.error.message, issues: parsed.error.issues };
-  if (reuse) {
-    const request = { ...parsed.request, medium: body.medium } as ScaleRequest;
-    return { ok: true, request, route: cache!.route, result: computeScale(request, { route: cache!.route }) };
+  const reuse = Boolean(cache?.route && spec.medium.kind === "route" && cache.geometry === spec.medium.geometry);
+  // a reused route goes through the schema as its measured length
+  const measured = (b: unknown) => (reuse ? { ...(b as object), medium: { kind: "length", length: { value: cache!.route!.totalMetres, unit: "m" } } } : b);
+  const finish = (request: ScaleRequest, parsedRoute?: PreparedRoute, pointYears?: PointYears): ExhibitComputation => {
+    const route = reuse ? cache!.route : parsedRoute;
+    const req = reuse ? ({ ...request, medium: { kind: "route", geometry: (spec.medium as { geometry: unknown }).geometry } } as ScaleRequest) : request;
+    return { ok: true, request: req, route, result: computeScale(req, { route, pointYears }) };
+  };
+  const head = parseScaleRequest(measured(scaleRequestFor(spec, [], durations)));
+  const mp = head.ok ? markerPoints(markers) : null;
+  if (head.ok && mp && (markers.length === 0 || (mp.oldest <= toYears(head.request.span.older) && mp.youngest >= toYears(head.request.span.younger)))) {
+    return finish({ ...head.request, points: mp.points }, head.route, mp.years);
   }
-  return { ok: true, request: parsed.request, route: parsed.route, result: computeScale(parsed.request, { route: parsed.route }) };
+  const full = parseScaleRequest(measured(scaleRequestFor(spec, markers, durations)));
+  if (!full.ok) return { ok: false, message: full.error.message, issues: full.error.issues };
+  return finish(full.request, full.route);
 }
 
 /**

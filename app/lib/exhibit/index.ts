@@ -12,3 +12,4 @@ export * from "./intents";
 export * from "./draft";
 export * from "./view";
 export * from "./new-exhibit";
+export * from "./acknowledgements";

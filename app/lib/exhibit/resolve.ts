@@ -6,6 +6,7 @@ import { colourAt } from "./compose";
 import type { LineStringGeometry, MarkerKind, MediumSpec, ResolvedMarker } from "./types";
 import type { LengthUnit } from "../units";
 import type { MediumType } from "../scale/legibility";
+import { sortByTableOrder } from "../scale/numbering";
 
 /** The stored fields of a marker that resolving reads (a database row fits this shape). */
 export interface MarkerRecord {
@@ -32,7 +33,8 @@ const num = (v: string | number | null | undefined) => (v == null ? null : Numbe
 
 /**
  * Resolves every marker's age, source and colour, and numbers them from the older end of the
- * exhibit (marker 1 is the first a visitor reaches; equal ages keep the order they were added in).
+ * exhibit (marker 1 is the first a visitor reaches; equal ages keep the order they were added in) —
+ * the same table numbers the scale engine gives its points and warnings (scale/numbering.ts).
  */
 export function resolveMarkers(
   rows: readonly MarkerRecord[],
@@ -73,7 +75,7 @@ export function resolveMarkers(
     }
     return { id: String(m.id), number: 0, kind: m.kind, label: m.label, text: m.text, ageMa, uncertaintyMa, intervalName, intervalRank, eventName, source, color: colourAt(intervals, ageMa), approximate };
   });
-  resolved.sort((a, b) => b.ageMa - a.ageMa || Number(a.id) - Number(b.id));
+  sortByTableOrder(resolved, (m) => m.ageMa, (m) => m.id);
   resolved.forEach((m, i) => (m.number = i + 1));
   return resolved;
 }

@@ -74,4 +74,9 @@ export interface DurationSpec {
   id: string;
   label: string;
   years: number;
+  /**
+   * A located span ends this many years ago (0: "the last N years"): it shows only on an inset that
+   * contains it. Without it the duration is a pure comparison ("as long as …"), shown on any inset's scale.
+   */
+  endsAgoYears?: number;
 }

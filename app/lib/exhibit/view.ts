@@ -2,6 +2,7 @@
 // their sanitised texts, the pinned edition's intervals, and the impact of the current edition.
 import type { Rank } from "../timescale/types";
 import type { ImpactReport } from "./impact";
+import type { WarningAcknowledgement } from "./acknowledgements";
 import type { ExhibitSpec, ResolvedMarker } from "./types";
 
 export interface ComposerMarker extends ResolvedMarker {
@@ -22,6 +23,8 @@ export interface ComposerView {
   intervals: { name: string; rank: Rank; baseMa: number; topMa: number; color: string }[];
   /** Set when another edition is current: what re-pinning to it would move. */
   impact: { edition: { slug: string; label: string }; report: ImpactReport } | null;
+  /** Stored acknowledgements of legibility warnings (acknowledgementOf / withAcknowledgements match them to the warnings by key). */
+  acknowledgements: WarningAcknowledgement[];
   canEdit: boolean;
 }
 

@@ -1,24 +1,30 @@
 /**
  * computeScale: the linear time-as-distance scale, marker distances and labels, durations,
- * insets, legibility warnings and (on routes) coordinates, bearings and walking figures.
+ * insets, legibility warnings (warnings.ts) and (on routes) coordinates, bearings and walking figures.
  */
 import { parseGeoJsonRoute, parseGpxRoute } from "../geo/parse";
 import { positionsAt, prepareRoute, type PreparedRoute } from "../geo/route";
-import { clean, toMetres, toYears, type LengthUnit } from "../units";
-import { formatDuration, formatFixed, formatLengthSig, formatYears, scaleStatement, type ScaleStatement } from "./format";
+import { clean, toMetres, toYears, type UnitSystem } from "../units";
 import {
-  findCrowded,
-  insetLabel,
-  LEGIBILITY_DEFAULTS,
-  LEGIBILITY_SOURCE,
-  suggestInsetForCluster,
-  suggestInsetForDuration,
-  type Legibility,
-  type MediumType,
-  type SuggestedInset,
-} from "./legibility";
-import { displayStep, labelUnit, mediumResolution, roundAtStep, uncertaintyFigures, type RoundingBasis } from "./rounding";
+  displayStep,
+  distanceLabel,
+  formatCountTwoFigures,
+  formatDuration,
+  formatLengthSig,
+  formatSig,
+  formatYears,
+  mediumResolution,
+  scaleStatement,
+  type DistanceLabel,
+  type ScaleStatement,
+} from "./format";
+import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, type MediumType, type SuggestedInset } from "./legibility";
+import { compareIds } from "./numbering";
 import type { ScaleRequest } from "./schema";
+import { computeWarnings, type ScaleWarning } from "./warnings";
+
+export type { DistanceLabel } from "./format";
+export type { ScaleWarning, WarningMarker, WarningCode } from "./warnings";
 
 /** FHWA-RD-98-107: 1.2 m/s walking design speed. */
 export const DEFAULT_WALKING_SPEED_MPS = 1.2;
@@ -36,15 +42,6 @@ export const WALKING_SOURCES = {
   accessibleSpeed: "MUTCD §4E.06: 0.9 m/s (3 ft/s) slow-walker check",
   stepLength: "common practice: about 0.66–0.76 m per step (not a standard)",
 } as const;
-
-export interface DistanceLabel {
-  fromOlderEnd: string;
-  fromYoungerEnd: string;
-  /** "± 0.05 km", or null without an uncertainty. */
-  uncertainty: string | null;
-  stepMetres: number;
-  basis: RoundingBasis;
-}
 
 export interface InsetPlacement {
   insetId: string;
@@ -68,6 +65,8 @@ export interface Walking {
 
 export interface PointResult {
   id: string;
+  /** Table number, 1–N by age, oldest first (numbering.ts). */
+  number: number;
   label?: string;
   ageYears: number;
   uncertaintyYears: number | null;
@@ -82,14 +81,31 @@ export interface PointResult {
   insets: InsetPlacement[];
 }
 
+/** A duration on one inset's scale. */
+export interface DurationInset {
+  insetId: string;
+  insetLabel: string;
+  metres: number;
+  /** Does the inset show it: a located span only when the inset's sub-span contains it; a comparison always. */
+  covers: boolean;
+  /** "1.17 m in inset “last 20,000 years at 100×”", "… at the scale of inset “…”", or why it is not shown there. */
+  text: string;
+  /** Covered and at least the smallest visible length. */
+  visible: boolean;
+}
+
 export interface DurationResult {
   id: string;
   label?: string;
   years: number;
+  /** A located span shown at its place (the last N years, or ending `endsAgoYears` ago, inside the span); false: a comparison. */
+  located: boolean;
+  /** Younger end of a located span, years ago (0: "the last N years"); null for a comparison. */
+  endsAgoYears: number | null;
   metres: number;
   text: string;
   visible: boolean;
-  insets: { insetId: string; metres: number; text: string; visible: boolean }[];
+  insets: DurationInset[];
 }
 
 export interface InsetResult {
@@ -108,20 +124,6 @@ export interface InsetResult {
   pointIds: string[];
 }
 
-export interface ScaleWarning {
-  code:
-    | "markers-too-close"
-    | "markers-too-close-in-inset"
-    | "markers-same-age"
-    | "duration-too-small"
-    | "inset-longer-than-medium";
-  message: string;
-  pointIds: string[];
-  durationIds?: string[];
-  insetId?: string;
-  suggestedInset?: SuggestedInset;
-}
-
 export interface ScaleResult {
   scale: {
     olderYears: number;
@@ -135,6 +137,8 @@ export interface ScaleResult {
     statement: ScaleStatement;
     mediumKind: "length" | "route";
     mediumType: MediumType;
+    /** The units labels, statements and durations are written in. */
+    unitSystem: UnitSystem;
     legibility: Legibility & { source: string };
     route?: {
       vertexCount: number;
@@ -160,34 +164,34 @@ export interface ScaleResult {
   warnings: ScaleWarning[];
 }
 
+/** The points' ages and ± in years (NaN: none), in the request's order. */
+export interface PointYears {
+  ages: Float64Array;
+  uncertainties: Float64Array;
+}
+
 export interface ComputeOptions {
   /** A route prepared earlier (reuse it across keystrokes: the cumulative distance is the costly part). */
   route?: PreparedRoute;
+  /** The points' ages and ± already converted to years (the composer converts its markers once, not on every keystroke). */
+  pointYears?: PointYears;
 }
 
 const ROUTE_CAUTION =
   "Planning figures, not a survey: walk the route first for hazards and accessibility, get the landowner's and authority's permission, and follow local codes for sign installation.";
 
-function label(
-  fromOlder: number,
-  fromYounger: number,
-  step: ReturnType<typeof displayStep>,
-  unit: LengthUnit | undefined,
-): DistanceLabel {
-  const u = labelUnit(Math.max(fromOlder, fromYounger), step.stepMetres, unit);
-  const a = roundAtStep(fromOlder, step.stepMetres, u);
-  const b = roundAtStep(fromYounger, step.stepMetres, u);
-  let unc: string | null = null;
-  if (step.uncertaintyMetres !== null) {
-    // the uncertainty keeps its own figures (rounded up) even when the medium's resolution is coarser
-    unc = `± ${roundAtStep(step.uncertaintyMetres, Math.min(step.stepMetres, uncertaintyFigures(step.uncertaintyMetres)[1]), u).text}`;
+/** Table numbers of the request's points: by age, oldest first, then by id. */
+function numbersOf(ages: Float64Array, ids: readonly string[]): Int32Array {
+  const numbers = new Int32Array(ids.length);
+  let sorted = true;
+  for (let i = 1; i < ages.length && sorted; i++) sorted = ages[i - 1] > ages[i] || (ages[i - 1] === ages[i] && compareIds(ids[i - 1], ids[i]) < 0);
+  if (sorted) {
+    for (let i = 0; i < numbers.length; i++) numbers[i] = i + 1;
+    return numbers;
   }
-  return { fromOlderEnd: a.text, fromYoungerEnd: b.text, uncertainty: unc, stepMetres: clean(step.stepMetres), basis: step.basis };
-}
-
-function idsText(ids: string[], max = 6): string {
-  const shown = ids.slice(0, max).join(", ");
-  return ids.length > max ? `${shown} and ${ids.length - max} more` : shown;
+  const order = Array.from(ids, (_, i) => i).sort((x, y) => ages[y] - ages[x] || compareIds(ids[x], ids[y]));
+  order.forEach((k, i) => (numbers[k] = i + 1));
+  return numbers;
 }
 
 /** Compute the scale for a validated request (see parseScaleRequest). */
@@ -202,10 +206,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
   if (medium.kind === "route") {
     route = options.route;
     if (!route) {
-      const parsed =
-        medium.gpx !== undefined
-          ? parseGpxRoute(medium.gpx, "medium.gpx")
-          : parseGeoJsonRoute(medium.geometry, "medium.geometry");
+      const parsed = medium.gpx !== undefined ? parseGpxRoute(medium.gpx, "medium.gpx") : parseGeoJsonRoute(medium.geometry, "medium.geometry");
       if (!parsed.ok) throw new RangeError(parsed.issues[0].message);
       route = prepareRoute(parsed.coords);
     }
@@ -227,6 +228,8 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
       : LEGIBILITY_SOURCE;
   const resolution = mediumResolution(legibility.minVisibleMetres);
   const unit = request.lengthUnit;
+  const system: UnitSystem = request.unitSystem ?? "metric";
+  const length = (metres: number) => formatLengthSig(metres, 3, unit, system);
 
   // insets
   const insets: InsetResult[] = request.insets.map((ins, i) => {
@@ -241,7 +244,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
       magnification: m,
       lengthMetres: clean((o - y) * mpy * m),
       metresPerYear: clean(mpy * m),
-      statement: scaleStatement(mpy * m, o - y),
+      statement: scaleStatement(mpy * m, o - y, system),
       mainFromOlderEndMetres: clean((olderYears - o) * mpy),
       mainToOlderEndMetres: clean((olderYears - y) * mpy),
       pointIds: [],
@@ -249,18 +252,27 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
   });
 
   // points
-  const points: PointResult[] = request.points.map((p) => {
-    const a = toYears(p.age);
-    const uy = p.uncertainty ? toYears(p.uncertainty) : null;
+  const n = request.points.length;
+  const given = options.pointYears && options.pointYears.ages.length === n ? options.pointYears : null;
+  const ages = given ? given.ages : new Float64Array(n);
+  const ids: string[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    if (!given) ages[i] = toYears(request.points[i].age);
+    ids[i] = request.points[i].id;
+  }
+  const numbers = numbersOf(ages, ids);
+  const points: PointResult[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    const p = request.points[i];
+    const a = ages[i];
+    const uy = given ? given.uncertainties[i] : p.uncertainty ? toYears(p.uncertainty) : null;
     const uncYears = uy !== null && uy > 0 ? uy : null;
     const fromOlder = (olderYears - a) * mpy;
     const fromYounger = (a - youngerYears) * mpy;
-    const step = displayStep(a, uncYears, mpy, resolution);
     const placements: InsetPlacement[] = [];
     for (const ins of insets) {
       if (a <= ins.olderYears && a >= ins.youngerYears) {
         const impy = mpy * ins.magnification;
-        const st = displayStep(a, uncYears, impy, resolution);
         const fo = (ins.olderYears - a) * impy;
         const fy = (a - ins.youngerYears) * impy;
         placements.push({
@@ -268,158 +280,102 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
           fromOlderEndMetres: clean(fo),
           fromYoungerEndMetres: clean(fy),
           uncertaintyMetres: uncYears !== null ? clean(uncYears * impy) : null,
-          display: label(fo, fy, st, unit),
+          display: distanceLabel(fo, fy, displayStep(a, uncYears, impy, resolution), unit, system),
         });
         ins.pointIds.push(p.id);
       }
     }
     const out: PointResult = {
       id: p.id,
+      number: numbers[i],
       ageYears: a,
       uncertaintyYears: uncYears,
       fromOlderEndMetres: clean(fromOlder),
       fromYoungerEndMetres: clean(fromYounger),
       uncertaintyMetres: uncYears !== null ? clean(uncYears * mpy) : null,
-      display: label(fromOlder, fromYounger, step, unit),
+      display: distanceLabel(fromOlder, fromYounger, displayStep(a, uncYears, mpy, resolution), unit, system),
       insets: placements,
     };
     if (p.label !== undefined) out.label = p.label;
-    return out;
-  });
+    points[i] = out;
+  }
 
   // route positions and walking figures
   const walkingSpeed = request.walkingSpeedMps ?? DEFAULT_WALKING_SPEED_MPS;
   const accessibleSpeed = request.accessibleSpeedMps ?? DEFAULT_ACCESSIBLE_SPEED_MPS;
   const stepLength = request.stepLengthM ?? DEFAULT_STEP_LENGTH_M;
   const shortStep = request.stepLengthM ?? STEP_LENGTH_RANGE_M[0];
-  // A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900".
-  const twoFigures = (n: number) => (n >= 100 ? Number(n.toPrecision(2)) : n);
-  const stepsText = (low: number, high: number) =>
-    low === high ? `about ${formatFixed(twoFigures(low), 0)} steps` : `about ${formatFixed(twoFigures(low), 0)}–${formatFixed(twoFigures(high), 0)} steps`;
   const routeStart = request.routeStart ?? "older";
-  const walkingFor = (d: number): Walking => {
-    const seconds = d / walkingSpeed;
-    const accessibleSeconds = d / accessibleSpeed;
-    const steps = Math.round(d / stepLength);
-    const stepsUpTo = Math.round(d / shortStep);
-    return {
-      distanceFromStartMetres: clean(d),
-      seconds: clean(seconds),
-      accessibleSeconds: clean(accessibleSeconds),
-      steps,
-      stepsUpTo,
-      text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${accessibleSpeed} m/s), ${stepsText(steps, stepsUpTo)}`,
-    };
-  };
   if (route) {
-    const ds = points.map((p) => (routeStart === "older" ? p.fromOlderEndMetres : p.fromYoungerEndMetres));
+    const speedText = system === "us" ? `${formatSig(accessibleSpeed / 0.3048, 2)} ft/s` : `${accessibleSpeed} m/s`;
+    const ds = new Float64Array(n);
+    for (let i = 0; i < n; i++) ds[i] = routeStart === "older" ? points[i].fromOlderEndMetres : points[i].fromYoungerEndMetres;
     const pos = positionsAt(route, ds);
-    points.forEach((p, k) => {
-      p.position = { lon: pos[k].lon, lat: pos[k].lat };
-      p.bearing = Math.round(pos[k].bearing * 1e6) / 1e6;
-      p.walking = walkingFor(ds[k]);
-    });
+    for (let i = 0; i < n; i++) {
+      const p = points[i];
+      const d = ds[i];
+      const seconds = d / walkingSpeed;
+      const accessibleSeconds = d / accessibleSpeed;
+      const steps = Math.round(d / stepLength);
+      const stepsUpTo = Math.round(d / shortStep);
+      // A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900".
+      const low = formatCountTwoFigures(steps);
+      const stepsText = steps === stepsUpTo ? `about ${low} steps` : `about ${low}–${formatCountTwoFigures(stepsUpTo)} steps`;
+      p.position = { lon: pos[i].lon, lat: pos[i].lat };
+      p.bearing = Math.round(pos[i].bearing * 1e6) / 1e6;
+      p.walking = {
+        distanceFromStartMetres: clean(d),
+        seconds: clean(seconds),
+        accessibleSeconds: clean(accessibleSeconds),
+        steps,
+        stepsUpTo,
+        text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${speedText}), ${stepsText}`,
+      };
+    }
   }
 
-  // durations
+  // durations: a located span (the last N years) shows only on an inset that contains it; a
+  // comparison on any inset's scale, which it names
   const durations: DurationResult[] = request.durations.map((d) => {
     const years = d.years ?? toYears(d.duration!);
     const metres = years * mpy;
+    const end = d.endsAgo ? toYears(d.endsAgo) : null;
+    const located = end !== null && end >= youngerYears && end + years <= olderYears;
     const out: DurationResult = {
       id: d.id,
       years,
+      located,
+      endsAgoYears: located ? end : null,
       metres: clean(metres),
-      text: `${formatYears(years)} = ${formatLengthSig(metres, 3, unit)}`,
+      text: `${formatYears(years)} = ${length(metres)}`,
       visible: metres >= legibility.minVisibleMetres,
       insets: insets.map((ins) => {
         const im = metres * ins.magnification;
-        return { insetId: ins.id, metres: clean(im), text: formatLengthSig(im, 3, unit), visible: im >= legibility.minVisibleMetres };
+        const covers = !located || (ins.youngerYears <= end! && ins.olderYears >= end! + years);
+        const text = !covers
+          ? `not in inset “${ins.label}”, which does not cover ${end === 0 ? `the last ${formatYears(years)}` : "it"}`
+          : located
+            ? `${length(im)} in inset “${ins.label}”`
+            : `${length(im)} at the scale of inset “${ins.label}”`;
+        return { insetId: ins.id, insetLabel: ins.label, metres: clean(im), covers, text, visible: covers && im >= legibility.minVisibleMetres };
       }),
     };
     if (d.label !== undefined) out.label = d.label;
     return out;
   });
 
-  // legibility warnings and suggested insets
-  const warnings: ScaleWarning[] = [];
-  const suggestions: SuggestedInset[] = [];
-  const addSuggestion = (s: SuggestedInset): SuggestedInset => {
-    const same = suggestions.find(
-      (x) => x.olderYears === s.olderYears && x.youngerYears === s.youngerYears && x.magnification === s.magnification,
-    );
-    if (same) {
-      for (const id of s.pointIds) if (!same.pointIds.includes(id)) same.pointIds.push(id);
-      for (const id of s.durationIds) if (!same.durationIds.includes(id)) same.durationIds.push(id);
-      return same;
-    }
-    suggestions.push(s);
-    return s;
-  };
-  const span = { olderYears, youngerYears };
-  const spacingText = `${formatLengthSig(legibility.minSpacingMetres)} minimum spacing for a ${mediumType}`;
-  const placed = points.map((p) => ({ id: p.id, ageYears: p.ageYears, metres: (olderYears - p.ageYears) * mpy }));
-  for (const cl of findCrowded(placed, legibility.minSpacingMetres)) {
-    if (cl.sameAge.length > 0) {
-      warnings.push({
-        code: "markers-same-age",
-        message: `Markers ${idsText(cl.sameAge)} have the same age and fall on the same spot; combine them into one marker or stack their labels.`,
-        pointIds: cl.sameAge,
-      });
-      if (!Number.isFinite(cl.minAgeGapYears)) continue;
-    }
-    // does an inset already spread them?
-    const covering = insets.find(
-      (ins) => cl.ages.every((a) => a <= ins.olderYears && a >= ins.youngerYears),
-    );
-    if (covering) {
-      const gap = cl.minAgeGapYears * mpy * covering.magnification;
-      if (gap >= legibility.minSpacingMetres) continue;
-      const sug = suggestInsetForCluster(cl, span, mpy, legibility.minSpacingMetres);
-      warnings.push({
-        code: "markers-too-close-in-inset",
-        message: `Even on inset "${covering.label}", markers ${idsText(cl.ids)} are as little as ${formatLengthSig(gap)} apart (less than the ${spacingText}).${sug ? ` Suggested inset: ${sug.label}.` : ""}`,
-        pointIds: cl.ids,
-        insetId: covering.id,
-        ...(sug ? { suggestedInset: addSuggestion(sug) } : {}),
-      });
-      continue;
-    }
-    const sug = suggestInsetForCluster(cl, span, mpy, legibility.minSpacingMetres);
-    warnings.push({
-      code: "markers-too-close",
-      message: `Markers ${idsText(cl.ids)} are as little as ${formatLengthSig(cl.minAgeGapYears * mpy)} apart, less than the ${spacingText}.${sug ? ` Suggested inset: ${sug.label} (${formatLengthSig(sug.lengthMetres)} long).` : ""}`,
-      pointIds: cl.ids,
-      ...(sug ? { suggestedInset: addSuggestion(sug) } : {}),
-    });
-  }
-  for (const d of durations) {
-    if (d.visible) continue;
-    if (d.insets.some((x) => x.visible)) continue;
-    // an inset already suggested for crowded markers may be enough
-    const fits = suggestions.find(
-      (x) => x.magnification * d.metres >= legibility.minVisibleMetres && x.olderYears - x.youngerYears >= d.years,
-    );
-    const sug = fits ?? suggestInsetForDuration({ id: d.id, years: d.years }, span, mpy, legibility.minVisibleMetres);
-    if (fits && !fits.durationIds.includes(d.id)) fits.durationIds.push(d.id);
-    warnings.push({
-      code: "duration-too-small",
-      message: `${d.label ?? d.id}: ${formatYears(d.years)} is ${formatLengthSig(d.metres)} on this scale, smaller than the ${formatLengthSig(legibility.minVisibleMetres)} a visitor can see on a ${mediumType}.${sug ? ` Suggested inset: ${sug.label}.` : ""}`,
-      pointIds: [],
-      durationIds: [d.id],
-      ...(sug ? { suggestedInset: addSuggestion(sug) } : {}),
-    });
-  }
-  for (const ins of insets) {
-    if (ins.lengthMetres > totalMetres) {
-      warnings.push({
-        code: "inset-longer-than-medium",
-        message: `Inset "${ins.label}" is ${formatLengthSig(ins.lengthMetres)} long, longer than the whole exhibit (${formatLengthSig(totalMetres)}).`,
-        pointIds: ins.pointIds,
-        insetId: ins.id,
-      });
-    }
-  }
-  for (const s of suggestions) s.lengthMetres = clean(s.lengthMetres);
+  const { warnings, suggestedInsets } = computeWarnings({
+    points,
+    durations,
+    insets,
+    span: { olderYears, youngerYears },
+    metresPerYear: mpy,
+    totalMetres,
+    legibility,
+    mediumType,
+    length,
+  });
+  for (const s of suggestedInsets) s.lengthMetres = clean(s.lengthMetres);
 
   const result: ScaleResult = {
     scale: {
@@ -431,15 +387,16 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
       yearsPerMetre: clean(1 / mpy),
       metresPerMillionYears: clean(mpy * 1e6),
       yearsPerMillimetre: clean(0.001 / mpy),
-      statement: scaleStatement(mpy, spanYears),
+      statement: scaleStatement(mpy, spanYears, system),
       mediumKind: medium.kind,
       mediumType,
+      unitSystem: system,
       legibility: { ...legibility, source: legibilitySource },
     },
     points,
     durations,
     insets,
-    suggestedInsets: suggestions,
+    suggestedInsets,
     warnings,
   };
   if (route) {

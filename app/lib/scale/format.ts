@@ -1,16 +1,66 @@
 /**
- * Human-readable numbers, lengths, ages and scale statements (English, comma thousands separator).
+ * The one module that rounds and formats: the label rounding rule, the digits of a figure, and the
+ * words of lengths, ages, durations and scale statements (English, comma thousands separator), in
+ * metric or US customary units.
+ *
+ * Rounding rule of a distance label (see README.md):
+ *  1. With an uncertainty: the length uncertainty u = (age uncertainty) × (metres per year) is
+ *     rounded UP (a ± is never shown smaller than it is) to one significant figure, or to two
+ *     when the first digit is 1 or 2 (one figure would misstate it by up to 50 %: ± 0.011 km is
+ *     not "± 0.01 km"); the distance is shown to the place of that last figure (u = 50 m →
+ *     nearest 10 m; u = 11 m → nearest 1 m; u = 0.3 mm → nearest 0.1 mm), the uncertainty beside it.
+ *  2. Without an uncertainty: the age is taken as good to three significant figures (66 Ma → to
+ *     0.1 Ma); that step is converted to a length and the distance is shown to its decade. An age
+ *     of exactly zero (the present) has no such step.
+ *  3. Never finer than the medium's resolution: the decade at or below its smallest visible length
+ *     (trail 0.05 m → 0.01 m; wall 3 mm → 1 mm).
+ * The step actually used is the coarsest of these.
+ *
+ * Speed: the preview formats every marker on every keystroke, so digits are made from integers
+ * (no toFixed/toPrecision strings, no regular expressions) whenever the rounding is unambiguous;
+ * the few exact ties fall back to the built-ins, so the text is always the same as theirs.
  */
-import { METRES_PER_LENGTH_UNIT, type LengthUnit } from "../units";
+import { METRES_PER_LENGTH_UNIT as UNIT_METRES, pow10, roundScaled, type LengthUnit, type UnitSystem } from "../units";
+
+// ---------- digits ----------
+
+function group(int: string): string {
+  const n = int.length;
+  if (n <= 3) return int;
+  const head = n % 3 || 3;
+  let out = int.slice(0, head);
+  for (let k = head; k < n; k += 3) out += "," + int.slice(k, k + 3);
+  return out;
+}
+
+/** |x| × 10^d rounded half up (as toFixed does on the exact value), or −1 when that is an exact tie or too large. */
+function scaledInteger(a: number, d: number): number {
+  return d > 20 ? -1 : roundScaled(a, d);
+}
+
+/** The text of the integer n / 10^d with d decimals and thousands separators. */
+function digits(n: number, d: number, negative: boolean): string {
+  const sign = negative && n !== 0 ? "−" : "";
+  if (d === 0) return sign + group(String(n));
+  const p = pow10(d);
+  const i = Math.floor(n / p);
+  const frac = String(n - i * p);
+  return `${sign}${group(String(i))}.${"0".repeat(d - frac.length)}${frac}`;
+}
+
+function formatFixedSlow(x: number, d: number): string {
+  const s = Math.abs(x).toFixed(d);
+  const dot = s.indexOf(".");
+  const int = dot < 0 ? s : s.slice(0, dot);
+  const sign = x < 0 && Number(s) !== 0 ? "−" : "";
+  return sign + (/^\d+$/.test(int) ? group(int) : int) + (dot < 0 ? "" : s.slice(dot));
+}
 
 /** Format with a fixed number of decimals and thousands separators: 4501 → "4,501", (0.05, 2) → "0.05". */
 export function formatFixed(x: number, decimals: number): string {
   const d = Math.max(0, Math.min(20, Math.round(decimals)));
-  const s = Math.abs(x).toFixed(d);
-  const [int, frac] = s.split(".");
-  const withSep = int.replace(/\B(?=(\d{3})+(?!\d))/g, ",");
-  const sign = x < 0 && Number(s) !== 0 ? "−" : "";
-  return sign + withSep + (frac ? `.${frac}` : "");
+  const n = scaledInteger(Math.abs(x), d);
+  return n >= 0 ? digits(n, d, x < 0) : formatFixedSlow(x, d);
 }
 
 /** Round to n significant figures. */
@@ -26,11 +76,131 @@ export function formatSig(x: number, n = 3): string {
   if (x === 0) return "0";
   const r = roundSig(x, n);
   const e = Math.floor(Math.log10(Math.abs(r)));
-  const decimals = Math.max(0, n - 1 - e);
-  let s = formatFixed(r, decimals);
-  if (s.includes(".")) s = s.replace(/\.?0+$/, "");
+  let s = formatFixed(r, Math.max(0, n - 1 - e));
+  if (s.includes(".")) {
+    let end = s.length;
+    while (s.charCodeAt(end - 1) === 48) end--; // "0"
+    if (s.charCodeAt(end - 1) === 46) end--; // "."
+    s = s.slice(0, end);
+  }
   return s;
 }
+
+const SUPERSCRIPT = "⁰¹²³⁴⁵⁶⁷⁸⁹";
+
+/** Very small figures in scientific words: 3.1e-5 → "3.1 × 10⁻⁵". */
+export function formatScientific(x: number, n = 2): string {
+  const e = Math.floor(Math.log10(Math.abs(x)));
+  const m = roundSig(x / 10 ** e, n);
+  const exp = String(Math.abs(e)).split("").map((c) => SUPERSCRIPT[Number(c)]).join("");
+  return `${formatSig(m, n)} × 10${e < 0 ? "⁻" : ""}${exp}`;
+}
+
+// ---------- the rounding rule ----------
+
+export type RoundingBasis = "uncertainty" | "age-significant-figures" | "medium-resolution";
+
+export interface DisplayStep {
+  /** Rounding step in metres (a power of ten). */
+  stepMetres: number;
+  /** Which part of the rule set the step. */
+  basis: RoundingBasis;
+  /** Length uncertainty rounded up to its shown figures (see uncertaintyFigures), metres; null without one. */
+  uncertaintyMetres: number | null;
+}
+
+export { pow10 };
+
+/** Exponent of the largest power of ten ≤ x (x > 0), a value within 1e-12 below a power counting as that power. */
+function decadeExponent(x: number): number {
+  let k = Math.floor(Math.log10(x));
+  // guard against log10 rounding (e.g. log10(1000) = 2.9999999999999996)
+  if (pow10(k) * 10 <= x * (1 + 1e-12)) k++;
+  if (pow10(k) > x * (1 + 1e-12)) k--;
+  return k;
+}
+
+/** Largest power of ten ≤ x (x > 0). */
+export function decadeFloor(x: number): number {
+  return pow10(decadeExponent(x));
+}
+
+/** Round x > 0 to one significant figure, returning [rounded, its decade]. 96 → [100, 100]. */
+export function oneSignificantFigure(x: number): [number, number] {
+  let k = decadeExponent(x);
+  let r = Math.round(x / pow10(k));
+  if (r >= 10) {
+    k++;
+    r = 1;
+  }
+  return [k >= 0 ? r * pow10(k) : r / pow10(-k), pow10(k)];
+}
+
+/** Exponent of the place of a ±'s last shown figure: its decade, one lower when it leads with 1 or 2. */
+function uncertaintyPlace(x: number): number {
+  const k = decadeExponent(x);
+  return Math.floor(x / pow10(k) + 1e-9) <= 2 ? k - 1 : k;
+}
+
+/**
+ * A ± as shown: rounded UP, never down, to one significant figure — two when the leading digit is
+ * 1 or 2 — returning [shown value, place of its last figure]. 0.011 → [0.011, 0.001];
+ * 0.0113 → [0.012, 0.001]; 0.054 → [0.06, 0.01]; 96 → [100, 10]; 50 → [50, 10].
+ */
+export function uncertaintyFigures(x: number): [number, number] {
+  const k = uncertaintyPlace(x);
+  const q = pow10(k);
+  // Float noise (0.011 / 0.001 = 10.999999…) must not push a value already on the grid up a step.
+  const n = Math.ceil(x / q - 1e-9);
+  return [k >= 0 ? n * q : n / pow10(-k), q];
+}
+
+/** Decade at or below the smallest visible length: the medium's resolution. */
+export function mediumResolution(minVisibleMetres: number): number {
+  return decadeFloor(minVisibleMetres);
+}
+
+/**
+ * The display step for one point.
+ * @param ageYears age of the point (years before present)
+ * @param uncertaintyYears ± age uncertainty in years (omit or null if none)
+ * @param metresPerYear the scale
+ * @param resolutionMetres the medium's resolution (see mediumResolution)
+ */
+export function displayStep(ageYears: number, uncertaintyYears: number | null | undefined, metresPerYear: number, resolutionMetres: number): DisplayStep {
+  let step = 0;
+  let basis: RoundingBasis = "medium-resolution";
+  let uncertaintyMetres: number | null = null;
+  if (uncertaintyYears != null && uncertaintyYears > 0) {
+    const [u1, q] = uncertaintyFigures(uncertaintyYears * metresPerYear);
+    uncertaintyMetres = u1;
+    step = q;
+    basis = "uncertainty";
+  } else if (ageYears !== 0) {
+    const ageStepYears = decadeFloor(Math.abs(ageYears)) / 100; // a unit in the 3rd significant figure
+    step = decadeFloor(ageStepYears * metresPerYear);
+    basis = "age-significant-figures";
+  }
+  if (!(step >= resolutionMetres)) {
+    step = resolutionMetres;
+    basis = "medium-resolution";
+  }
+  return { stepMetres: step, basis, uncertaintyMetres };
+}
+
+export interface DisplayLength {
+  /** The rounded value in metres. */
+  metres: number;
+  /** The rounded value in the display unit. */
+  value: number;
+  unit: LengthUnit;
+  decimals: number;
+  /** e.g. "4,501.00 km" */
+  text: string;
+}
+
+const METRIC: readonly LengthUnit[] = ["mm", "cm", "m", "km"];
+const US: readonly LengthUnit[] = ["in", "ft", "mi"];
 
 /** A metric unit that reads well for a length (km from 10 km, m from 1 m, cm from 1 cm, else mm). */
 export function autoMetricUnit(metres: number): LengthUnit {
@@ -41,22 +211,121 @@ export function autoMetricUnit(metres: number): LengthUnit {
   return "mm";
 }
 
-/** A length with up to n significant figures in a readable metric unit: 0.067 → "6.7 cm". */
-export function formatLengthSig(metres: number, n = 3, unit?: LengthUnit): string {
-  let u = unit ?? autoMetricUnit(metres);
-  if (!unit && u === "km" && Math.abs(metres) < 1000) u = "m";
-  return `${formatSig(metres / METRES_PER_LENGTH_UNIT[u], n)} ${u}`;
+/** A US customary unit that reads well for a length (mi from 10 mi, ft from 1 ft, else in). */
+export function autoUsUnit(metres: number): LengthUnit {
+  const m = Math.abs(metres);
+  if (m >= 10 * UNIT_METRES.mi) return "mi";
+  if (m >= UNIT_METRES.ft) return "ft";
+  return "in";
 }
 
-/** Readable length for statements: picks the unit so that the number is between 1 and 1,000. */
-export function formatLengthReadable(metres: number, n = 3): string {
+/** Unit for a label: the requested one, or one of the unit system chosen from the size of the distance. */
+export function labelUnit(metres: number, stepMetres: number, unit?: LengthUnit, system: UnitSystem = "metric"): LengthUnit {
+  if (unit) return unit;
+  const order = system === "us" ? US : METRIC;
+  const size = Math.max(Math.abs(metres), stepMetres);
+  let k = order.indexOf(system === "us" ? autoUsUnit(size) : autoMetricUnit(size));
+  // no more than three decimals: step down a unit while the step needs more (4,567.000000 km → 4,567,000.000 m)
+  while (k > 0 && stepMetres / UNIT_METRES[order[k]] < 1e-3 * (1 - 1e-9)) k--;
+  // a step of a centimetre or more is not shown in millimetres
+  if (order[k] === "mm" && stepMetres >= 0.01) k = 1;
+  return order[k];
+}
+
+/** Decimals that show a step in a unit: 0 when the step is a whole unit or more. */
+function decimalsFor(stepInUnit: number): number {
+  return Math.max(0, Math.floor(-Math.log10(stepInUnit) + 1e-9));
+}
+
+/** With no decimals: the multiple a value is rounded to — the step's decade (metric), or the next decade up (inches, feet, yards, miles), never finer. */
+function wholeStep(stepInUnit: number): number {
+  const q = decadeFloor(Math.max(1, stepInUnit));
+  return q < stepInUnit * (1 - 1e-9) ? q * 10 : q;
+}
+
+/**
+ * A distance rounded on a grid of the unit (y = metres in the unit; `decimals`, or the multiple `q`
+ * when there are none): [value, text]. `up` rounds up instead of to the nearest (a ± converted to
+ * feet is never shown smaller).
+ */
+function onGrid(y: number, decimals: number, q: number, up: boolean): [number, string] {
+  if (decimals > 0) {
+    const p = pow10(decimals);
+    const n = up ? Math.ceil(Math.abs(y) * p - 1e-9) : scaledInteger(Math.abs(y), decimals);
+    if (n >= 0) {
+      const value = n === 0 ? 0 : (y < 0 ? -n : n) / p;
+      return [value, digits(n, decimals, y < 0)];
+    }
+    let value = Number(y.toFixed(decimals));
+    if (value === 0) value = 0;
+    return [value, formatFixed(value, decimals)];
+  }
+  let value = (up ? Math.ceil(y / q - 1e-9) : Math.round(y / q)) * q;
+  if (value === 0) value = 0;
+  return [value, formatFixed(value, 0)];
+}
+
+/** Round a distance at a step and express it in a unit without implying more precision than the step. */
+export function roundAtStep(metres: number, stepMetres: number, unit: LengthUnit): DisplayLength {
+  const uf = UNIT_METRES[unit];
+  const decimals = decimalsFor(stepMetres / uf);
+  const [value, text] = onGrid(metres / uf, decimals, decimals > 0 ? 1 : wholeStep(stepMetres / uf), false);
+  return { metres: value * uf, value, unit, decimals, text: `${text} ${unit}` };
+}
+
+export interface DistanceLabel {
+  fromOlderEnd: string;
+  fromYoungerEnd: string;
+  /** "± 0.05 km", or null without an uncertainty. */
+  uncertainty: string | null;
+  stepMetres: number;
+  basis: RoundingBasis;
+}
+
+const IS_METRIC: Readonly<Record<LengthUnit, boolean>> = { mm: true, cm: true, m: true, km: true, in: false, ft: false, yd: false, mi: false };
+
+/** The labels of a distance from both ends, with its ± — all in one unit, on one grid. */
+export function distanceLabel(fromOlder: number, fromYounger: number, step: DisplayStep, unit?: LengthUnit, system: UnitSystem = "metric"): DistanceLabel {
+  const u = labelUnit(fromOlder > fromYounger ? fromOlder : fromYounger, step.stepMetres, unit, system);
+  const uf = UNIT_METRES[u];
+  const stepInUnit = step.stepMetres / uf;
+  const decimals = decimalsFor(stepInUnit);
+  const q = decimals > 0 ? 1 : wholeStep(stepInUnit);
+  let unc: string | null = null;
+  if (step.uncertaintyMetres !== null) {
+    // the ± keeps its own figures (rounded up) even when the medium's resolution is coarser;
+    // converted to inches, feet or miles it is rounded up again, never down
+    const place = pow10(uncertaintyPlace(step.uncertaintyMetres));
+    const uStep = (place < step.stepMetres ? place : step.stepMetres) / uf;
+    const uDecimals = decimalsFor(uStep);
+    unc = `± ${onGrid(step.uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u])[1]} ${u}`;
+  }
+  return {
+    fromOlderEnd: `${onGrid(fromOlder / uf, decimals, q, false)[1]} ${u}`,
+    fromYoungerEnd: `${onGrid(fromYounger / uf, decimals, q, false)[1]} ${u}`,
+    uncertainty: unc,
+    // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
+    stepMetres: step.stepMetres,
+    basis: step.basis,
+  };
+}
+
+// ---------- words ----------
+
+/** A length with up to n significant figures in a readable unit of the system: 0.067 → "6.7 cm"; tiny ones in scientific words. */
+export function formatLengthSig(metres: number, n = 3, unit?: LengthUnit, system: UnitSystem = "metric"): string {
+  const u = unit ?? (system === "us" ? autoUsUnit(metres) : autoMetricUnit(metres));
+  const v = metres / UNIT_METRES[u];
+  return `${v !== 0 && Math.abs(v) < 1e-4 ? formatScientific(v, Math.min(n, 2)) : formatSig(v, n)} ${u}`;
+}
+
+/** Readable length for statements: the unit that puts the number between 1 and 1,000 (1 and 5,280 feet in US units). */
+export function formatLengthReadable(metres: number, n = 3, system: UnitSystem = "metric"): string {
   const m = Math.abs(metres);
   let u: LengthUnit;
-  if (m >= 1000) u = "km";
-  else if (m >= 1) u = "m";
-  else if (m >= 0.01) u = "cm";
-  else u = "mm";
-  return `${formatSig(metres / METRES_PER_LENGTH_UNIT[u], n)} ${u}`;
+  if (system === "us") u = m >= UNIT_METRES.mi ? "mi" : m >= UNIT_METRES.ft ? "ft" : "in";
+  else u = m >= 1000 ? "km" : m >= 1 ? "m" : m >= 0.01 ? "cm" : "mm";
+  return formatLengthSig(metres, n, u);
 }
 
 /** Years as words: 1000 → "1,000 years", 2.5e6 → "2.5 million years", 1 → "1 year". */
@@ -86,7 +355,14 @@ export function formatDuration(seconds: number): string {
   if (minutes < 60) return `${minutes} min`;
   const h = Math.floor(minutes / 60);
   const m = minutes % 60;
-  return `${h} h ${String(m).padStart(2, "0")} min`;
+  return `${h} h ${m < 10 ? "0" : ""}${m} min`;
+}
+
+/** A count to two significant figures from 100 up (a range is not more precise): 6,009 → "6,000". */
+export function formatCountTwoFigures(n: number): string {
+  if (n < 100 || !Number.isSafeInteger(n)) return formatFixed(n, 0);
+  const p = pow10(String(n).length - 2);
+  return formatFixed(Math.round(n / p) * p, 0);
 }
 
 export interface ScaleStatement {
@@ -107,25 +383,23 @@ const TIME_STEPS: { years: number; words: string }[] = [
 /**
  * The scale stated both ways. The time unit of "length per time" follows the span (million years
  * for spans of 10 million years or more, thousand years from 10,000 years, a century from 1,000
- * years, else a year); "time per length" uses the smallest of mm, cm, m, km that stands for at
- * least one year.
+ * years, else a year); "time per length" uses the smallest of mm, cm, m, km (in US units: in, ft,
+ * mi) that stands for at least one year.
  */
-export function scaleStatement(metresPerYear: number, spanYears: number): ScaleStatement {
+export function scaleStatement(metresPerYear: number, spanYears: number, system: UnitSystem = "metric"): ScaleStatement {
   let step = TIME_STEPS[TIME_STEPS.length - 1];
   if (spanYears >= 1e10) step = TIME_STEPS[0];
   else if (spanYears >= 1e7) step = TIME_STEPS[1];
   else if (spanYears >= 1e4) step = TIME_STEPS[2];
   else if (spanYears >= 1e3) step = TIME_STEPS[3];
-  const lengthPerTime = `${formatLengthReadable(metresPerYear * step.years)} per ${step.words}`;
-
-  const units: LengthUnit[] = ["mm", "cm", "m", "km"];
-  let chosen: LengthUnit = "km";
+  const lengthPerTime = `${formatLengthReadable(metresPerYear * step.years, 3, system)} per ${step.words}`;
+  const units = system === "us" ? US : METRIC;
+  let chosen = units[units.length - 1];
   for (const u of units) {
-    if (METRES_PER_LENGTH_UNIT[u] / metresPerYear >= 1) {
+    if (UNIT_METRES[u] / metresPerYear >= 1) {
       chosen = u;
       break;
     }
   }
-  const timePerLength = `1 ${chosen} = ${formatYears(METRES_PER_LENGTH_UNIT[chosen] / metresPerYear)}`;
-  return { lengthPerTime, timePerLength };
+  return { lengthPerTime, timePerLength: `1 ${chosen} = ${formatYears(UNIT_METRES[chosen] / metresPerYear)}` };
 }

@@ -5,8 +5,10 @@
 export * from "./compute";
 export * from "./schema";
 export * from "./format";
-export * from "./rounding";
 export * from "./legibility";
+export * from "./numbering";
+export * from "./warnings";
+export * from "./ruler";
 export * from "../units";
 export { prepareRoute, positionsAt, positionAt, segmentLength, CHORD_LIMIT_M, type PreparedRoute, type RoutePosition } from "../geo/route";
 export { geodesicInverse, geodesicDirect, type InverseResult, type DirectResult } from "../geo/geodesic";

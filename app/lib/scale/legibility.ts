@@ -34,6 +34,15 @@ export const LEGIBILITY_DEFAULTS: Readonly<Record<MediumType, Legibility>> = {
   other: { minVisibleMetres: 0.005, minSpacingMetres: 0.05 },
 };
 
+/** How warnings speak of each medium: where the spacing is needed, and where a visitor looks. */
+export const MEDIUM_WORDS: Readonly<Record<MediumType, { spacing: string; on: string }>> = {
+  trail: { spacing: "between signs on a trail", on: "on a trail" },
+  wall: { spacing: "between labels on a wall", on: "on a wall" },
+  rope: { spacing: "between tags on a rope", on: "on a rope" },
+  banner: { spacing: "between labels on a banner", on: "on a banner" },
+  other: { spacing: "between neighbouring markers on this exhibit", on: "on this exhibit" },
+};
+
 export const LEGIBILITY_SOURCE = "common practice default (not a standard); settable per exhibit";
 
 /** Smallest power of ten ≥ x, at least 10: the readable magnification (10×, 100×, 1,000× …). */
@@ -193,23 +202,32 @@ export function roundSubSpan(
   return { olderYears: older, youngerYears: younger };
 }
 
-/** An inset at the younger end that makes a duration at least minVisible long. */
+/**
+ * An inset that makes a duration at least minVisible long. A located span (`endsAgoYears` set: the
+ * span from endsAgoYears + years to endsAgoYears) gets a sub-span that contains it; a comparison
+ * (null) one at the exhibit's younger end. At the younger end the sub-span is twice the duration,
+ * rounded up to 1, 2 or 5 × 10^k ("last 200 years" for 67 years).
+ */
 export function suggestInsetForDuration(
-  duration: { id: string; years: number },
+  duration: { id: string; years: number; endsAgoYears?: number | null },
   span: { olderYears: number; youngerYears: number },
   metresPerYear: number,
   minVisibleMetres: number,
 ): SuggestedInset | null {
   if (!(duration.years > 0)) return null;
   const magnification = readableMagnification(minVisibleMetres / (duration.years * metresPerYear));
-  const younger = span.youngerYears;
-  const older = Math.min(span.olderYears, younger + niceCeil(2 * duration.years));
-  const lengthMetres = (older - younger) * metresPerYear * magnification;
+  const end = duration.endsAgoYears ?? span.youngerYears;
+  let sub: { olderYears: number; youngerYears: number };
+  if (end === span.youngerYears) {
+    sub = { olderYears: Math.min(span.olderYears, end + niceCeil(2 * duration.years)), youngerYears: end };
+  } else {
+    sub = roundSubSpan(end, end + duration.years, span);
+  }
+  const lengthMetres = (sub.olderYears - sub.youngerYears) * metresPerYear * magnification;
   return {
-    olderYears: older,
-    youngerYears: younger,
+    ...sub,
     magnification,
-    label: insetLabel(older, younger, magnification),
+    label: insetLabel(sub.olderYears, sub.youngerYears, magnification),
     lengthMetres,
     reason: `makes ${formatYears(duration.years)} at least ${formatLengthSig(minVisibleMetres)} long`,
     pointIds: [],

@@ -8,6 +8,7 @@ import { prepareRoute, type PreparedRoute } from "../geo/route";
 import {
   AGE_UNITS,
   LENGTH_UNITS,
+  UNIT_SYSTEMS,
   toMetres,
   toYears,
   unknownAgeUnitMessage,
@@ -72,6 +73,8 @@ export const DurationSchema = objectOf("A duration", {
     value: finiteNumber("A duration value").positive({ error: "A duration must be longer than zero." }),
     unit: ageUnit,
   }).optional(),
+  /** A located span ends this long ago ({ value: 0 }: "the last N years"); without it the duration is a pure comparison. */
+  endsAgo: AgeSchema.optional(),
 }).superRefine((d, ctx) => {
   if ((d.years === undefined) === (d.duration === undefined)) {
     ctx.addIssue({ code: "custom", message: 'Give a duration either as "years": 67 or as "duration": {"value": 67, "unit": "a"}.', path: ["years"] });
@@ -138,6 +141,7 @@ export const ScaleRequestSchema = z
       stepLengthM: finiteNumber("stepLengthM").positive({ error: "stepLengthM must be greater than zero." }).max(5, { error: "stepLengthM must be at most 5 m." }).optional(),
       routeStart: z.enum(["older", "younger"], { error: () => 'routeStart must be "older" or "younger".' }).optional(),
       lengthUnit: lengthUnit.optional(),
+      unitSystem: z.enum(UNIT_SYSTEMS, { error: () => 'unitSystem must be "metric" or "us" (US customary: in, ft, mi).' }).optional(),
     },
     { error: (iss) => (iss.input === undefined ? "A request body is required." : "The request body must be a JSON object.") },
   )

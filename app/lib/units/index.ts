@@ -15,6 +15,10 @@ export type AgeUnit = (typeof AGE_UNITS)[number];
 export const LENGTH_UNITS = ["mm", "cm", "m", "km", "in", "ft", "yd", "mi"] as const;
 export type LengthUnit = (typeof LENGTH_UNITS)[number];
 
+/** How an exhibit reads lengths: metric (mm, cm, m, km) or US customary (in, ft, mi). */
+export const UNIT_SYSTEMS = ["metric", "us"] as const;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+
 /** Years per unit of age. */
 export const YEARS_PER_AGE_UNIT: Readonly<Record<AgeUnit, number>> = {
   a: 1,
@@ -70,8 +74,8 @@ export function unknownLengthUnitMessage(u: unknown): string {
 /** Scale an exact decimal value by a power of ten without binary noise (e.g. 0.05 Ma → 50,000 a). */
 function scaleDecimal(value: number, factor: number, divide = false): number {
   const raw = divide ? value / factor : value * factor;
-  const clean = Number(raw.toPrecision(15));
-  return Math.abs(clean - raw) <= Math.abs(raw) * 1e-14 ? clean : raw;
+  const c = clean(raw);
+  return Math.abs(c - raw) <= Math.abs(raw) * 1e-14 ? c : raw;
 }
 
 /** Years before present for an age quantity. Throws RangeError on an unknown unit. */
@@ -96,8 +100,55 @@ export function fromMetres(metres: number, unit: LengthUnit): number {
   return scaleDecimal(metres, METRES_PER_LENGTH_UNIT[unit], true);
 }
 
-/** Round away binary noise: keep 15 significant digits (e.g. 0.0010000000000000002 → 0.001). */
+/** 10^k for k = −30…30, each the double nearest the decimal power (1/10⁴ is exact; 10 ** −4 may not be). */
+const POW10 = Array.from({ length: 61 }, (_, i) => (i >= 30 ? 10 ** (i - 30) : 1 / 10 ** (30 - i)));
+
+/** 10^k as the double nearest the decimal power. */
+export function pow10(k: number): number {
+  return k >= -30 && k <= 30 ? POW10[k + 30] : k >= 0 ? 10 ** k : 1 / 10 ** -k;
+}
+
+const SPLIT = 134_217_729; // 2^27 + 1 (Veltkamp splitting)
+
+/**
+ * a · 10^k (a ≥ 0, 0 ≤ k ≤ 22) rounded to an integer, half up — decided on the exact product, as
+ * toFixed and toPrecision decide — or −1 when it is an exact tie or too large to be sure. The
+ * product's rounding error is recovered exactly (Dekker's two-product), so no string is built.
+ */
+export function roundScaled(a: number, k: number): number {
+  const b = POW10[k + 30];
+  const p = a * b;
+  if (!(p < 4e15) || k < 0 || k > 22) return -1;
+  let t = SPLIT * a;
+  const ah = t - (t - a);
+  const al = a - ah;
+  t = SPLIT * b;
+  const bh = t - (t - b);
+  const bl = b - bh;
+  const err = ah * bh - p + ah * bl + al * bh + al * bl; // exact product = p + err
+  const fl = Math.floor(p);
+  const d = p - fl - 0.5; // exact
+  if (d > -err) return fl + 1;
+  if (d < -err) return fl;
+  return -1;
+}
+
+/**
+ * Round away binary noise: keep 15 significant digits (e.g. 0.0010000000000000002 → 0.001).
+ * Same result as Number(x.toPrecision(15)), without building the string: x·10^(14−e) is rounded
+ * to an integer on the exact product (roundScaled) and divided back — an exact integer over an
+ * exact power of ten, so the double nearest the 15-digit decimal.
+ */
 export function clean(x: number): number {
   if (!Number.isFinite(x) || x === 0) return x;
+  const a = x < 0 ? -x : x;
+  if (a >= 1e-7 && a < 1e15) {
+    const k = 14 - Math.floor(Math.log10(a)); // 0 ≤ k ≤ 21 here, so 10^k is exact
+    const n = roundScaled(a, k);
+    if (n >= 1e14 && n < 1e15) {
+      const r = n / POW10[k + 30];
+      return x < 0 ? -r : r;
+    }
+  }
   return Number(x.toPrecision(15));
 }

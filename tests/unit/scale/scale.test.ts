@@ -1,8 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { computeScale, parseScaleRequest, scaleFromJson, type ScaleResult } from "../../../app/lib/scale";
-import { displayStep, oneSignificantFigure, roundAtStep, decadeFloor, uncertaintyFigures } from "../../../app/lib/scale/rounding";
 import { niceCeil, readableMagnification, roundSubSpan } from "../../../app/lib/scale/legibility";
-import { formatYears, scaleStatement } from "../../../app/lib/scale/format";
+import { decadeFloor, displayStep, formatYears, oneSignificantFigure, roundAtStep, scaleStatement, uncertaintyFigures } from "../../../app/lib/scale/format";
 
 function run(body: unknown): ScaleResult {
   const r = scaleFromJson(body);
