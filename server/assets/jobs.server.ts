@@ -166,8 +166,16 @@ export async function sweepAssets(now = new Date()) {
 type Job<T> = PgBoss.JobWithMetadata<T>;
 const final = (job: Job<unknown>) => job.retryCount >= job.retryLimit;
 
+/** Queues every asset still "processing" (the demo seeder's, or one whose job was lost); processing twice is harmless. */
+export async function requeueProcessing() {
+  const stuck = await Asset.findAll({ where: { status: "processing" }, attributes: ["id"] });
+  for (const a of stuck) await queueProcessing(a.id);
+  return stuck.length;
+}
+
 export async function startAssetWorkers(boss: PgBoss) {
   await ensureAssetQueues(boss);
+  await requeueProcessing();
   await boss.work<{ assetId: number }>(ASSET_PROCESS_QUEUE, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
     await processAsset(job.data.assetId, { finalAttempt: final(job) });
   });

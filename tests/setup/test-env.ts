@@ -19,6 +19,9 @@ export function applyTestEnv(database = TEST_DATABASE) {
   const config = serviceConfig();
   for (const [key, value] of Object.entries(config.env)) process.env[key] = value;
   process.env.DATABASE_URL = databaseUrl(database);
+  // Test databases number their images from 1 like the development one: their own bucket keeps the
+  // objects apart (the demo seeder creates it).
+  process.env.S3_BUCKET = `${TEST_DATABASE}-assets`.toLowerCase().replace(/[^a-z0-9-]/g, "-");
   process.env.INBOX_URL = config.INBOX_URL;
   process.env.APP_URL = `http://127.0.0.1:${E2E_PORT}`;
   process.env.PORT = String(E2E_PORT);
