@@ -43,13 +43,12 @@ export async function snapshotFor(bundle: ExhibitBundle, number: number, transac
   const computed = computeBundle(bundle);
   if (!computed.ok) throw new ExhibitError(`Not published: the exhibit does not compute: ${computed.message}`);
   const exhibitId = bundle.exhibit.id;
-  const [organisation, signs, previous, decay, images] = await Promise.all([
-    Organisation.findByPk(bundle.exhibit.organisationId, { transaction }),
-    MarkerSign.findAll({ where: { exhibitId }, order: [["number", "ASC"]], transaction, lock: transaction.LOCK.UPDATE }),
-    Publication.findOne({ where: { exhibitId }, order: [["number", "DESC"]], attributes: ["snapshot"], transaction }),
-    decayPanels(bundle),
-    snapshotImages(exhibitId),
-  ]);
+  // One after another: these share the transaction's connection.
+  const organisation = await Organisation.findByPk(bundle.exhibit.organisationId, { transaction });
+  const signs = await MarkerSign.findAll({ where: { exhibitId }, order: [["number", "ASC"]], transaction, lock: transaction.LOCK.UPDATE });
+  const previous = await Publication.findOne({ where: { exhibitId }, order: [["number", "DESC"]], attributes: ["snapshot"], transaction });
+  const decay = await decayPanels(bundle);
+  const images = await snapshotImages(exhibitId);
   const goneAges = new Map((previous?.snapshot.markers ?? []).map((m) => [m.id, m.ageMa]));
   const plan = planSigns(bundle.markers, signs.map((s) => ({ number: s.number, markerId: String(s.markerId), label: s.label, retiredAtPublication: s.retiredAtPublication, absorbedByNumber: s.absorbedByNumber })), number, goneAges);
   const snapshot: PublicationSnapshot = buildSnapshot({

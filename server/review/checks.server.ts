@@ -73,7 +73,10 @@ export async function checkExhibit(organisationId: number, slug: string, transac
     };
   }
   const bundle = (await loadBundle(organisationId, slug, transaction))!;
-  const [impact, acknowledgements, images, events] = await Promise.all([impactFor(bundle), acknowledgementsOf(bundle.exhibit.id, transaction), imagesForExhibit(bundle.exhibit.id), eventTexts(bundle)]);
+  const impact = await impactFor(bundle);
+  const acknowledgements = await acknowledgementsOf(bundle.exhibit.id, transaction);
+  const images = await imagesForExhibit(bundle.exhibit.id);
+  const events = await eventTexts(bundle);
   const report = runChecks({
     revision: bundle.exhibit.revision,
     spec: bundle.spec,
