@@ -52,8 +52,7 @@ export default function EditionPage({ loaderData }: Route.ComponentProps) {
   const here = `/editions/${e.slug}`;
   return (
     <div>
-      <p className="font-sans text-sm"><Link to="/editions">Chart editions</Link> ›</p>
-      <div className="mt-1 flex flex-wrap items-baseline justify-between gap-3">
+      <div className="flex flex-wrap items-baseline justify-between gap-3">
         <h1 className="text-3xl">
           {e.label} <EditionBadges edition={e} organisationName={organisation} />
         </h1>
@@ -74,12 +73,12 @@ export default function EditionPage({ loaderData }: Route.ComponentProps) {
           <h2 className="sr-only">About this edition</h2>
           <p className="text-sm"><span className="font-sans font-semibold">Source. </span>{e.source}</p>
           <p className="mt-2 text-sm"><span className="font-sans font-semibold">Licence. </span>{e.licence}</p>
-          {e.sourceFile ? <p className="mt-2 font-sans text-xs text-ink-soft">Read from <code>{e.sourceFile}</code>{languages.length ? ` · names in ${languages.length} language tags kept in the downloads` : ""}</p> : null}
+          {languages.length ? <p className="mt-2 font-sans text-xs text-ink-soft">The interval names in {languages.length} other languages are kept in the downloads.</p> : null}
         </div>
         <div className="font-sans text-sm">
           <RankCounts counts={e.counts} />
           <p className="mt-3 text-ink-soft">
-            <code>{e.slug}</code> · {e.total} intervals
+            {e.total} intervals
             <br />
             {e.createdBy ? <>Imported {day(e.createdAt)} by {e.createdBy}<br /></> : null}
             {e.madeCurrentAt ? <>{e.organisationId === null ? "Made the latest" : "Made current"} {day(e.madeCurrentAt)}{e.madeCurrentBy ? ` by ${e.madeCurrentBy}` : ""}<br /></> : null}
@@ -118,13 +117,13 @@ export default function EditionPage({ loaderData }: Route.ComponentProps) {
 
       <section className="mt-8" aria-labelledby="chart-heading">
         <h2 id="chart-heading" className="text-2xl">The chart</h2>
-        <p className="mb-3 mt-1 text-ink-soft">Youngest at the top. Hide ranks to simplify it; switch to “to scale” to see how little room the recent past takes.</p>
+        <p className="mb-3 mt-1 text-ink-soft">Youngest at the top; ages in million years ago (Ma). Hide levels to simplify it, draw any stretch of time, and make box heights follow duration to see how little room the recent past takes.</p>
         <TimescaleChart intervals={intervals} title={e.label} />
       </section>
 
       <section className="mt-10" id="corrections" aria-labelledby="corrections-heading">
         <h2 id="corrections-heading" className="text-2xl">Corrections to the source data</h2>
-        <p className="mb-3 mt-1 text-ink-soft">What was changed from the source file, from what to what, why and on whose authority.</p>
+        <p className="mb-3 mt-1 text-ink-soft">Where this edition differs from the data file the Commission published: what was changed, from what to what, why, and the evidence.</p>
         <CorrectionList corrections={e.corrections} />
       </section>
 

@@ -25,10 +25,13 @@ export async function loader({ request }: Route.LoaderArgs) {
   const fromSlug = url.searchParams.get("from") || editions.find((e) => e.slug !== toSlug && e.status === "retired")?.slug || editions.find((e) => e.slug !== toSlug)?.slug;
   const choices = editions.map((e) => ({ slug: e.slug, label: e.label, status: e.status }));
   if (!toSlug || !fromSlug) return { choices, fromSlug: fromSlug ?? null, toSlug: toSlug ?? null, pair: null, same: false };
-  const [a, b] = await Promise.all([loadEdition(fromSlug, scope), loadEdition(toSlug, scope)]);
-  if (!a) notFound(`There is no published chart edition "${fromSlug}".`);
-  if (!b) notFound(`There is no published chart edition "${toSlug}".`);
+  const [first, second] = await Promise.all([loadEdition(fromSlug, scope), loadEdition(toSlug, scope)]);
+  if (!first) notFound(`There is no published chart edition "${fromSlug}".`);
+  if (!second) notFound(`There is no published chart edition "${toSlug}".`);
   if (fromSlug === toSlug) return { choices, fromSlug, toSlug, pair: null, same: true };
+  // The older edition always comes first, whichever order the two were chosen in.
+  const swapped = editionDate(second.edition) < editionDate(first.edition);
+  const [a, b] = swapped ? [second, first] : [first, second];
   const c = compare(a.intervals, b.intervals);
   const grouped = groupMoves(c.moved, b.intervals, a.intervals);
   // Signed-in members also see which of their organisation's exhibits (pinned to the older edition)
@@ -42,9 +45,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   const affected = new Set(moved.flatMap((m) => m.exhibits.map((e) => e.slug))).size;
   return {
     choices,
-    fromSlug,
-    toSlug,
+    fromSlug: a.edition.slug,
+    toSlug: b.edition.slug,
     same: false,
+    swapped,
     pair: {
       from: { slug: a.edition.slug, label: a.edition.label, status: a.edition.status },
       to: { slug: b.edition.slug, label: b.edition.label, status: b.edition.status },
@@ -67,27 +71,33 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
+/** When an edition was issued: the year and month in its label ("ICS 2024/12"), else when it was imported. */
+function editionDate(e: { label: string; createdAt: string | Date }): string {
+  const m = /(\d{4})\s*\/\s*(\d{1,2})/.exec(e.label);
+  return m ? `${m[1]}-${m[2].padStart(2, "0")}` : new Date(e.createdAt).toISOString().slice(0, 7);
+}
+
 const unc = (u: number | null, approx: boolean) => `${approx ? "~ " : ""}${u === null ? "no ±" : `± ${fmtMa(u)}`}`;
 
 export default function CompareEditions({ loaderData }: Route.ComponentProps) {
   const { choices, fromSlug, toSlug, pair, same } = loaderData;
+  const swapped = "swapped" in loaderData && loaderData.swapped;
   return (
     <div>
-      <p className="font-sans text-sm"><Link to="/editions">Chart editions</Link> ›</p>
-      <h1 className="mt-1 text-3xl">Compare two editions</h1>
+      <h1 className="text-3xl">Compare two editions</h1>
       <p className="mt-2 max-w-3xl text-ink-soft">
         Which boundaries moved, and by how much. Exhibits pinned to the older edition place their markers by its figures; each moved boundary here is a marker that may need to move.
       </p>
       <Form method="get" className="card mt-5 flex flex-wrap items-end gap-4 font-sans text-sm">
         <div>
-          <label htmlFor="cmp-from" className="mb-1 block font-semibold">Older edition</label>
+          <label htmlFor="cmp-from" className="mb-1 block font-semibold">Older edition (before)</label>
           <select id="cmp-from" name="from" defaultValue={fromSlug ?? ""} className="field w-auto">
             {choices.map((e) => <option key={e.slug} value={e.slug}>{e.label} ({e.status})</option>)}
           </select>
         </div>
         <span aria-hidden="true" className="pb-2 text-xl">→</span>
         <div>
-          <label htmlFor="cmp-to" className="mb-1 block font-semibold">Newer edition</label>
+          <label htmlFor="cmp-to" className="mb-1 block font-semibold">Newer edition (after)</label>
           <select id="cmp-to" name="to" defaultValue={toSlug ?? ""} className="field w-auto">
             {choices.map((e) => <option key={e.slug} value={e.slug}>{e.label} ({e.status})</option>)}
           </select>
@@ -95,12 +105,13 @@ export default function CompareEditions({ loaderData }: Route.ComponentProps) {
         <button type="submit" className="btn">Compare</button>
       </Form>
       {same ? <p className="card mt-6">Choose two different editions.</p> : null}
+      {swapped && pair ? <p className="mt-4 font-sans text-sm" role="status">{pair.to.label} was chosen first but is the newer edition, so it is shown second: older before, newer after.</p> : null}
       {!pair && !same ? <p className="card mt-6">At least two editions are needed for a comparison.</p> : null}
       {pair ? (
         <>
           <h2 className="mt-8 text-2xl">
-            <Link to={`/editions/${pair.from.slug}`}>{pair.from.label}</Link> <StatusBadge status={pair.from.status} /> →{" "}
-            <Link to={`/editions/${pair.to.slug}`}>{pair.to.label}</Link> <StatusBadge status={pair.to.status} />
+            <span className="font-sans text-base font-normal text-ink-soft">Older: </span><Link to={`/editions/${pair.from.slug}`}>{pair.from.label}</Link> <StatusBadge status={pair.from.status} /> →{" "}
+            <span className="font-sans text-base font-normal text-ink-soft">newer: </span><Link to={`/editions/${pair.to.slug}`}>{pair.to.label}</Link> <StatusBadge status={pair.to.status} />
           </h2>
           <ul className="mt-4 grid gap-3 font-sans text-sm sm:grid-cols-3 lg:grid-cols-6" aria-label="Summary">
             {[
@@ -134,7 +145,7 @@ export default function CompareEditions({ loaderData }: Route.ComponentProps) {
                   </p>
                 ) : null}
                 <ShiftChart rows={pair.moved} title={`Boundaries moved from ${pair.from.label} to ${pair.to.label}, shift in Ma`} />
-                <div className="card mt-4 overflow-x-auto p-0">
+                <div className="card scroll-x mt-4 p-0" tabIndex={0} role="region" aria-label="Moved boundaries (scrolls sideways on narrow screens)">
                   <table className="w-full text-left text-sm" data-testid="moved-table">
                     <caption className="sr-only">Moved boundaries</caption>
                     <thead className="border-b border-rule bg-paper">
@@ -178,7 +189,7 @@ export default function CompareEditions({ loaderData }: Route.ComponentProps) {
           {pair.uncertainty.length ? (
             <section className="mt-8" aria-labelledby="unc-heading">
               <h3 id="unc-heading" className="text-xl">Changed uncertainties</h3>
-              <div className="card mt-3 overflow-x-auto p-0">
+              <div className="card scroll-x mt-3 p-0" tabIndex={0} role="region" aria-label="Changed uncertainties (scrolls sideways on narrow screens)">
                 <table className="w-full text-left text-sm">
                   <thead className="border-b border-rule bg-paper">
                     <tr>

@@ -26,7 +26,7 @@ export default function EditionsIndex({ loaderData }: Route.ComponentProps) {
         <div className="max-w-3xl">
           <h1 className="text-3xl">Chart editions</h1>
           <p className="mt-2 text-ink-soft">
-            Every exhibit is checked against one named edition of the International Chronostratigraphic Chart.
+            The International Chronostratigraphic Chart is the agreed geologic timescale, revised every year or two. Every exhibit is checked against one named edition of it.
             {latest ? <> The latest shared edition is <strong className="text-ink">{latest.label}</strong>.</> : " No shared edition has been published yet."}
             {organisation && current ? <> {organisation} works against <strong className="text-ink">{current.label}</strong>; its new exhibits are pinned to it.</> : null}
           </p>
@@ -47,7 +47,7 @@ export default function EditionsIndex({ loaderData }: Route.ComponentProps) {
                 <Link to={`/editions/${e.slug}`}>{e.label}</Link> <EditionBadges edition={e} organisationName={organisation} />
               </h2>
               <p className="font-sans text-sm text-ink-soft">
-                <code>{e.slug}</code> · {e.total} intervals
+                {e.total} intervals
                 {e.status === "current" && e.madeCurrentAt ? ` · ${e.latest ? "latest" : "in use"} since ${day(e.madeCurrentAt)}${e.madeCurrentBy ? ` (${e.madeCurrentBy})` : ""}` : ""}
                 {e.status === "retired" && e.retiredAt ? ` · retired ${day(e.retiredAt)}` : ""}
                 {e.status === "draft" ? ` · imported ${day(e.createdAt)}${e.createdBy ? ` by ${e.createdBy}` : ""}` : ""}

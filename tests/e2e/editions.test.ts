@@ -92,9 +92,10 @@ describe("chart editions in the browser", () => {
     await page.getByText(/has been imported as a draft/).waitFor();
     await page.getByTestId("timescale-chart").waitFor();
     await shot("05-draft-edition");
-    // The chart: collapse the ages, zoom to the Mesozoic, switch to scale.
+    // The chart: hide the ages, choose the Mesozoic box, draw only its time, then box heights by duration.
     await page.getByRole("button", { name: "Age", exact: true }).click();
-    await page.getByLabel("Span").selectOption("Mesozoic");
+    await page.getByRole("button", { name: /^Mesozoic \(era\)/ }).click();
+    await page.getByRole("button", { name: "Draw only its time" }).click();
     await expect(page.getByTestId("timescale-chart").locator("text").filter({ hasText: "Berriasian" }).count()).resolves.toBe(0);
     await expect(page.getByTestId("timescale-chart").locator("text").filter({ hasText: "Early Cretaceous" }).count()).resolves.toBe(1);
     await page.getByTestId("timescale-chart").scrollIntoViewIfNeeded();
@@ -102,13 +103,15 @@ describe("chart editions in the browser", () => {
     await detail("06b-chart-top-detail", "timescale-chart");
     await detail("06c-chart-mesozoic-detail", "timescale-chart", async (p) => {
       await p.waitForLoadState("networkidle");
-      await p.getByLabel("Span").selectOption("Mesozoic");
-      await p.getByText("· 251.902 Ma to 66 Ma").waitFor();
+      await p.getByLabel("Draw from (million years ago)").fill("251.902");
+      await p.getByLabel("to (million years ago)").fill("66");
+      await p.getByRole("button", { name: "Draw this stretch" }).click();
+      await p.getByText("Drawn: 251.902 to 66 million years ago").waitFor();
     });
-    await page.getByLabel("To scale — time as distance").check();
-    await page.getByLabel("Span").selectOption("");
+    await page.getByLabel("By duration — time as distance").check();
+    await page.getByRole("button", { name: "Whole chart again" }).click();
     await page.getByRole("button", { name: "Age", exact: true }).click();
-    await expect(page.getByText(/1 px ≈ \d/).count()).resolves.toBe(1);
+    await expect(page.getByText(/each pixel of height is about \d/).count()).resolves.toBe(1);
     await page.getByTestId("timescale-chart").scrollIntoViewIfNeeded();
     await shot("06d-chart-whole-to-scale");
     // The table: filter by name, sort by base.

@@ -88,7 +88,7 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
         </button>
         <p className="ml-auto text-ink-soft" aria-live="polite">Showing {rows.length} of {intervals.length} intervals</p>
       </div>
-      <div className="card overflow-x-auto p-0">
+      <div className="card scroll-x p-0">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">{caption}</caption>
           <thead className="border-b border-rule bg-paper">

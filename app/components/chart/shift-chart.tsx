@@ -22,7 +22,7 @@ export function ShiftChart({ rows, title }: { rows: readonly MovedBoundary[]; ti
   const height = TOP + rows.length * ROW + AXIS;
   const width = LABEL + PLOT + VALUE;
   return (
-    <div className="overflow-x-auto rounded border border-rule bg-white">
+    <div className="scroll-x rounded border border-rule bg-white" tabIndex={0} role="region" aria-label="Chart of the moved boundaries (scrolls sideways on narrow screens)">
       <svg width={width} height={height} viewBox={`0 0 ${width} ${height}`} role="img" aria-labelledby="shift-chart-title" className="font-sans" data-testid="shift-chart">
         <title id="shift-chart-title">{title}</title>
         <text x={LABEL + x(0)} y={16} textAnchor="middle" fontSize={12} fill={INK} fontWeight={600}>

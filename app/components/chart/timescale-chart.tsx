@@ -1,9 +1,10 @@
 // The chart of one edition: a column per rank (eon … age) on a vertical time axis, youngest at the
 // top, each interval a box in its standard chart colour with its name. An interval whose next rank
 // down is missing (the Hadean, the Precambrian periods, the Pridoli, ranks that are hidden) widens
-// to the right until its own subdivisions begin. Two spacings: even (every boundary one step, so
-// every name is legible) and to scale (time as distance, as on an exhibit). Columns collapse by
-// rank; selecting a box with subdivisions zooms to it.
+// to the right until its own subdivisions begin. The reader chooses the stretch of time to draw
+// (typed as two ages, or taken from an interval), which levels to show, and how tall the boxes
+// are: equal (every name readable) or by duration (time as distance, as on an exhibit). Choosing a
+// box opens a card about that interval, from which its own time can be drawn.
 import { AxisLeft } from "@visx/axis";
 import { Group } from "@visx/group";
 import { scaleLinear } from "d3-scale";
@@ -30,7 +31,12 @@ interface Box {
   width: number;
   y: number;
   height: number;
-  zoomable: boolean;
+}
+
+/** The stretch of time drawn, in Ma (older > younger). */
+interface TimeWindow {
+  older: number;
+  younger: number;
 }
 
 /** Centred in a short box; near the top of a tall one, repeated down a very tall one so it stays in view. */
@@ -58,8 +64,11 @@ export function TimescaleChart({
 }) {
   const id = useId();
   const [hidden, setHidden] = useState<ReadonlySet<Rank>>(new Set());
-  const [focus, setFocus] = useState<string | null>(null);
+  const [win, setWin] = useState<TimeWindow | null>(null);
+  const [selected, setSelected] = useState<string | null>(null);
   const [spacing, setSpacing] = useState<Spacing>(initialSpacing);
+  const [typed, setTyped] = useState({ older: "", younger: "" });
+  const [typedError, setTypedError] = useState<string | null>(null);
 
   const model = useMemo(() => {
     const byName = new Map(intervals.map((iv) => [iv.name, iv] as const));
@@ -88,13 +97,13 @@ export function TimescaleChart({
     return { byName, children, below, present };
   }, [intervals]);
 
-  const focused = focus ? model.byName.get(focus) ?? null : null;
+  const chosen = selected ? model.byName.get(selected) ?? null : null;
   const visible = model.present.filter((r) => !hidden.has(r));
 
   const layout = useMemo(() => {
     const all = intervals.filter((iv) => Number.isFinite(iv.baseMa) && Number.isFinite(iv.topMa));
-    const windowBase = focused ? focused.baseMa : Math.max(...all.map((iv) => iv.baseMa));
-    const windowTop = focused ? focused.topMa : Math.min(...all.map((iv) => iv.topMa));
+    const windowBase = win ? win.older : Math.max(...all.map((iv) => iv.baseMa));
+    const windowTop = win ? win.younger : Math.min(...all.map((iv) => iv.topMa));
     const inWindow = all.filter((iv) => visible.includes(iv.rank) && iv.baseMa > windowTop && iv.topMa < windowBase);
     // Only columns with something in this span (the sub-period column exists only in the Carboniferous).
     const columns = visible.filter((r) => inWindow.some((iv) => iv.rank === r));
@@ -131,7 +140,6 @@ export function TimescaleChart({
         width: columnX[end] + COLUMN_WIDTH[columns[end]] - columnX[start],
         y: top,
         height: Math.max(0.5, bottom - top),
-        zoomable: (model.children.get(iv.name)?.length ?? 0) > 0 && iv.name !== focused?.name,
       };
     });
     boxes.sort((a, b) => rankDepth(a.iv.rank) - rankDepth(b.iv.rank));
@@ -150,15 +158,29 @@ export function TimescaleChart({
       last = yy;
     }
     return { boxes, columns, columnX, columnsWidth, height, y, ageLabels, windowBase, windowTop };
-  }, [intervals, focused, visible.join(","), spacing, model]);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [intervals, win, visible.join(","), spacing, model]);
 
   const axis = spacing === "scale" ? AXIS : 0;
   const width = axis + layout.columnsWidth + AGE_COLUMN;
   const svgHeight = HEADER + layout.height + 12;
 
-  const ancestry: Interval[] = [];
-  for (let cur = focused; cur; cur = cur.parent ? model.byName.get(cur.parent) ?? null : null) ancestry.unshift(cur);
-  const zoomChoices = intervals.filter((iv) => (model.children.get(iv.name)?.length ?? 0) > 0);
+  const total = { older: Math.max(...intervals.map((iv) => iv.baseMa)), younger: Math.min(...intervals.map((iv) => iv.topMa)) };
+  const showTyped = (e: React.FormEvent) => {
+    e.preventDefault();
+    const older = Number(typed.older);
+    const younger = typed.younger.trim() === "" ? 0 : Number(typed.younger);
+    if (typed.older.trim() === "" || !Number.isFinite(older) || !Number.isFinite(younger)) return setTypedError("Type both ends as numbers of million years ago, e.g. 252 and 66.");
+    if (older <= younger) return setTypedError("The older end must be a larger number of million years ago than the younger end.");
+    if (younger < total.younger || older > total.older) return setTypedError(`This chart covers ${fmtMa(total.older)} million years ago to the present; choose ends inside that.`);
+    setTypedError(null);
+    setWin({ older, younger });
+  };
+  const showInterval = (iv: Interval) => {
+    setWin({ older: iv.baseMa, younger: iv.topMa });
+    setTyped({ older: fmtMa(iv.baseMa), younger: fmtMa(iv.topMa) });
+    setTypedError(null);
+  };
 
   const toggle = (r: Rank) =>
     setHidden((prev) => {
@@ -168,7 +190,8 @@ export function TimescaleChart({
       return next;
     });
 
-  const spanText = `${fmtMa(layout.windowBase)} Ma to ${layout.windowTop === 0 ? "the present" : `${fmtMa(layout.windowTop)} Ma`}`;
+  const spanText = `${fmtMa(layout.windowBase)} to ${layout.windowTop === 0 ? "0 million years ago (the present)" : `${fmtMa(layout.windowTop)} million years ago`}`;
+  const perPixel = (layout.windowBase - layout.windowTop) / layout.height;
 
   return (
     <div>
@@ -194,12 +217,12 @@ export function TimescaleChart({
           </div>
         </fieldset>
         <fieldset>
-          <legend className="mb-1 font-semibold">Spacing</legend>
-          <div className="flex gap-3">
+          <legend className="mb-1 font-semibold">Box heights</legend>
+          <div className="flex flex-wrap gap-x-3">
             {(
               [
-                ["even", "Even — every name legible"],
-                ["scale", "To scale — time as distance"],
+                ["even", "Equal — every name readable"],
+                ["scale", "By duration — time as distance"],
               ] as const
             ).map(([value, label]) => (
               <label key={value} className="flex min-h-8 items-center gap-1.5">
@@ -209,34 +232,27 @@ export function TimescaleChart({
             ))}
           </div>
         </fieldset>
-        <div>
-          <label htmlFor={`${id}-span`} className="mb-1 block font-semibold">Span</label>
-          <select id={`${id}-span`} className="field w-auto" value={focus ?? ""} onChange={(e) => setFocus(e.target.value || null)}>
-            <option value="">Whole chart</option>
-            {zoomChoices.map((iv) => (
-              <option key={iv.name} value={iv.name}>
-                {"\u2003".repeat(rankDepth(iv.rank))}
-                {iv.name} ({RANK_LABELS[iv.rank].toLowerCase()})
-              </option>
-            ))}
-          </select>
-        </div>
       </div>
-      <nav aria-label="Zoom" className="mb-2 flex flex-wrap items-center gap-1 font-sans text-sm">
-        <button type="button" className="underline decoration-dotted disabled:no-underline" onClick={() => setFocus(null)} disabled={!focused}>
-          Whole chart
-        </button>
-        {ancestry.map((iv) => (
-          <span key={iv.name} className="flex items-center gap-1">
-            <span aria-hidden="true">›</span>
-            <button type="button" className="underline decoration-dotted disabled:font-semibold disabled:no-underline" onClick={() => setFocus(iv.name)} disabled={iv.name === focus}>
-              {iv.name}
-            </button>
-          </span>
-        ))}
-        <span className="ml-2 text-ink-soft">· {spanText}{spacing === "scale" ? ` · 1 px ≈ ${fmtMa(round9((layout.windowBase - layout.windowTop) / layout.height))} Ma` : ""}</span>
-      </nav>
-      <div className="overflow-x-auto rounded border border-rule bg-white">
+      <form onSubmit={showTyped} className="mb-3 flex flex-wrap items-end gap-2 font-sans text-sm" noValidate>
+        <div>
+          <label htmlFor={`${id}-older`} className="mb-1 block font-semibold">Draw from (million years ago)</label>
+          <input id={`${id}-older`} inputMode="decimal" className="field w-32" value={typed.older} placeholder={fmtMa(total.older)} onChange={(e) => setTyped((t) => ({ ...t, older: e.target.value }))} aria-invalid={typedError ? true : undefined} aria-describedby={typedError ? `${id}-typed-error` : undefined} />
+        </div>
+        <div>
+          <label htmlFor={`${id}-younger`} className="mb-1 block font-semibold">to (million years ago)</label>
+          <input id={`${id}-younger`} inputMode="decimal" className="field w-32" value={typed.younger} placeholder="0" onChange={(e) => setTyped((t) => ({ ...t, younger: e.target.value }))} />
+        </div>
+        <button type="submit" className="btn-quiet">Draw this stretch</button>
+        {win ? <button type="button" className="btn-quiet" onClick={() => { setWin(null); setTyped({ older: "", younger: "" }); }}>Whole chart again</button> : null}
+        {typedError ? <p id={`${id}-typed-error`} className="basis-full text-danger" role="alert">{typedError}</p> : null}
+      </form>
+      <p className="mb-2 font-sans text-sm text-ink-soft" aria-live="polite">
+        Drawn: {spanText}
+        {spacing === "scale" ? ` · each pixel of height is about ${perPixel >= 1 ? `${Number(perPixel.toPrecision(2)).toLocaleString("en-GB")} million` : `${Number((perPixel * 1000).toPrecision(2)).toLocaleString("en-GB")} thousand`} years` : ""}
+        {" · choose a box for its details."}
+      </p>
+      {chosen ? <IntervalCard iv={chosen} onShow={() => showInterval(chosen)} onClose={() => setSelected(null)} /> : null}
+      <div className="scroll-x rounded border border-rule bg-white">
         <svg
           width={width}
           height={svgHeight}
@@ -257,41 +273,43 @@ export function TimescaleChart({
           </Group>
           <Group left={axis} top={HEADER}>
             {layout.boxes.map((b) => {
-              const label = b.height >= 12 ? fitLabel(b.iv.name, b.width) : null;
-              const fg = textOn(b.iv.color);
-              const tip = `${b.iv.name} (${RANK_LABELS[b.iv.rank].toLowerCase()}): ${fmtBase(b.iv)} to ${fmtMa(b.iv.topMa)} Ma`;
-              const zoom = () => setFocus(b.iv.name);
+              const tip = `${b.iv.name} (${RANK_LABELS[b.iv.rank].toLowerCase()}): ${fmtBase(b.iv)} to ${fmtMa(b.iv.topMa)} million years ago`;
+              const select = () => setSelected(b.iv.name);
+              // The box is the button; its name is drawn in a separate layer (below), so the button's
+              // accessible name is the whole name even where the drawn one is shortened.
               return (
                 <g
                   key={b.iv.name}
-                  {...(b.zoomable
-                    ? {
-                        role: "button",
-                        tabIndex: 0,
-                        "aria-label": `${tip}. Zoom in`,
-                        onClick: zoom,
-                        onKeyDown: (e: React.KeyboardEvent) => {
-                          if (e.key === "Enter" || e.key === " ") {
-                            e.preventDefault();
-                            zoom();
-                          }
-                        },
-                        className: "cursor-pointer outline-none [&:focus-visible>rect]:stroke-sandstone-600 [&:focus-visible>rect]:[stroke-width:3px] [&:hover>rect]:[stroke-width:2px]",
-                      }
-                    : {})}
+                  role="button"
+                  tabIndex={0}
+                  aria-label={`${tip}. Details`}
+                  aria-pressed={selected === b.iv.name}
+                  onClick={select}
+                  onKeyDown={(e: React.KeyboardEvent) => {
+                    if (e.key === "Enter" || e.key === " ") {
+                      e.preventDefault();
+                      select();
+                    }
+                  }}
+                  className="cursor-pointer outline-none [&:focus-visible>rect]:stroke-sandstone-600 [&:focus-visible>rect]:[stroke-width:3px] [&:hover>rect]:[stroke-width:2px]"
                 >
                   <title>{tip}</title>
-                  <rect x={b.x + 0.5} y={b.y} width={b.width - 1} height={b.height} fill={b.iv.color} stroke={INK} strokeOpacity={0.45} strokeWidth={1} />
-                  {label
-                    ? labelPositions(b.y, b.height).map((ly) => (
-                        <text key={ly} x={b.x + 6} y={ly} dominantBaseline="central" fontSize={12} fill={fg} pointerEvents="none">
-                          {label}
-                        </text>
-                      ))
-                    : null}
+                  <rect x={b.x + 0.5} y={b.y} width={b.width - 1} height={b.height} fill={b.iv.color} stroke={selected === b.iv.name ? "#9a5624" : INK} strokeOpacity={selected === b.iv.name ? 1 : 0.45} strokeWidth={selected === b.iv.name ? 3 : 1} />
                 </g>
               );
             })}
+            <g aria-hidden="true" pointerEvents="none">
+              {layout.boxes.map((b) => {
+                const label = b.height >= 12 ? fitLabel(b.iv.name, b.width) : null;
+                return label
+                  ? labelPositions(b.y, b.height).map((ly) => (
+                      <text key={`${b.iv.name}-${ly}`} x={b.x + 6} y={ly} dominantBaseline="central" fontSize={12} fill={textOn(b.iv.color)}>
+                        {label}
+                      </text>
+                    ))
+                  : null;
+              })}
+            </g>
             {layout.ageLabels.map((l, i) => (
               <g key={i} aria-hidden="true">
                 <line x1={layout.columnsWidth} x2={layout.columnsWidth + 5} y1={l.y} y2={l.y} stroke={INK} />
@@ -316,8 +334,26 @@ export function TimescaleChart({
         </svg>
       </div>
       <p className="mt-2 font-sans text-xs text-ink-soft">
-        Boxes use the standard chart colours; names and ages are written on them. “~” marks an approximate age, “±” the uncertainty of a base. Select a box with subdivisions to zoom in.
+        Boxes use the standard chart colours; names and ages are written on them. “~” marks an approximate age, “±” the uncertainty of a base (give or take).
       </p>
+    </div>
+  );
+}
+
+/** What the chart knows about one interval, in plain words, with a way to draw just its time. */
+function IntervalCard({ iv, onShow, onClose }: { iv: Interval; onShow: () => void; onClose: () => void }) {
+  const years = iv.baseMa - iv.topMa;
+  const kind = iv.gssp === null ? "The source does not say how its start is defined." : !iv.gssp ? "Its start is not yet ratified: the age is provisional." : iv.boundaryKind === "GSSA" ? "Its start is a GSSA: a boundary defined by an agreed number of years." : iv.boundaryKind === "GSSP" ? "Its start is a GSSP: a reference point in one rock section, chosen by international agreement." : "Its start is ratified.";
+  return (
+    <div className="mb-3 flex flex-wrap items-start justify-between gap-3 rounded border-l-4 bg-white p-3 font-sans text-sm" style={{ borderColor: iv.color }} role="region" aria-label={`About the ${iv.name}`}>
+      <div className="min-w-0">
+        <p className="font-semibold">{iv.name} <span className="font-normal text-ink-soft">({RANK_LABELS[iv.rank].toLowerCase()}{iv.parent ? ` within the ${iv.parent}` : ""})</span></p>
+        <p>From {fmtBase(iv)} to {fmtMa(iv.topMa)} million years ago: it lasted {years >= 1 ? `${Number(years.toPrecision(4)).toLocaleString("en-GB")} million` : `${Number((years * 1000).toPrecision(4)).toLocaleString("en-GB")} thousand`} years. {kind}</p>
+      </div>
+      <div className="flex flex-wrap gap-2">
+        <button type="button" className="btn-quiet" onClick={onShow}>Draw only its time</button>
+        <button type="button" className="btn-quiet" onClick={onClose}>Close</button>
+      </div>
     </div>
   );
 }

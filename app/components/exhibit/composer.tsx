@@ -89,9 +89,8 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
       {refusal?.error && !ownMessage ? <div className="mt-4"><FormMessage>{refusal.error}</FormMessage></div> : null}
       {children}
 
-      <div className="mt-4">
-        <PreviewPane title={exhibit.title} preview={preview} markers={markers} bands={bands} units={units} flagged={flagged} olderMa={olderMa} youngerMa={youngerMa} dirty={dirty} openWarnings={openWarnings.length} />
-      </div>
+      {/* A direct child of the page's column, so that it stays in view over the whole composer. */}
+      <PreviewPane title={exhibit.title} preview={preview} markers={markers} bands={bands} units={units} flagged={flagged} olderMa={olderMa} youngerMa={youngerMa} dirty={dirty} openWarnings={openWarnings.length} />
 
       <div className="mt-6 space-y-6">
         {canEdit ? <SettingsForm spec={spec} draft={draft} setField={setField} revision={revision} err={err} /> : null}

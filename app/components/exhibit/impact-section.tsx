@@ -5,11 +5,11 @@ import { formatLength, type ComposerView, type UnitsPreference } from "~/lib/exh
 
 export function ImpactSection({ impact, editionLabel, units, revision, canEdit }: { impact: NonNullable<ComposerView["impact"]>; editionLabel: string; units: UnitsPreference; revision: number; canEdit: boolean }) {
   return (
-    <section className="card mt-6" aria-labelledby="impact-h">
-      <h2 id="impact-h" className="text-xl">Edition impact: {editionLabel} → {impact.edition.label}</h2>
+    <section className="card" aria-labelledby="impact-h">
+      <h2 id="impact-h" className="text-xl">Impact of the newer chart edition: {editionLabel} → {impact.edition.label}</h2>
       <p className="mt-1 font-sans text-sm text-ink-soft">Markers whose age differs between the two editions, and how far each would move on this exhibit. {impact.report.unchanged} boundary marker{impact.report.unchanged === 1 ? " is" : "s are"} unchanged.</p>
       {impact.report.rows.length ? (
-        <div className="mt-3 overflow-x-auto">
+        <div className="scroll-x mt-3" tabIndex={0} role="region" aria-label="Markers that would move (scrolls sideways on narrow screens)">
           <table className="w-full text-left font-sans text-sm">
             <thead className="border-b border-rule"><tr><th className="p-2">#</th><th className="p-2">Marker</th><th className="p-2">Old age</th><th className="p-2">New age</th><th className="p-2">Change</th><th className="p-2">Moves</th></tr></thead>
             <tbody>
@@ -30,7 +30,7 @@ export function ImpactSection({ impact, editionLabel, units, revision, canEdit }
       {canEdit ? (
         <Form method="post" className="mt-4">
           <IntentFields intent="repin" revision={revision} />
-          <button type="submit" className="btn">Re-pin to {impact.edition.label}</button>
+          <button type="submit" className="btn">Move to {impact.edition.label} (re-pin)</button>
           <span className="ml-3 font-sans text-sm text-ink-soft">Makes a new revision; it goes through review again.</span>
         </Form>
       ) : null}

@@ -30,7 +30,7 @@ export function PreviewPane({ title, preview, markers, bands, units, flagged, ol
   const [shown, setShown] = useState(true);
   const result = preview.ok ? preview.result : null;
   return (
-    <section className="sticky top-0 z-20 -mx-4 max-h-[55vh] overflow-y-auto border-b border-rule bg-white px-4 py-3 shadow-sm sm:mx-0 sm:rounded-b-lg sm:border sm:border-t-0" aria-labelledby="preview-h" data-testid="preview-pane">
+    <section className="sticky top-0 z-20 -mx-4 mt-4 max-h-[55vh] overflow-y-auto border-b border-rule bg-white px-4 py-3 shadow-sm sm:mx-0 sm:rounded-b-lg sm:border sm:border-t-0" aria-labelledby="preview-h" data-testid="preview-pane">
       <div className="flex flex-wrap items-center justify-between gap-x-3 gap-y-1">
         <h2 id="preview-h" className="text-lg">Preview</h2>
         <div className="flex flex-wrap items-center gap-x-3 gap-y-1 font-sans text-sm">

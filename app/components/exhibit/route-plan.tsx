@@ -87,8 +87,8 @@ export function RoutePlan({ geometry, result, markers, units }: { geometry: Line
   const barPx = bar.metres / metresPerPx;
 
   return (
-    <div ref={ref}>
-      <svg width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="plan-title" className="block h-auto max-w-full rounded border border-rule bg-[#f2f5f3]" data-testid="route-plan">
+    <div ref={ref} className="overflow-hidden rounded border border-rule bg-[#f2f5f3]">
+      <svg width={W} height={H} viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="plan-title" className="block h-auto max-w-full" data-testid="route-plan">
         <title id="plan-title">{`Plan of the route, north up: the walk starts at the oldest end and ends at the present; ${markers.length} numbered markers, listed with their coordinates in the markers table.`}</title>
         <path d={d} fill="none" stroke={PATH} strokeWidth={3} strokeLinejoin="round" />
         <circle cx={startXY.x} cy={startXY.y} r={7} fill="#2f6b3a" stroke="white" strokeWidth={2} />

@@ -112,8 +112,9 @@ export function ScaleStrip({
   const groups = drawn.labels.filter((l) => l.group);
 
   return (
-    <figure className="m-0" ref={ref}>
-      <svg width={W} height={height} viewBox={`0 0 ${W} ${height}`} role="img" aria-labelledby="strip-title strip-desc" className="block h-auto max-w-full rounded border border-rule bg-white" data-testid="scale-strip">
+    <figure className="m-0">
+      <div ref={ref} className="overflow-hidden rounded border border-rule bg-white">
+      <svg width={W} height={height} viewBox={`0 0 ${W} ${height}`} role="img" aria-labelledby="strip-title strip-desc" className="block h-auto max-w-full" data-testid="scale-strip">
         <title id="strip-title">{title}</title>
         <desc id="strip-desc">
           {`The exhibit from ${scale.olderYears.toLocaleString("en-GB")} years ago at the left to ${scale.youngerYears.toLocaleString("en-GB")} years ago at the right, ${formatLength(scale.totalMetres, units)} long, with ${markers.length} markers and ${result.insets.length} insets.`}
@@ -169,15 +170,17 @@ export function ScaleStrip({
           );
         })}
       </svg>
+      </div>
       <figcaption className="mt-2 font-sans text-sm text-ink-soft">
         {scale.statement.lengthPerTime} ({scale.statement.timePerLength}). Bands in the standard chart colours, named where they fit (point at one for its ages). Numbers are markers; <span className="font-semibold text-danger">bold red numbers on dashed lines</span> stand too close together.
         {result.insets.length ? ` Insets: ${result.insets.map((ins, k) => `${insetLetter(k)} — ${ins.label}, ${ins.statement.lengthPerTime}, ${formatLength(ins.lengthMetres, units, ins.lengthMetres / 1000)} long`).join("; ")}.` : ""}
       </figcaption>
       {groups.length ? (
-        <div className="mt-2 flex flex-wrap gap-2 font-sans text-sm">
+        <div className="mt-1 flex flex-wrap items-start gap-1 font-sans text-sm">
+          <span className="py-0.5 text-ink-soft">Crowded, labelled as one (open for the names):</span>
           {groups.map((g) => (
-            <details key={g.ids.join(",")} className="rounded border border-rule bg-paper px-2 py-1">
-              <summary className="cursor-pointer">Markers {g.text} ({g.ids.length}, too close to label one by one)</summary>
+            <details key={g.ids.join(",")} className="rounded border border-rule bg-paper px-1.5 py-0.5">
+              <summary className="cursor-pointer">{g.text}</summary>
               <ol className="mt-1 space-y-0.5">
                 {g.ids.map((id) => <li key={id}><a href={`#marker-${id}`}>{drawn.names.get(id)}</a></li>)}
               </ol>

@@ -15,6 +15,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   return { rows: filterAndSortExhibits(all, filters), total: all.length, canEdit: can(member.subject, "exhibit.edit"), filters };
 }
 
+const SORT_WORDS: Record<ExhibitSort, string> = { title: "title", medium: "medium", length: "length", edition: "chart edition", status: "status", updated: "last change" };
+
 export default function Exhibits({ loaderData }: Route.ComponentProps) {
   const { rows, total, canEdit, filters } = loaderData;
   const [params] = useSearchParams();
@@ -33,7 +35,7 @@ export default function Exhibits({ loaderData }: Route.ComponentProps) {
     <div>
       <PageHeader
         title="Exhibits"
-        lead="Every time-as-distance exhibit of your organisation, with the chart edition it is pinned to."
+        lead="Every time-as-distance exhibit of your organisation, with the chart edition its ages were checked against."
         actions={canEdit ? <Link to="/studio/exhibits/new" className="btn no-underline">New exhibit</Link> : null}
       />
       <Form method="get" className="mt-6 flex flex-wrap items-end gap-3 font-sans text-sm">
@@ -61,15 +63,16 @@ export default function Exhibits({ loaderData }: Route.ComponentProps) {
           {canEdit ? <Link to="/studio/exhibits/new" className="btn mt-4 no-underline">Start an exhibit</Link> : null}
         </div>
       ) : (
-        <div className="card mt-6 overflow-x-auto p-0">
-          <table className="w-full text-left text-sm">
+        <div className="card mt-6 p-0">
+          <p className="px-3 pt-3 font-sans text-sm text-ink-soft md:hidden">Sort by: {(["title", "medium", "length", "edition", "status", "updated"] as const).map((s, i) => <span key={s}>{i ? " · " : ""}<Link to={sortLink(s)}>{SORT_WORDS[s]}{filters.sort === s ? (filters.dir === "asc" ? " ▲" : " ▼") : ""}</Link></span>)}</p>
+          <table className="table-cards w-full text-left text-sm">
             <caption className="sr-only">Exhibits, sortable by column</caption>
             <thead className="border-b border-rule bg-paper">
               <tr>
                 {header("title", "Title")}
                 {header("medium", "Medium")}
                 {header("length", "Length")}
-                {header("edition", "Chart edition")}
+                {header("edition", "Checked against chart edition")}
                 {header("status", "Status")}
                 {header("updated", "Updated")}
               </tr>
@@ -77,15 +80,15 @@ export default function Exhibits({ loaderData }: Route.ComponentProps) {
             <tbody>
               {rows.map((r) => (
                 <tr key={r.slug} className="border-b border-rule last:border-0">
-                  <td className="p-3"><Link to={`/studio/exhibits/${r.slug}`} className="font-semibold">{r.title}</Link><div className="text-xs text-ink-soft">{r.markers} markers</div></td>
-                  <td className="p-3">{r.medium}</td>
-                  <td className="num p-3">{r.length}</td>
-                  <td className="p-3">
+                  <td className="p-3" data-label="Title"><Link to={`/studio/exhibits/${r.slug}`} className="font-semibold">{r.title}</Link><div className="text-xs text-ink-soft">{r.markers} markers</div></td>
+                  <td className="p-3" data-label="Medium">{r.medium}</td>
+                  <td className="num p-3" data-label="Length">{r.length}</td>
+                  <td className="p-3" data-label="Checked against chart edition">
                     {r.edition}
                     {r.needsRecheck ? <span className="ml-2 inline-block rounded bg-sandstone-100 px-2 py-0.5 text-xs font-semibold text-sandstone-700">needs re-check</span> : null}
                   </td>
-                  <td className="p-3">{r.status} · rev. {r.revision}</td>
-                  <td className="p-3">{r.updated.slice(0, 10)}{r.updatedBy ? ` · ${r.updatedBy}` : ""}</td>
+                  <td className="p-3" data-label="Status">{r.status} · saved version {r.revision}</td>
+                  <td className="p-3" data-label="Updated">{r.updated.slice(0, 10)}{r.updatedBy ? ` · ${r.updatedBy}` : ""}</td>
                 </tr>
               ))}
             </tbody>

@@ -90,12 +90,12 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
   const rowError = (id: number) => (actionData?.intent === "set-roles" && actionData.target === String(id) ? (actionData.fields.roles ?? actionData.error) : undefined);
   return (
     <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
-      <section>
+      <section className="min-w-0">
         <h1 className="text-3xl">Team of {organisation}</h1>
         <p className="mt-2 text-ink-soft">A member may hold several roles: a small museum's curator can design and review (never approving an exhibit they edited). Every organisation keeps at least one admin.</p>
         {actionData && actionData.intent !== "invite" && actionData.intent !== "set-roles" ? <FormMessage>{actionData.error}</FormMessage> : null}
-        <div className="card mt-6 overflow-x-auto p-0">
-          <table className="w-full text-left text-sm">
+        <div className="card mt-6 p-0">
+          <table className="table-cards w-full text-left text-sm">
             <caption className="sr-only">Members</caption>
             <thead className="border-b border-rule bg-paper">
               <tr>
@@ -108,8 +108,8 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
             <tbody>
               {members.map((m) => (
                 <tr key={m.id} className="border-b border-rule align-top last:border-0">
-                  <td className="p-3"><span className="font-semibold">{m.name}</span>{m.id === me ? <span className="ml-1 text-ink-soft">(you)</span> : null}<span className="block text-xs text-ink-soft">{m.email}</span></td>
-                  <td className="p-3">
+                  <td className="p-3" data-label="Name"><span className="font-semibold">{m.name}</span>{m.id === me ? <span className="ml-1 text-ink-soft">(you)</span> : null}<span className="block text-xs text-ink-soft">{m.email}</span></td>
+                  <td className="p-3" data-label="Roles">
                     <Form method="post" className="flex flex-wrap items-start gap-2" aria-label={`Roles of ${m.name}`}>
                       <input type="hidden" name="intent" value="set-roles" />
                       <input type="hidden" name="membershipId" value={m.id} />
@@ -117,7 +117,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
                       <button type="submit" className="btn-quiet" disabled={busy}>Save</button>
                     </Form>
                   </td>
-                  <td className="p-3 figures">{m.lastSignIn ?? "never"}</td>
+                  <td className="p-3 figures" data-label="Last sign-in">{m.lastSignIn ?? "never"}</td>
                   <td className="p-3">
                     <Form method="post" onSubmit={(e) => { if (!confirm(`Remove ${m.name} from ${organisation}?`)) e.preventDefault(); }}>
                       <input type="hidden" name="intent" value="remove" />
@@ -137,7 +137,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
           <ul className="mt-3 divide-y divide-rule rounded-lg border border-rule bg-white">
             {invitations.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center justify-between gap-2 p-3 font-sans text-sm">
-                <span><strong>{i.email}</strong> as {rolesInWords(i.roles, { lower: true })} · invited by {i.by} · expires {i.expires}</span>
+                <span className="min-w-0"><strong>{i.email}</strong> as {rolesInWords(i.roles, { lower: true })} · invited by {i.by} · expires {i.expires}</span>
                 <Form method="post">
                   <input type="hidden" name="intent" value="revoke" />
                   <input type="hidden" name="invitationId" value={i.id} />
@@ -148,7 +148,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
           </ul>
         )}
       </section>
-      <aside>
+      <aside className="min-w-0">
         <div className="card">
           <h2 className="text-xl">Invite someone</h2>
           <p className="mb-4 mt-1 font-sans text-sm text-ink-soft">They get an e-mail with a link to choose a password and join.</p>
