@@ -9,6 +9,7 @@ import { DatedEvent } from "../../db/models/index.ts";
 import { imagesForExhibit } from "../assets/usage.server.ts";
 import { sequelize } from "../db.server.ts";
 import { impactFor } from "../exhibits/impact.server.ts";
+import { acknowledgementsFor } from "../exhibits/warnings.server.ts";
 import { data } from "react-router";
 import { EXHIBIT_NOT_FOUND, loadBundle, type ExhibitBundle } from "../exhibits/load.server.ts";
 
@@ -22,11 +23,9 @@ async function boundaryFacts(exhibitId: number, transaction?: Transaction): Prom
   return rows.map((r) => ({ markerId: String(r.markerId), intervalName: r.intervalName, editionId: r.editionId, baseMa: Number(r.baseMa) }));
 }
 
-/** Stored acknowledgements of legibility warnings (exhibit_warning_acknowledgements, once it exists). */
+/** Stored acknowledgements of legibility warnings (server/exhibits/warnings.server.ts keeps them by warning key). */
 export async function acknowledgementsOf(exhibitId: number, transaction?: Transaction): Promise<Acknowledgement[]> {
-  void exhibitId;
-  void transaction;
-  return [];
+  return acknowledgementsFor(exhibitId, transaction);
 }
 
 async function eventTexts(bundle: ExhibitBundle) {
