@@ -24,6 +24,7 @@ import { OutboxMessage, initOutboxMessage } from "./outbox-message.ts";
 import { PasswordReset, initPasswordReset } from "./password-reset.ts";
 import { Session, initSession } from "./session.ts";
 import { User, initUser } from "./user.ts";
+import { WarningAcknowledgement, initWarningAcknowledgement } from "./warning-acknowledgement.ts";
 
 let boundTo: Sequelize | undefined;
 
@@ -56,6 +57,7 @@ export function initModels(sequelize: Sequelize): Sequelize {
   initPasswordReset(sequelize);
   initSession(sequelize);
   initUser(sequelize);
+  initWarningAcknowledgement(sequelize);
 
   User.hasMany(Membership, { foreignKey: "userId", as: "memberships" });
   Membership.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -89,9 +91,11 @@ export function initModels(sequelize: Sequelize): Sequelize {
   ExhibitComment.belongsTo(User, { foreignKey: "authorId", as: "author" });
   ExhibitComment.belongsTo(User, { foreignKey: "resolvedById", as: "resolvedBy" });
   ImageUse.belongsTo(Asset, { foreignKey: "assetId", as: "asset" });
+  WarningAcknowledgement.belongsTo(User, { foreignKey: "acknowledgedById", as: "acknowledgedBy" });
   boundTo = sequelize;
   return sequelize;
 }
 
 export { Asset, AuditEvent, ChartEdition, DatedEvent, DecaySystem, Exhibit, ExhibitMedium, ImageUse, Inset, Marker, Interval, Invitation, Membership, Organisation, OutboxMessage, PasswordReset, Session, User };
 export { ExhibitComment, ExhibitReview, ExhibitRevision, MarkerSign, Publication };
+export { WarningAcknowledgement };

@@ -2,7 +2,7 @@
 // (revise.server.ts): one transaction, the revision claimed first, the exhibit recomputed, audited.
 import { Op } from "sequelize";
 import { data } from "react-router";
-import type { MediumInput, NewExhibitInput, RouteMediumInput, SettingsInput } from "../../app/lib/exhibit/index.ts";
+import { boundaryNames, planCombine, type MediumInput, type NewExhibitInput, type ResolvedMarker, type RouteMediumInput, type SettingsInput } from "../../app/lib/exhibit/index.ts";
 import { toYears } from "../../app/lib/units/index.ts";
 import type { MediumType } from "../../app/lib/scale/legibility.ts";
 import type { Interval, Rank } from "../../app/lib/timescale/types.ts";
@@ -111,7 +111,8 @@ export function addBoundaries(actor: Actor, slug: string, revision: number, pick
         chosen = b.intervals.filter((i) => i.rank === pick.rank && i.baseMa <= olderMa + 1e-12 && i.baseMa >= youngerMa - 1e-12);
         if (chosen.length === 0) throw new ExhibitError(`No ${pick.rank} of ${b.edition.label} begins inside this exhibit's span.`, "rank");
       }
-      const present = new Set(b.markers.filter((m) => m.kind === "boundary").map((m) => m.intervalName));
+      // a boundary already combined into another marker ("Base of the Archean and Eoarchean") is there too
+      const present = new Set(b.markers.filter((m) => m.kind === "boundary").flatMap(boundaryNames));
       const fresh = chosen.filter((iv) => !present.has(iv.name));
       if (fresh.length === 0) throw new ExhibitError(pick.intervalName ? `The base of the ${pick.intervalName} is already a marker.` : `Every ${pick.rank} base is already a marker.`, pick.intervalName ? "intervalName" : "rank");
       await Marker.bulkCreate(
@@ -176,6 +177,30 @@ export function removeMarker(actor: Actor, slug: string, revision: number, marke
     await row.destroy({ transaction });
     return row.label;
   }, (label) => ({ markerId, label }));
+}
+
+/**
+ * Combines markers of one age into one (planCombine): the kept marker takes a label naming every
+ * one and their texts; the others are deleted. Revision-checked and audited like any edit.
+ */
+export function combineMarkers(actor: Actor, slug: string, revision: number, markerIds: number[]) {
+  return reviseExhibit(
+    actor,
+    slug,
+    revision,
+    "markers.combine",
+    async (b, transaction) => {
+      const chosen = markerIds.map((id) => b.markers.find((m) => m.id === String(id)));
+      if (chosen.some((m) => !m)) throw new ExhibitError("A marker to combine is not on this exhibit (any more); reload the page.", "markerIds");
+      const plan = planCombine(chosen as ResolvedMarker[]);
+      if (!plan.ok) throw new ExhibitError(plan.message, "markerIds");
+      await (await markerOf(b, Number(plan.keepId))).update({ label: plan.label, text: plan.text }, { transaction });
+      for (const id of plan.removeIds) await cleanupAfterMarkerRemoval(Number(id), transaction);
+      await Marker.destroy({ where: { exhibitId: b.exhibit.id, id: plan.removeIds.map(Number) }, transaction });
+      return plan;
+    },
+    (plan) => ({ kept: Number(plan.keepId), removed: plan.removeIds.map(Number), label: plan.label }),
+  );
 }
 
 export function addInset(actor: Actor, slug: string, revision: number, inset: { olderMa: number; youngerMa: number; magnification: number; label: string }) {

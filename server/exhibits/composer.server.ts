@@ -1,8 +1,9 @@
 // The composer page's data, and its commands, one per intent of app/lib/exhibit/intents.ts: each runs the matching
 // change and returns the notice the designer sees after the redirect.
-import { formatAgeMa, formatLength, routeMediumOf, type ComposerCommand, type ComposerView } from "../../app/lib/exhibit/index.ts";
+import { formatAgeMa, formatLength, listWords, routeMediumOf, type ComposerCommand, type ComposerView } from "../../app/lib/exhibit/index.ts";
 import { toYears } from "../../app/lib/units/index.ts";
-import { addBoundaries, addCustom, addEvent, addInset, editMarker, removeInset, removeMarker, replaceRoute, updateSettings } from "./commands.server.ts";
+import { acknowledgeWarning, acknowledgementsFor } from "./warnings.server.ts";
+import { addBoundaries, addCustom, addEvent, addInset, combineMarkers, editMarker, removeInset, removeMarker, replaceRoute, updateSettings } from "./commands.server.ts";
 import { renderMarkdown } from "../markdown.server.ts";
 import { removeImage, setImage } from "../assets/attach.server.ts";
 import { impactFor, repinToCurrent } from "./impact.server.ts";
@@ -78,6 +79,14 @@ export async function runComposerCommand(actor: Actor, slug: string, command: Co
       const { number, newSigns } = await publish(reviewActorOf(actor), slug, revision);
       return `Published as publication ${number}${newSigns ? ` (${newSigns} new sign number${newSigns === 1 ? "" : "s"})` : ""}. Visitors now see this version.`;
     }
+    case "acknowledge-warning": {
+      const { result } = await acknowledgeWarning(actor, slug, revision, command.warningKey, command.reason);
+      return `Warning acknowledged${result.markers.length ? ` (markers ${listWords(result.markers.map((m) => String(m.number)))})` : ""}; the reviewer will read your reason.`;
+    }
+    case "combine-markers": {
+      const { result } = await combineMarkers(actor, slug, revision, command.markerIds);
+      return `Combined ${result.removeIds.length + 1} markers into one: “${result.label}”.`;
+    }
     case "repin": {
       const { result } = await repinToCurrent(actor, slug, revision);
       return `Re-pinned from ${result.from} to ${result.to}; ${result.moved} marker${result.moved === 1 ? "" : "s"} changed. The exhibit needs review again.`;
@@ -88,7 +97,7 @@ export async function runComposerCommand(actor: Actor, slug: string, command: Co
 /** The composer page's data: the preview is computed in the browser; the server adds the impact report and "how we know". */
 export async function composerView(organisationId: number, slug: string, canEdit: boolean): Promise<ComposerView> {
   const bundle = await requireBundle(organisationId, slug);
-  const [impact, decay] = await Promise.all([impactFor(bundle), howWeKnowFor(bundle)]);
+  const [impact, decay, acknowledgements] = await Promise.all([impactFor(bundle), howWeKnowFor(bundle), acknowledgementsFor(bundle.exhibit.id)]);
   const decayOf = new Map(bundle.markerRows.map((r) => [String(r.id), r.decaySystemId]));
   const e = bundle.exhibit;
   return {
@@ -100,6 +109,7 @@ export async function composerView(organisationId: number, slug: string, canEdit
     insetIds: bundle.insets.map((i) => i.id),
     intervals: bundle.intervals.map((i) => ({ name: i.name, rank: i.rank, baseMa: i.baseMa, topMa: i.topMa, color: i.color })),
     impact,
+    acknowledgements,
     canEdit,
   };
 }

@@ -8,7 +8,8 @@ import * as list from "../../app/routes/studio/exhibits.tsx";
 import * as scheduleRoute from "../../app/routes/studio/exhibits.$slug.schedule-csv.ts";
 import * as pointsRoute from "../../app/routes/studio/exhibits.$slug.points-geojson.ts";
 import * as compareRoute from "../../app/routes/editions.compare.tsx";
-import { AuditEvent, DatedEvent, DecaySystem, Exhibit, Marker, Membership, Organisation, User } from "../../db/models/index.ts";
+import { AuditEvent, DatedEvent, DecaySystem, Exhibit, Marker, Membership, Organisation, User, WarningAcknowledgement } from "../../db/models/index.ts";
+import { computeExhibit, isAcknowledged, standardDurations, withAcknowledgements } from "../../app/lib/exhibit/index.ts";
 import { readCsv } from "../../app/lib/timescale/csv.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle } from "../helpers/db.ts";
 
@@ -309,5 +310,112 @@ describe("the demo exhibits", () => {
     expect(after.body.impact).toBeNull();
     expect(after.body.edition.slug).toBe("ics-2024-12");
     expect(after.body.markers.find((m) => m.intervalName === "Cretaceous")!.ageMa).toBe(143.1);
+  });
+});
+
+describe("same-age markers, acknowledging and combining (issue 10)", () => {
+  const rope = { ...wall, title: "Acknowledge rope", spanOlderValue: "4567", mediumType: "rope", lengthValue: "46" };
+  const slug = "ack-rope";
+  async function warnings() {
+    const view = (await load(slug)).body;
+    const c = computeExhibit(view.spec, view.markers, standardDurations(80));
+    if (!c.ok) throw new Error(c.message);
+    return { view, warnings: c.result.warnings };
+  }
+  const ackRows = async () => WarningAcknowledgement.count({ where: { exhibitId: (await Exhibit.findOne({ where: { organisationId: org.id, slug } }))!.id } });
+
+  beforeAll(async () => {
+    expect((await create({ ...rope, slug })).status).toBe(302);
+    expect((await post(slug, { intent: "add-boundaries", rank: "eon", revision: String(await revisionOf(slug)) })).status).toBe(302);
+    expect((await post(slug, { intent: "add-boundaries", rank: "era", revision: String(await revisionOf(slug)) })).status).toBe(302);
+  });
+
+  it("says which markers share an age, by table number and label, with a stable key of their ids", async () => {
+    const { view, warnings: ws } = await warnings();
+    const same = ws.filter((w) => w.code === "markers-same-age");
+    // ICS 2024/12: the Archean and Eoarchean begin at 4031 Ma, the Proterozoic and Paleoproterozoic at 2500 Ma, the Phanerozoic and Paleozoic at 538.8 Ma.
+    expect(same.map((w) => w.markers.map((m) => m.label))).toEqual([
+      ["Base of the Archean", "Base of the Eoarchean"],
+      ["Base of the Proterozoic", "Base of the Paleoproterozoic"],
+      ["Base of the Phanerozoic", "Base of the Paleozoic"],
+    ]);
+    const archean = view.markers.find((m) => m.intervalName === "Archean")!;
+    const eoarchean = view.markers.find((m) => m.intervalName === "Eoarchean")!;
+    expect(same[0].key).toBe(`markers-same-age:${[archean.id, eoarchean.id].sort((a, b) => Number(a) - Number(b)).join(",")}`);
+    expect(same[0].markers.map((m) => m.number)).toEqual([archean.number, eoarchean.number]);
+    expect(same[0].message).toContain(`Markers ${archean.number} “Base of the Archean” and ${eoarchean.number} “Base of the Eoarchean” have the same age (4.031 billion years ago)`);
+  });
+
+  it.each([
+    [{ warningKey: "markers-same-age:1,2", reason: "" }, "reason", /Say why this warning is acceptable/],
+    [{ warningKey: "markers-same-age:1,2", reason: "short" }, "reason", /at least 10 characters/],
+    [{ warningKey: "markers-same-age:1,2", reason: "x".repeat(1001) }, "reason", /under 1,000 characters/],
+    [{ warningKey: "", reason: "The signs share one post." }, "warningKey", /lost which warning/],
+    [{ warningKey: "markers-too-close:999998,999999", reason: "The signs share one post." }, "warningKey", /not on this exhibit any more/],
+  ])("refuses acknowledging %o with a message on %s, storing nothing", async (fields, field, message) => {
+    const rev = await revisionOf(slug);
+    const res = await post(slug, { intent: "acknowledge-warning", revision: String(rev), ...fields });
+    expect(res.status).toBe(400);
+    expect((res.body as Body).fields?.[field]).toMatch(message);
+    expect(await ackRows()).toBe(0);
+    expect(await revisionOf(slug)).toBe(rev);
+  });
+
+  it("stores an acknowledgement with its reason, revision-checked and audited; the composer shows it", async () => {
+    const { warnings: ws } = await warnings();
+    const w = ws.find((x) => x.code === "markers-same-age")!;
+    const rev = await revisionOf(slug);
+    const stale = await post(slug, { intent: "acknowledge-warning", revision: String(rev - 1), warningKey: w.key, reason: "The two signs share one post." });
+    expect(stale.status).toBe(409);
+    expect(await ackRows()).toBe(0);
+    const res = await post(slug, { intent: "acknowledge-warning", revision: String(rev), warningKey: w.key, reason: "The two signs share one post." });
+    expect(res.status).toBe(302);
+    expect(await revisionOf(slug)).toBe(rev + 1);
+    const { view, warnings: after } = await warnings();
+    expect(view.acknowledgements).toEqual([expect.objectContaining({ warningKey: w.key, reason: "The two signs share one post.", revision: rev + 1 })]);
+    const shown = withAcknowledgements(after, view.acknowledgements);
+    expect(shown.filter((x) => x.acknowledgement).map((x) => x.key)).toEqual([w.key]);
+    expect(isAcknowledged(w, view.acknowledgements)).toBe(true);
+    const audit = await AuditEvent.findOne({ where: { action: "exhibit.warnings.acknowledge" }, order: [["id", "DESC"]] });
+    expect(audit!.details).toMatchObject({ warningKey: w.key, reason: "The two signs share one post." });
+  });
+
+  it("combines same-age markers into one labelled with every name; the old warning and its acknowledgement no longer apply", async () => {
+    const { view, warnings: ws } = await warnings();
+    const w = ws.find((x) => x.code === "markers-same-age")!;
+    const before = await Marker.count({ where: { exhibitId: (await Exhibit.findOne({ where: { organisationId: org.id, slug } }))!.id } });
+    const rev = await revisionOf(slug);
+    const res = await post(slug, { intent: "combine-markers", revision: String(rev), markerIds: w.pointIds.join(",") });
+    expect(res.status).toBe(302);
+    const { view: after, warnings: now } = await warnings();
+    expect(after.markers).toHaveLength(before - 1);
+    const kept = after.markers.find((m) => m.ageMa === 4031)!;
+    expect(kept).toMatchObject({ label: "Base of the Archean and Eoarchean", intervalName: "Archean", kind: "boundary" });
+    expect(now.some((x) => x.key === w.key)).toBe(false);
+    expect(withAcknowledgements(now, after.acknowledgements).some((x) => x.acknowledgement)).toBe(false); // stored, but its warning is gone
+    expect(now.filter((x) => x.code === "markers-same-age")).toHaveLength(2);
+    const audit = await AuditEvent.findOne({ where: { action: "exhibit.markers.combine" }, order: [["id", "DESC"]] });
+    expect(audit!.details).toMatchObject({ label: "Base of the Archean and Eoarchean", kept: Number(kept.id) });
+    // adding every era again does not bring the Eoarchean back as its own marker
+    const again = await post(slug, { intent: "add-boundaries", rank: "era", revision: String(await revisionOf(slug)) });
+    expect((again.body as Body).fields?.rank).toMatch(/Every era base is already a marker/);
+    void view;
+  });
+
+  it.each([
+    ["one marker", (ids: string[]) => ids.slice(0, 1).join(","), /at least two markers/],
+    ["markers of different ages", (ids: string[]) => ids.join(","), /Only markers of the same age can be combined/],
+    ["a marker of another exhibit", () => "999998,999999", /not on this exhibit/],
+    ["the same marker twice", (ids: string[]) => `${ids[0]},${ids[0]}`, /named twice/],
+  ])("refuses to combine %s, changing nothing", async (_what, pick, message) => {
+    const { view } = await warnings();
+    const ids = view.markers.slice(0, 2).map((m) => m.id);
+    const rev = await revisionOf(slug);
+    const count = await Marker.count();
+    const res = await post(slug, { intent: "combine-markers", revision: String(rev), markerIds: pick(ids) });
+    expect(res.status).toBe(400);
+    expect((res.body as Body).fields?.markerIds).toMatch(message);
+    expect(await Marker.count()).toBe(count);
+    expect(await revisionOf(slug)).toBe(rev);
   });
 });

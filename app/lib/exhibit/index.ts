@@ -13,3 +13,4 @@ export * from "./draft";
 export * from "./view";
 export * from "./new-exhibit";
 export * from "./acknowledgements";
+export * from "./combine";

@@ -12,6 +12,7 @@ import {
   RevisionSchema,
   SettingsSchema,
 } from "./forms";
+import { AcknowledgeWarningSchema } from "./acknowledgements";
 import { ImageWordsSchema, MarkerImageSchema, RemoveImageSchema } from "../images";
 
 const intent = <const I extends string>(name: I) => ({ intent: z.literal(name), revision: RevisionSchema });
@@ -34,8 +35,25 @@ export const COMPOSER_INTENTS = [
   "remove-image",
   "submit-for-review",
   "publish",
+  "acknowledge-warning",
+  "combine-markers",
 ] as const;
 export type ComposerIntent = (typeof COMPOSER_INTENTS)[number];
+
+const COMBINE_TWO = "Choose at least two markers of the same age to combine.";
+/** Marker ids as the combine form posts them: "137,140". */
+const MarkerIdsSchema = z.string({ error: COMBINE_TWO }).transform((v, ctx) => {
+  const parts = v.split(",").map((x) => x.trim()).filter(Boolean);
+  const ids = parts.map(Number);
+  const fail = (message: string) => {
+    ctx.addIssue({ code: "custom", message });
+    return z.NEVER;
+  };
+  if (ids.length < 2 || ids.some((n) => !Number.isSafeInteger(n) || n <= 0)) return fail(COMBINE_TWO);
+  if (ids.length > 100) return fail("Combine at most 100 markers at once.");
+  if (new Set(ids).size !== ids.length) return fail("A marker is named twice; choose each marker once.");
+  return ids;
+});
 
 export const NO_ROUTE_FILE = "Upload the new route as a GeoJSON or GPX file.";
 
@@ -66,6 +84,8 @@ export const ComposerCommandSchema = z.discriminatedUnion(
     RemoveImageSchema.safeExtend(intent("remove-image")),
     z.object(intent("submit-for-review")),
     z.object(intent("publish")),
+    AcknowledgeWarningSchema.safeExtend(intent("acknowledge-warning")),
+    z.object({ ...intent("combine-markers"), markerIds: MarkerIdsSchema }),
   ],
   { error: "Unknown action." },
 );
