@@ -113,6 +113,21 @@ describe("automatic checks, failing and passing on purpose", () => {
     expect((await submit(slug)).status).toBe(400);
   });
 
+  it("a legibility warning is a warning until acknowledged with a reason; acknowledging an exhibit in review returns it to draft", async () => {
+    const slug = await create("check-ack");
+    await addBoundaries(slug);
+    const before = (await reviewPage(slug, who.reviewer.cookie)).body.report.results.filter((r) => r.kind === "legibility");
+    const open = before.find((r) => r.status === "warning")!;
+    expect(open.message).toMatch(/Resolve it \(an inset, fewer markers\) or acknowledge it with a reason\.$/);
+    expect((await submit(slug)).status).toBe(302);
+    const res = await post(slug, { intent: "acknowledge-warning", warningKey: open.warningKey!, reason: "The rope is for a talk; the guide says this one aloud.", revision: String((await exhibitRow(slug)).revision) }, who.designer.cookie);
+    expect(res.status).toBe(302);
+    expect((await exhibitRow(slug)).status).toBe("draft");
+    const after = (await reviewPage(slug, who.reviewer.cookie)).body.report.results.find((r) => r.warningKey === open.warningKey)!;
+    expect(after.status).toBe("pass");
+    expect(after.message).toMatch(/^Acknowledged: .* Reason given: “The rope is for a talk; the guide says this one aloud\.”\.$/);
+  });
+
   it("an inset must state its magnification; a marker outside the span fails", async () => {
     const slug = await create("check-inset");
     const e = await exhibitRow(slug);
