@@ -76,21 +76,44 @@ describe("the exhibit composer", () => {
     await page.getByText("Added “Boathouse built”.").waitFor();
     await shot(page, "composer-04-markers");
 
-    // The preview warns; the suggested inset is one click away.
-    const warning = page.getByText("markers too close:", { exact: false }).first();
+    // The preview warns, naming the markers by table number with links to their rows; the suggested
+    // inset is one click away.
+    const warning = page.getByText("Markers too close together:", { exact: false }).first();
     await warning.waitFor();
     await warning.scrollIntoViewIfNeeded();
     await shot(page, "composer-05-warning");
+    const rowLink = page.locator("#warnings a[href^='#marker-']").first();
+    const target = (await rowLink.getAttribute("href"))!;
+    await rowLink.click();
+    await expect(page.locator(target).isVisible()).resolves.toBe(true);
     const insetsBefore = await page.locator("#insets-h").innerText();
     await page.getByRole("button", { name: /Add the suggested inset/ }).first().click();
     await page.getByText(/^Inset added: /).waitFor();
     expect(await page.locator("#insets-h").innerText()).not.toBe(insetsBefore);
     await shot(page, "composer-06-inset-added");
 
-    // The preview follows the settings as they are typed, before saving.
-    await page.locator("input[name=spanOlderValue]").fill("541");
-    await page.getByText("Showing unsaved settings", { exact: false }).waitFor();
-    await page.locator("input[name=spanOlderValue]").fill("4567");
+    // A warning acknowledged with a reason: too short a reason is refused beside its form, then kept.
+    const firstWarning = page.locator("#warnings li[data-warning-key]").first();
+    const key = (await firstWarning.getAttribute("data-warning-key"))!;
+    await firstWarning.getByText("Acknowledge with a reason…").click();
+    await firstWarning.locator("textarea[name=reason]").fill("ok");
+    await firstWarning.getByRole("button", { name: "Acknowledge" }).click();
+    await page.locator(`#warnings li[data-warning-key="${key}"]`).getByText("Say why this warning is acceptable", { exact: false }).waitFor();
+    await page.locator(`#warnings li[data-warning-key="${key}"] textarea[name=reason]`).fill("The two signs share one post; both names are printed on it.");
+    await page.locator(`#warnings li[data-warning-key="${key}"]`).getByRole("button", { name: "Acknowledge" }).click();
+    await page.locator(`#warnings li[data-warning-key="${key}"]`).getByText("The two signs share one post", { exact: false }).waitFor();
+    await shot(page, "composer-06b-acknowledged");
+
+    // The preview follows the settings as they are typed, before saving, and stays in view above them.
+    const span = page.locator("input[name=spanOlderValue]");
+    await span.scrollIntoViewIfNeeded();
+    await span.fill("541");
+    await page.getByText("Unsaved settings shown", { exact: false }).waitFor();
+    const pane = await page.getByTestId("preview-pane").boundingBox();
+    const field = await span.boundingBox();
+    expect(pane && field && pane.y >= 0 && pane.y + pane.height <= field.y).toBe(true);
+    await shot(page, "composer-06c-typing-with-preview");
+    await span.fill("4567");
 
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "Marker schedule (CSV)" }).click()]);
     const file = path.join(SHOTS, "..", "lakeside-schedule.csv");
@@ -111,10 +134,10 @@ describe("the exhibit composer", () => {
     await page.getByRole("link", { name: "The corridor of the Phanerozoic" }).waitFor();
     await shot(page, "composer-07-list-recheck");
     await page.getByRole("link", { name: "The corridor of the Phanerozoic" }).click();
-    await page.getByRole("heading", { name: /Edition impact: ICS 2023\/09 → ICS 2024\/12/ }).waitFor();
-    await page.getByRole("heading", { name: /Edition impact/ }).scrollIntoViewIfNeeded();
+    await page.getByRole("heading", { name: /Impact of the newer chart edition: ICS 2023\/09 → ICS 2024\/12/ }).waitFor();
+    await page.getByRole("heading", { name: /Impact of the newer chart edition/ }).scrollIntoViewIfNeeded();
     await shot(page, "composer-08-impact");
     // A reviewer reads; only designers change exhibits.
-    expect(await page.getByRole("button", { name: /Re-pin/ }).count()).toBe(0);
+    expect(await page.getByRole("button", { name: /re-pin/i }).count()).toBe(0);
   });
 });

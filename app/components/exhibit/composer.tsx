@@ -16,7 +16,7 @@ import { MarkersTable } from "~/components/exhibit/markers-table";
 import { CoverImageSection } from "~/components/exhibit/marker-image";
 import { DurationsSection, PreviewPane, RouteSection } from "~/components/exhibit/preview";
 import { SettingsForm } from "~/components/exhibit/settings-form";
-import { WarningsSection, warningKeyOf, type Acknowledgement } from "~/components/exhibit/warnings";
+import { WarningsSection } from "~/components/exhibit/warnings";
 import { bandsFor, computeExhibit, draftOf, routeCacheFor, specOfDraft, standardDurations, type ComposerRefusal, type ComposerView, type SettingsDraft } from "~/lib/exhibit";
 import { toYears } from "~/lib/units";
 
@@ -27,11 +27,6 @@ export function Composer({ view, refusal, children }: { view: ComposerView; refu
 
 const STATUS_WORDS: Record<string, string> = { draft: "Draft", in_review: "In review", "in-review": "In review", changes_requested: "Changes requested", approved: "Approved", published: "Published" };
 
-/** Acknowledged warnings as the server lists them (when it does). */
-function acknowledgementsOf(view: ComposerView): Map<string, Acknowledgement> {
-  const list = (view as ComposerView & { acknowledgements?: ({ warningKey: string } & Acknowledgement)[] }).acknowledgements ?? [];
-  return new Map(list.map((a) => [a.warningKey, a]));
-}
 
 function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal?: ComposerRefusal; children?: React.ReactNode }) {
   const { exhibit, edition, markers, intervals, impact, canEdit, decaySystems } = view;
@@ -49,9 +44,9 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
   const preview = useMemo(() => computeExhibit(spec, markers, standardDurations(Math.max(1, Number(shownLife) || 80)), routeCache), [spec, markers, shownLife, routeCache]);
   const units = shownDraft.unitsPreference;
   const result = preview.ok ? preview.result : null;
-  const acknowledged = useMemo(() => acknowledgementsOf(view), [view]);
+  const acknowledged = useMemo(() => new Map(view.acknowledgements.map((a) => [a.warningKey, a])), [view.acknowledgements]);
   const warnings = result?.warnings ?? [];
-  const openWarnings = warnings.filter((w) => !acknowledged.has(warningKeyOf(w)));
+  const openWarnings = warnings.filter((w) => !acknowledged.has(w.key));
   const flagged = useMemo(() => new Set(openWarnings.filter((w) => w.code.startsWith("markers-")).flatMap((w) => w.pointIds)), [openWarnings]);
   const olderMa = toYears(spec.spanOlder) / 1e6;
   const youngerMa = toYears(spec.spanYounger) / 1e6;
@@ -97,7 +92,7 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
 
         {result ? (
           <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
-            <WarningsSection warnings={warnings} markers={markers} acknowledged={acknowledged} canEdit={canEdit} revision={revision} refusal={refusal} />
+            <WarningsSection warnings={warnings} acknowledged={acknowledged} canEdit={canEdit} revision={revision} refusal={refusal} />
             <DurationsSection result={result} units={units} lifeYears={lifeYears} onLifeYears={setLifeYears} />
           </div>
         ) : null}

@@ -61,7 +61,7 @@ export function DurationsSection({ result, units, lifeYears, onLifeYears }: { re
     <section className="card" aria-labelledby="durations-h">
       <h2 id="durations-h" className="text-xl">Durations on this scale</h2>
       <p className="mt-1 font-sans text-xs text-ink-soft">
-        Smallest visible length {formatLength(result.scale.legibility.minVisibleMetres, units)}, smallest spacing between markers {formatLength(result.scale.legibility.minSpacingMetres, units)} ({result.scale.legibility.source}).
+        Smallest visible length {formatLength(result.scale.legibility.minVisibleMetres, units, result.scale.legibility.minVisibleMetres / 10)}, smallest spacing between markers {formatLength(result.scale.legibility.minSpacingMetres, units, result.scale.legibility.minSpacingMetres / 10)} ({result.scale.legibility.source}).
       </p>
       <label className="mt-2 flex flex-wrap items-center gap-2 font-sans text-sm">
         <span>Your own life, in years:</span>

@@ -76,8 +76,6 @@ export function ScaleStrip({
   const axisY = stripY + stripH;
   const bracketsY = axisY + 34;
   const insetsY = bracketsY + result.insets.length * 12 + 12;
-  const insetBlock = INSET_BAR_H + 16 + 2 * ROW_H + 8;
-  const height = insetsY + result.insets.length * insetBlock + 4;
 
   const drawn = useMemo(() => {
     const x = scaleLinear().domain([0, scale.totalMetres]).range([PAD, W - PAD]);
@@ -102,10 +100,18 @@ export function ScaleStrip({
       const insetLabels = layoutLabels(inside.map((m) => ({ id: m.id, text: String(m.number), x: ix(m.ageMa * 1e6) })), { ...LAYOUT, rows: 2, width: W });
       return { inset, a: x(inset.mainFromOlderEndMetres), b: x(inset.mainToOlderEndMetres), labels: insetLabels };
     });
-    return { names, labels, visibleBands, ticks, insets, x };
+    // Each inset's block is as tall as its label rows need.
+    const insetTops: number[] = [];
+    let next = insetsY;
+    for (const ins of insets) {
+      insetTops.push(next);
+      next += INSET_BAR_H + 10 + (ins.labels.length ? Math.max(...ins.labels.map((l) => l.row)) + 1 : 0) * ROW_H + 10;
+    }
+    return { names, labels, visibleBands, ticks, insets, x, insetTops, height: next + 4 };
     // rankRows is derived from bands
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [W, scale, markers, bands, result.points, result.insets, units]);
+  }, [W, scale, markers, bands, result.points, result.insets, units, insetsY]);
+  const height = drawn.height;
 
   const start = `Start (older end): ${scale.olderYears >= 1e6 ? `${(scale.olderYears / 1e6).toLocaleString("en-GB")} million years ago` : `${scale.olderYears.toLocaleString("en-GB")} years ago`}`;
   const end = `End (younger end): ${scale.youngerYears === 0 ? "the present" : `${scale.youngerYears.toLocaleString("en-GB")} years ago`}`;
@@ -153,7 +159,7 @@ export function ScaleStrip({
         </g>
         {drawn.insets.map(({ inset, a, b, labels }, k) => {
           const by = bracketsY + k * 12;
-          const top = insetsY + k * insetBlock;
+          const top = drawn.insetTops[k];
           const letter = insetLetter(k);
           const right = Math.max(b, a + 3);
           const letterX = right + 10 > W - PAD ? a - 4 : right + 4;

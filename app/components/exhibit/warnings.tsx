@@ -4,16 +4,10 @@
 import { useState } from "react";
 import { Form } from "react-router";
 import { IntentFields } from "~/components/exhibit/form-bits";
-import type { ResolvedMarker } from "~/lib/exhibit";
+import type { WarningAcknowledgement } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
 
-type Warning = ScaleResult["warnings"][number] & { key?: string };
-
-export interface Acknowledgement {
-  reason: string;
-  by?: string | null;
-  at?: string | null;
-}
+type Warning = ScaleResult["warnings"][number];
 
 const TITLES: Record<string, string> = {
   "markers-same-age": "Same age, same spot",
@@ -23,42 +17,32 @@ const TITLES: Record<string, string> = {
   "inset-longer-than-medium": "Inset longer than the exhibit",
 };
 
-/** The warning's stable key: its code and the ids it is about (the engine's own key when it gives one). */
-export function warningKeyOf(w: Warning): string {
-  if (w.key) return w.key;
-  const ids = w.code === "duration-too-small" ? (w.durationIds ?? []) : w.code === "inset-longer-than-medium" ? [w.insetId ?? ""] : w.pointIds;
-  return `${w.code}:${[...ids].sort().join(",")}`;
-}
-
 export function WarningsSection({
   warnings,
-  markers,
   acknowledged,
   canEdit,
   revision,
   refusal,
 }: {
   warnings: Warning[];
-  markers: ResolvedMarker[];
-  acknowledged: ReadonlyMap<string, Acknowledgement>;
+  acknowledged: ReadonlyMap<string, WarningAcknowledgement>;
   canEdit: boolean;
   revision: number;
   refusal?: { intent: string; error: string; fields: Record<string, string> };
 }) {
-  const byId = new Map(markers.map((m) => [m.id, m]));
   // Which acknowledge form was sent last, so that a refusal shows beside that one only.
   const [sentKey, setSentKey] = useState<string | null>(null);
-  const open = warnings.filter((w) => !acknowledged.has(warningKeyOf(w)));
-  const done = warnings.filter((w) => acknowledged.has(warningKeyOf(w)));
+  const open = warnings.filter((w) => !acknowledged.has(w.key));
+  const done = warnings.filter((w) => acknowledged.has(w.key));
   return (
     <section className="card" id="warnings" aria-labelledby="warnings-h">
       <h2 id="warnings-h" className="text-xl">Legibility warnings ({open.length}{done.length ? `, ${done.length} acknowledged` : ""})</h2>
       {warnings.length === 0 ? <p className="mt-2 font-sans text-sm text-ok">No crowded markers or invisible durations.</p> : null}
       <ul className="mt-3 space-y-3">
         {[...open, ...done].map((w) => {
-          const key = warningKeyOf(w);
+          const key = w.key;
           const ack = acknowledged.get(key);
-          const rows = w.pointIds.map((id) => byId.get(id)).filter((m): m is ResolvedMarker => Boolean(m));
+          const rows = w.markers;
           const ackError = refusal?.intent === "acknowledge-warning" && sentKey === key ? (refusal.fields.reason ?? refusal.error) : undefined;
           const combineError = refusal?.intent === "combine-markers" && sentKey === key ? refusal.error : undefined;
           return (
@@ -74,7 +58,7 @@ export function WarningsSection({
                   ))}
                 </p>
               ) : null}
-              {ack ? <p className="mt-1 text-ink-soft">Reason{ack.by ? ` (${ack.by})` : ""}: {ack.reason}</p> : null}
+              {ack ? <p className="mt-1 text-ink-soft">Reason given{ack.by ? ` by ${ack.by}` : ""} (saved version {ack.revision}): {ack.reason}</p> : null}
               {canEdit && !ack ? (
                 <div className="mt-2 flex flex-wrap items-start gap-2">
                   {w.suggestedInset ? (
