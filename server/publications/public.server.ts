@@ -17,7 +17,7 @@ export const NUMBERED_CACHE_CONTROL = "public, max-age=31536000, immutable";
 
 const NOT_PUBLISHED = "No published exhibit at this address. Drafts are never public; the exhibit may not be published yet.";
 
-interface Found {
+export interface Found {
   exhibitId: number;
   org: string;
   slug: string;
@@ -26,7 +26,7 @@ interface Found {
 }
 
 /** The exhibit behind /:org/:slug, following frozen-slug redirects; only exhibits with a publication. */
-async function findPublished(org: string, slug: string): Promise<Found | null> {
+export async function findPublished(org: string, slug: string): Promise<Found | null> {
   const rows = await sequelize.query<{ exhibitId: number; org: string; slug: string }>(
     `WITH o AS (
        SELECT id, slug FROM organisations WHERE slug = $1

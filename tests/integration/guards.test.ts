@@ -36,6 +36,7 @@ const EXPECTED: Record<string, { loader?: Row; action?: Row }> = {
   "exhibits.$slug.tsx": { loader: [302, 404, 404, 404, 404, 404, 403, 403], action: [302, 403, 400, 403, 403, 400, 403, 403] },
   "exhibits.$slug.schedule-csv.ts": { loader: [302, 404, 404, 404, 404, 404, 403, 403] },
   "exhibits.$slug.points-geojson.ts": { loader: [302, 404, 404, 404, 404, 404, 403, 403] },
+  "exhibits.$slug.points-gpx.ts": { loader: [302, 404, 404, 404, 404, 404, 403, 403] },
   "exhibits.$slug.review.tsx": { loader: [302, 404, 404, 404, 404, 404, 403, 403], action: [302, 403, 400, 400, 403, 400, 403, 403] },
   "exhibits.$slug.revisions.tsx": { loader: [302, 404, 404, 404, 404, 404, 403, 403] },
   "exhibits.$slug.revisions.compare.tsx": { loader: [302, 404, 404, 404, 404, 404, 403, 403] },
