@@ -1,22 +1,27 @@
 // How lengths and ages read in the composer and on exports, in the exhibit's units preference.
 import type { UnitsPreference } from "./types";
+import { formatFixed, formatScientific } from "../scale/format";
+import { METRES_PER_LENGTH_UNIT, type LengthUnit } from "../units";
 
-function fmt(x: number, decimals: number) {
-  return x.toLocaleString("en-GB", { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
-}
-
-/** A length for tables: metric picks km/m/cm/mm by size; US customary picks mi/ft/in. */
+/**
+ * A length for tables and sentences: metric picks km/m/cm/mm by size; US customary mi/ft/in. Shown
+ * to the decimals of `stepMetres` (at most three), but never as a row of zeros: a small non-zero
+ * length that would show as 0 keeps two significant figures ("0.0031 in" for an 80-year life on a 4.567 km trail), and
+ * below a millionth of the unit it is written in scientific words ("3.1 × 10⁻⁷ in").
+ */
 export function formatLength(metres: number, units: UnitsPreference, stepMetres = 0.001): string {
   const m = Math.abs(metres);
-  if (units === "us") {
-    if (m >= 1609.344) return `${fmt(metres / 1609.344, decimalsFor(stepMetres / 1609.344))} mi`;
-    if (m >= 0.3048) return `${fmt(metres / 0.3048, decimalsFor(stepMetres / 0.3048))} ft`;
-    return `${fmt(metres / 0.0254, decimalsFor(stepMetres / 0.0254, 2))} in`;
+  let unit: LengthUnit;
+  if (units === "us") unit = m >= METRES_PER_LENGTH_UNIT.mi ? "mi" : m >= METRES_PER_LENGTH_UNIT.ft ? "ft" : "in";
+  else unit = m >= 1000 ? "km" : m >= 1 ? "m" : m >= 0.01 ? "cm" : "mm";
+  const v = metres / METRES_PER_LENGTH_UNIT[unit];
+  let decimals = decimalsFor(stepMetres / METRES_PER_LENGTH_UNIT[unit], unit === "mm" || unit === "in" ? 2 : 3);
+  if (v !== 0 && Math.abs(v) < 1) {
+    const twoFigures = 1 - Math.floor(Math.log10(Math.abs(v)));
+    if (twoFigures > 6) return `${formatScientific(v, 2)} ${unit}`;
+    if (Number(Math.abs(v).toFixed(decimals)) === 0) decimals = Math.max(decimals, twoFigures);
   }
-  if (m >= 1000) return `${fmt(metres / 1000, decimalsFor(stepMetres / 1000))} km`;
-  if (m >= 1) return `${fmt(metres, decimalsFor(stepMetres))} m`;
-  if (m >= 0.01) return `${fmt(metres * 100, decimalsFor(stepMetres * 100))} cm`;
-  return `${fmt(metres * 1000, decimalsFor(stepMetres * 1000, 2))} mm`;
+  return `${formatFixed(v, decimals)} ${unit}`;
 }
 
 /** Decimals that show a step of this size (in the display unit), at most `max`. */

@@ -1,6 +1,7 @@
 /**
  * Ruler ticks along the exhibit at round lengths of its unit system: metric ticks at 1, 2 or 5 ×
- * 10^k of mm, m or km; US ticks at 1, 2 or 5 × 10^k inches, feet or miles (and 3 or 6 inches),
+ * 10^k of mm, cm, m or km; US ticks at 1, 2 or 5 × 10^k feet or miles (from 10 ft, 2 mi), or at
+ * ⅛, ¼, ½, 1, 2, 3, 6 or 12 inches,
  * never at converted metric figures (3.3, 6.6, 9.8 ft).
  */
 import { METRES_PER_LENGTH_UNIT, pow10, type LengthUnit, type UnitSystem } from "../units";
@@ -21,17 +22,18 @@ export interface Ruler {
 }
 
 function niceSteps(unit: LengthUnit): number[] {
+  // inches the way a tape reads: fractions of an inch, then 3 and 6 inches (a quarter and a half foot)
+  if (unit === "in") return [0.125, 0.25, 0.5, 1, 2, 3, 6, 12];
   const out: number[] = [];
   for (let k = -3; k <= 6; k++) for (const m of [1, 2, 5]) out.push(m * pow10(k));
-  if (unit === "in") out.push(3, 6); // a quarter and half of a foot
-  return out.sort((a, b) => a - b);
+  return out;
 }
 
 /** The unit ticks are written in: the largest of the system's units that leaves at least one tick step of 1. */
 function rulerUnit(totalMetres: number, system: UnitSystem): LengthUnit {
   if (system === "us") {
     if (totalMetres >= 2 * METRES_PER_LENGTH_UNIT.mi) return "mi";
-    if (totalMetres >= 2 * METRES_PER_LENGTH_UNIT.ft) return "ft";
+    if (totalMetres >= 10 * METRES_PER_LENGTH_UNIT.ft) return "ft";
     return "in";
   }
   if (totalMetres >= 2000) return "km";
