@@ -5,7 +5,7 @@ import { diffRevisions, type RevisionDiff } from "../../app/lib/review/diff.ts";
 import { CompareQuerySchema, type ReviewCommand } from "../../app/lib/review/forms.ts";
 import { parseForm } from "../../app/lib/validation.ts";
 import type { ExhibitStatus } from "../../app/lib/review/lifecycle.ts";
-import type { CheckReport } from "../../app/lib/review/types.ts";
+import type { CheckReport, ReviewComment as CommentView } from "../../app/lib/review/types.ts";
 import { formatAgeMa } from "../../app/lib/exhibit/display.ts";
 import { Exhibit, ExhibitComment, ExhibitReview, Organisation, Publication, User } from "../../db/models/index.ts";
 import { EXHIBIT_NOT_FOUND, ExhibitError } from "../exhibits/load.server.ts";
@@ -14,17 +14,6 @@ import { addComment, resolveComment } from "./comments.server.ts";
 import { approve, requestChanges, type ReviewActor } from "./lifecycle.server.ts";
 import { editorsSincePublication, revisionContentAt, revisionsOf } from "./revisions.server.ts";
 
-export interface CommentView {
-  id: number;
-  markerId: number | null;
-  markerLabel: string | null;
-  author: string;
-  body: string;
-  revision: number;
-  at: string;
-  resolved: { by: string; at: string } | null;
-  replies: CommentView[];
-}
 
 export interface ReviewView {
   exhibit: { title: string; slug: string; status: ExhibitStatus; revision: number; approvedRevision: number | null; updatedAt: string; organisation: string };

@@ -1,17 +1,7 @@
 // Review comments: threads on the exhibit or on one marker, replies, and "resolve" for designers.
 import { Form } from "react-router";
+import type { ReviewComment as CommentItem } from "~/lib/review/types";
 
-export interface CommentItem {
-  id: number;
-  markerId: number | null;
-  markerLabel: string | null;
-  author: string;
-  body: string;
-  revision: number;
-  at: string;
-  resolved: { by: string; at: string } | null;
-  replies: CommentItem[];
-}
 
 const when = (iso: string) => `${iso.slice(0, 16).replace("T", " ")} UTC`;
 

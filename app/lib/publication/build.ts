@@ -61,7 +61,7 @@ function ageText(m: ResolvedMarker): string {
 /** Elevation at a distance along a route whose vertices carry a third coordinate, by linear interpolation. */
 function elevationAt(coords: number[][], cumulative: number[] | null, distance: number): number | null {
   if (!cumulative || coords.some((c) => c.length < 3 || !Number.isFinite(c[2]))) return null;
-  let i = cumulative.findIndex((d) => d >= distance);
+  const i = cumulative.findIndex((d) => d >= distance);
   if (i <= 0) return coords[i === 0 ? 0 : coords.length - 1][2];
   const t = (distance - cumulative[i - 1]) / (cumulative[i] - cumulative[i - 1] || 1);
   return Number((coords[i - 1][2] + t * (coords[i][2] - coords[i - 1][2])).toFixed(1));

@@ -96,3 +96,16 @@ export interface CheckReport {
   /** Set when the organisation's current edition is another one ("needs re-check"). */
   recheck: { edition: { slug: string; label: string }; moved: number; missing: number } | null;
 }
+
+/** A review comment as the pages show it: on the exhibit or one marker, with its replies. */
+export interface ReviewComment {
+  id: number;
+  markerId: number | null;
+  markerLabel: string | null;
+  author: string;
+  body: string;
+  revision: number;
+  at: string;
+  resolved: { by: string; at: string } | null;
+  replies: ReviewComment[];
+}

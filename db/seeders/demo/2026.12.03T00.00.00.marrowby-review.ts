@@ -25,7 +25,7 @@ import { revisionContent } from "../../../app/lib/review/content.ts";
 import type { Interval } from "../../../app/lib/timescale/types.ts";
 import type { Migration } from "../../migrator.ts";
 import { DEMO_PASSWORD } from "./2026.12.01T00.00.00.marrowby-team.ts";
-import { readSeededEdition, SEEDED_EDITIONS } from "../reference/2026.12.01T01.00.00.ics-editions.ts";
+import { readSeededEdition, type SEEDED_EDITIONS } from "../reference/2026.12.01T01.00.00.ics-editions.ts";
 
 export const DEMO_CURATOR = { email: "curator@marrowby.example", name: "Cal Moraine", roles: ["designer", "reviewer"] } as const;
 
