@@ -61,7 +61,7 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
     }
     geom.coordinates.forEach((part, j) => {
       const p = join(join(path, "coordinates"), j);
-      if (!Array.isArray(part)) out.issues.push({ path: p, message: "Each MultiLineString part must be an array of positions." });
+      if (!Array.isArray(part)) out.issues.push({ path: join(line.path, j), message: "Each MultiLineString part must be an array of positions." });
       else out.lines.push({ path: p, coords: part });
     });
   } else if (type === "Feature") {
@@ -120,22 +120,21 @@ export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteP
   for (const line of out.lines) {
     for (let j = 0; j < line.coords.length; j++) {
       const pos = line.coords[j];
-      // the path is spelled out only for an issue (10⁵ vertices: no string per valid vertex)
-      const p = () => join(line.path, j);
+      // the path is spelled out only for an issue (10⁵ vertices: no string, no closure per valid vertex)
       if (!Array.isArray(pos) || pos.length < 2) {
-        issues.push({ path: p(), message: "A position must be an array [longitude, latitude] (optionally with elevation)." });
+        issues.push({ path: join(line.path, j), message: "A position must be an array [longitude, latitude] (optionally with elevation)." });
       } else {
         const lon = pos[0];
         const lat = pos[1];
         if (typeof lon !== "number" || !Number.isFinite(lon)) {
-          issues.push({ path: join(p(), 0), message: "Longitude must be a finite number." });
+          issues.push({ path: join(join(line.path, j), 0), message: "Longitude must be a finite number." });
         } else if (lon < -180 || lon > 180) {
-          issues.push({ path: join(p(), 0), message: `Longitude ${lon} is outside −180…180 degrees.` });
+          issues.push({ path: join(join(line.path, j), 0), message: `Longitude ${lon} is outside −180…180 degrees.` });
         }
         if (typeof lat !== "number" || !Number.isFinite(lat)) {
-          issues.push({ path: join(p(), 1), message: "Latitude must be a finite number." });
+          issues.push({ path: join(join(line.path, j), 1), message: "Latitude must be a finite number." });
         } else if (lat < -90 || lat > 90) {
-          issues.push({ path: join(p(), 1), message: `Latitude ${lat} is outside −90…90 degrees.` });
+          issues.push({ path: join(join(line.path, j), 1), message: `Latitude ${lat} is outside −90…90 degrees.` });
         }
         coords[k] = lon as number;
         coords[k + 1] = lat as number;
