@@ -61,7 +61,7 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
     }
     geom.coordinates.forEach((part, j) => {
       const p = join(join(path, "coordinates"), j);
-      if (!Array.isArray(part)) out.issues.push({ path: join(line.path, j), message: "Each MultiLineString part must be an array of positions." });
+      if (!Array.isArray(part)) out.issues.push({ path: p, message: "Each MultiLineString part must be an array of positions." });
       else out.lines.push({ path: p, coords: part });
     });
   } else if (type === "Feature") {
