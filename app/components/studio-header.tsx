@@ -9,7 +9,7 @@ export function StudioHeader({ header, signInTo }: { header: StudioHeaderData | 
   return (
     <header className="border-b border-rule bg-white">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-4 py-3 sm:px-5">
-        <SiteNav label="Site" links={links} />
+        <SiteNav label={header ? "Studio" : "Site"} links={links} />
         {header ? <Account header={header} /> : (
           <Link to={`/login?redirectTo=${encodeURIComponent(signInTo ?? "/studio")}`} className="btn-quiet font-sans text-sm no-underline">Sign in</Link>
         )}

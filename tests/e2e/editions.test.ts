@@ -53,7 +53,10 @@ describe("chart editions in the browser", () => {
     await page.waitForURL(`${BASE}/studio`);
     await page.getByRole("link", { name: "Manage chart editions" }).waitFor();
     await shot("01-studio-home");
+    // One chart-editions area: the site navigation opens the editions, whose own tabs lead to managing them.
     await page.getByRole("navigation", { name: "Studio" }).getByRole("link", { name: "Chart editions" }).click();
+    await page.waitForURL(`${BASE}/editions`);
+    await page.getByRole("navigation", { name: "Chart editions" }).getByRole("link", { name: "Manage" }).click();
     await page.waitForURL(`${BASE}/studio/editions`);
     await page.getByRole("cell", { name: /ICS 2024\/12/ }).waitFor();
     await shot("02-manage-editions");

@@ -221,7 +221,7 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
       ) : null}
 
       <div className="mt-6 grid gap-6 lg:grid-cols-[3fr_2fr]">
-        <section className="card" aria-labelledby="upload-heading">
+        <section className="card min-w-0" aria-labelledby="upload-heading">
           <h2 id="upload-heading" className="text-xl">{hasProblems ? "Upload the corrected file" : preview ? "Upload a different file" : "Upload the file"}</h2>
           <p className="mb-4 mt-1 font-sans text-sm text-ink-soft">Nothing is saved at this step: you see a preview and every problem first. At most {Math.round(maxBytes / (1024 * 1024))} MB.</p>
           <Form method="post" encType="multipart/form-data" noValidate>
@@ -273,7 +273,7 @@ export default function ImportEdition({ loaderData, actionData }: Route.Componen
           </Form>
         </section>
 
-        <aside className="card font-sans text-sm" aria-labelledby="formats-heading">
+        <aside className="card min-w-0 font-sans text-sm" aria-labelledby="formats-heading">
           <h2 id="formats-heading" className="text-xl">Formats</h2>
           <p className="mt-2"><strong>CSV</strong> (UTF-8, one header line, one interval per line, quoted as RFC 4180). Every column is required, in any order:</p>
           <table className="mt-2 w-full text-left text-xs">
