@@ -59,7 +59,7 @@ export async function runComposerCommand(actor: Actor, slug: string, command: Co
       const r = await routeMediumOf(command.routeFile);
       if (!r.ok) throw new ExhibitError(r.message, "routeFile");
       await replaceRoute(actor, slug, revision, r.medium);
-      return `Route replaced by ${r.medium.sourceName} (${formatLength(r.medium.lengthMetres, "metric", 0.01)}); every marker moved with it.`;
+      return `Route replaced by ${r.medium.sourceName} (${formatLength(r.medium.lengthMetres, "metric", 0.01)}); every marker moved with it.${r.medium.note ? ` ${r.medium.note}` : ""}`;
     }
     case "set-marker-image":
     case "set-cover-image": {

@@ -21,7 +21,7 @@ export interface SettingsInput {
   minSpacingMm?: number;
 }
 
-export type RouteMediumInput = { kind: "route"; geometry: LineStringGeometry; lengthMetres: number; vertexCount: number; sourceName: string };
+export type RouteMediumInput = { kind: "route"; geometry: LineStringGeometry; lengthMetres: number; vertexCount: number; sourceName: string; /** Which tracks/routes of the file were used, when it holds several. */ note?: string };
 
 export type MediumInput = { kind: "length"; lengthValue: number; lengthUnit: LengthUnit; panelWidthValue?: number; panelWidthUnit?: LengthUnit } | RouteMediumInput;
 
@@ -36,7 +36,7 @@ export interface NewExhibitInput {
 export async function routeMediumOf(file: File): Promise<{ ok: true; medium: RouteMediumInput } | { ok: false; message: string }> {
   const r = readRouteFile(file.name, await file.text());
   if (!r.ok) return { ok: false, message: r.message };
-  return { ok: true, medium: { kind: "route", geometry: r.geometry, lengthMetres: r.lengthMetres, vertexCount: r.vertexCount, sourceName: file.name } };
+  return { ok: true, medium: { kind: "route", geometry: r.geometry, lengthMetres: r.lengthMetres, vertexCount: r.vertexCount, sourceName: file.name, ...(r.note ? { note: r.note } : {}) } };
 }
 
 export const NO_ROUTE_UPLOAD = "Upload the route as a GeoJSON or GPX file.";

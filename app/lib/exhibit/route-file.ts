@@ -4,7 +4,7 @@ import { prepareRoute } from "../geo/route";
 import type { LineStringGeometry } from "./types";
 
 export type RouteFileResult =
-  | { ok: true; geometry: LineStringGeometry; lengthMetres: number; vertexCount: number; format: "gpx" | "geojson" }
+  | { ok: true; geometry: LineStringGeometry; lengthMetres: number; vertexCount: number; format: "gpx" | "geojson"; note?: string }
   | { ok: false; message: string; issues: RouteIssue[] };
 
 export function readRouteFile(fileName: string, text: string): RouteFileResult {
@@ -29,5 +29,5 @@ export function readRouteFile(fileName: string, text: string): RouteFileResult {
   const coordinates: [number, number][] = [];
   for (let i = 0; i < c.length; i += 2) coordinates.push([Number(c[i].toFixed(8)), Number(c[i + 1].toFixed(8))]);
   const route = prepareRoute(coordinates.flat());
-  return { ok: true, geometry: { type: "LineString", coordinates }, lengthMetres: route.totalMetres, vertexCount: coordinates.length, format: isGpx ? "gpx" : "geojson" };
+  return { ok: true, geometry: { type: "LineString", coordinates }, lengthMetres: route.totalMetres, vertexCount: coordinates.length, format: isGpx ? "gpx" : "geojson", ...(parsed.note ? { note: parsed.note } : {}) };
 }

@@ -21,7 +21,8 @@ export interface RouteIssue {
 }
 
 export type RouteParseResult =
-  | { ok: true; coords: Float64Array; vertexCount: number }
+  /** `note`: which parts were used when the file holds several (tracks and routes, lines and points). */
+  | { ok: true; coords: Float64Array; vertexCount: number; note?: string }
   | { ok: false; issues: RouteIssue[] };
 
 export interface RouteParseOptions {
@@ -37,7 +38,15 @@ function isObject(x: unknown): x is Record<string, unknown> {
 interface Collector {
   lines: { path: string; coords: unknown[] }[];
   issues: RouteIssue[];
+  skippedPoints: number;
 }
+
+const LINE_TYPES = new Set<unknown>(["LineString", "MultiLineString"]);
+const POINT_TYPES = new Set<unknown>(["Point", "MultiPoint"]);
+const geometryTypeOf = (f: unknown): unknown => (isObject(f) ? (f.type === "Feature" && isObject(f.geometry) ? f.geometry.type : f.type) : undefined);
+
+/** "1 track", "3 routes". */
+const count = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
 
 function collectGeometry(geom: unknown, path: string, out: Collector): void {
   if (!isObject(geom)) {
@@ -74,7 +83,13 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
     if (geom.features.length === 0) {
       out.issues.push({ path: join(path, "features"), message: "The FeatureCollection has no features; a route needs a line." });
     }
-    geom.features.forEach((f, j) => collectGeometry(f, join(join(path, "features"), j), out));
+    // Points beside lines (e.g. an exported points.geojson: the route and its markers) are not part
+    // of the route: they are skipped and counted, and the result says so.
+    const hasLine = geom.features.some((f) => LINE_TYPES.has(geometryTypeOf(f)));
+    geom.features.forEach((f, j) => {
+      if (hasLine && POINT_TYPES.has(geometryTypeOf(f))) out.skippedPoints++;
+      else collectGeometry(f, join(join(path, "features"), j), out);
+    });
   } else if (type === "GeometryCollection") {
     if (!Array.isArray(geom.geometries)) {
       out.issues.push({ path: join(path, "geometries"), message: "GeometryCollection geometries must be an array." });
@@ -98,7 +113,7 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
  */
 export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteParseOptions = {}): RouteParseResult {
   const maxVertices = options.maxVertices ?? MAX_ROUTE_VERTICES;
-  const out: Collector = { lines: [], issues: [] };
+  const out: Collector = { lines: [], issues: [], skippedPoints: 0 };
   collectGeometry(input, basePath, out);
   if (out.issues.length > 0) return { ok: false, issues: out.issues.slice(0, MAX_ISSUES) };
   let total = 0;
@@ -158,7 +173,8 @@ export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteP
       issues: [{ path: basePath, message: "A route needs at least two distinct points." }],
     };
   }
-  return { ok: true, coords, vertexCount: total };
+  const note = out.skippedPoints > 0 ? `The file holds ${count(out.lines.length, "line")} and ${count(out.skippedPoints, "point")}: the ${out.lines.length === 1 ? "line is" : "lines, joined in order, are"} the route; the points are not part of it.` : undefined;
+  return note ? { ok: true, coords, vertexCount: total, note } : { ok: true, coords, vertexCount: total };
 }
 
 type DomParserCtor = new () => { parseFromString(text: string, type: string): unknown };
@@ -209,9 +225,21 @@ export function parseGpxRoute(
   };
   const lines = fc.features.filter(isLine);
   const tracks = lines.filter((f) => f.properties?._gpxType === "trk");
+  const routes = lines.filter((f) => f.properties?._gpxType !== "trk");
   const chosen = tracks.length > 0 ? tracks : lines;
   if (chosen.length === 0) {
     return { ok: false, issues: [{ path: basePath, message: "The GPX document has no track (<trk>) or route (<rte>) with points." }] };
   }
-  return parseGeoJsonRoute({ type: "FeatureCollection", features: chosen }, basePath, options);
+  const parsed = parseGeoJsonRoute({ type: "FeatureCollection", features: chosen }, basePath, options);
+  if (!parsed.ok || lines.length === 1) return parsed;
+  return { ...parsed, note: gpxChoiceNote(tracks.length, routes.length, chosen) };
+}
+
+/** Which of several tracks and routes made the route, in words: "The file holds 2 tracks and 1 route: …". */
+function gpxChoiceNote(tracks: number, routes: number, chosen: { properties?: Record<string, unknown> | null }[]): string {
+  const held = [tracks ? count(tracks, "track") : "", routes ? count(routes, "route") : ""].filter(Boolean).join(" and ");
+  const names = chosen.map((f, i) => (typeof f.properties?.name === "string" && f.properties.name.trim() ? `“${f.properties.name.trim()}”` : `no. ${i + 1} (unnamed)`));
+  const kind = tracks ? "track" : "route";
+  const used = chosen.length === 1 ? `the ${kind} ${names[0]} is the route` : `the ${count(chosen.length, kind)} ${names.join(", ")} are joined in order (end of one to start of the next)`;
+  return `The file holds ${held}: ${used}${tracks && routes ? `; the ${routes === 1 ? "route is" : "routes are"} not used` : ""}.`;
 }

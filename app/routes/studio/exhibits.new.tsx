@@ -41,7 +41,7 @@ export async function action({ request }: Route.ActionArgs) {
     if (error instanceof ExhibitError) return data({ error: error.message, fields: { [error.field]: error.message } }, { status: 400 });
     throw error;
   }
-  return redirect(`/studio/exhibits/${input.slug}`, { headers: { "Set-Cookie": await noticeHeader({ kind: "success", message: `Exhibit created. Now add its markers.` }) } });
+  return redirect(`/studio/exhibits/${input.slug}`, { headers: { "Set-Cookie": await noticeHeader({ kind: "success", message: `Exhibit created. Now add its markers.${input.medium.kind === "route" && input.medium.note ? ` ${input.medium.note}` : ""}` }) } });
 }
 
 export default function NewExhibit({ loaderData, actionData }: Route.ComponentProps) {
