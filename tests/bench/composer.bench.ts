@@ -2,16 +2,23 @@
  * Composer preview benchmark: `npx tsx tests/bench/composer.bench.ts` (npm run bench:composer).
  *
  * What the designer's browser does on every keystroke: computeExhibit (validation, scale, labels,
- * legibility, insets, durations) for an exhibit with N markers on a 100,000-vertex route — with the
- * route prepared once and reused (as the composer does), and, as the baseline in the same run,
- * re-measuring the route every time. Also a 46 m rope with the same markers (no route at all).
- * Medians of several runs; the last line printed is one JSON object.
+ * legibility, insets, durations) for an exhibit with 1,000 markers — on a 100,000-vertex route
+ * prepared once and reused (as the composer does), on a 46 m rope (no route), and re-measuring the
+ * route every time. In the same run:
+ *  - the baseline: the same 1,000 distances formatted once each with one reused Intl.NumberFormat
+ *    (the least any labelled list costs) — targets: route (reused) and rope ≤ 2× the baseline;
+ *  - today's code (the test oracle, tests/unit/scale/oracle: the engine before the one formatting
+ *    module) on the same inputs — target: the re-measured route ≤ half of today's time.
+ * Each figure is timed in blocks of calls, the blocks taking turns (see blocks()); the medians are
+ * printed, and the last line is one JSON object. `node --expose-gc` (as the npm script runs it)
+ * lets each block start after a collection.
  */
 import { computeExhibit, standardDurations, type ExhibitSpec, type ResolvedMarker } from "../../app/lib/exhibit/index.ts";
 import type { PreparedRoute } from "../../app/lib/geo/route.ts";
+import { computeExhibit as todayExhibit, standardDurations as todayDurations } from "../unit/scale/oracle/compose.ts";
 
 let seed = 7;
-const rand = () => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+const rand = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
 
 function path(n: number): number[][] {
   const c: number[][] = [];
@@ -33,14 +40,25 @@ function markers(n: number): ResolvedMarker[] {
   });
 }
 
-function median(f: () => void, runs: number) {
-  const t: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const s = performance.now();
-    f();
-    t.push(performance.now() - s);
+/**
+ * Each function runs in its own block (warm-up, then `runs` timed calls) so that one function's
+ * garbage is not collected during another's; the blocks go round `rounds` times (a, b, c, a, b, c …)
+ * so that a busy machine slows every figure alike. The figure is the median over all timed calls.
+ */
+function blocks(fs: Record<string, () => unknown>, runs: number, rounds = 5): Record<string, number> {
+  const times: Record<string, number[]> = Object.fromEntries(Object.keys(fs).map((k) => [k, []]));
+  for (let r = 0; r < rounds; r++) {
+    for (const [k, f] of Object.entries(fs)) {
+      (globalThis as { gc?: () => void }).gc?.();
+      for (let w = 0; w < Math.min(5, runs); w++) f();
+      for (let i = 0; i < runs; i++) {
+        const s = performance.now();
+        f();
+        times[k].push(performance.now() - s);
+      }
+    }
   }
-  return t.sort((a, b) => a - b)[Math.floor(runs / 2)];
+  return Object.fromEntries(Object.entries(times).map(([k, t]) => [k, t.sort((a, b) => a - b)[Math.floor(t.length / 2)]]));
 }
 
 const geometry = { type: "LineString" as const, coordinates: path(100_000) };
@@ -51,20 +69,58 @@ const route: ExhibitSpec = {
 };
 const rope: ExhibitSpec = { ...route, medium: { kind: "length", mediumType: "rope", length: { value: 46, unit: "m" }, panelWidth: null } };
 const durations = standardDurations(80);
-const out: Record<string, number> = {};
-for (const n of [100, 1000]) {
-  const ms = markers(n);
-  const cache: { route?: PreparedRoute; geometry?: unknown } = {};
-  const first = computeExhibit(route, ms, durations, cache);
-  if (!first.ok) throw new Error(first.message);
-  cache.route = first.route;
-  cache.geometry = geometry;
-  const cached = median(() => computeExhibit(route, ms, durations, cache), 9);
-  const uncached = median(() => computeExhibit(route, ms, durations), 5);
-  const length = median(() => computeExhibit(rope, ms, durations), 9);
-  console.log(`${n} markers, 100,000-vertex route: ${cached.toFixed(1)} ms per keystroke with the route reused; ${uncached.toFixed(1)} ms re-measuring it (${(uncached / cached).toFixed(1)}×); 46 m rope: ${length.toFixed(1)} ms`);
-  out[`route${n}CachedMs`] = Number(cached.toFixed(2));
-  out[`route${n}UncachedMs`] = Number(uncached.toFixed(2));
-  out[`rope${n}Ms`] = Number(length.toFixed(2));
+const oldDurations = todayDurations(80);
+const ms = markers(1000);
+
+const first = computeExhibit(route, ms, durations);
+if (!first.ok) throw new Error(first.message);
+const cache: { route?: PreparedRoute; geometry?: unknown } = { route: first.route, geometry };
+const ropeResult = computeExhibit(rope, ms, durations);
+if (!ropeResult.ok) throw new Error(ropeResult.message);
+// the baseline's distances: the rope's 1,000 marker distances, each formatted once
+const distances = ropeResult.result.points.map((p) => p.fromOlderEndMetres);
+const nf = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 3 });
+let sink = 0;
+const baseline = () => {
+  for (const d of distances) sink += nf.format(d).length;
+};
+
+// warm up every path, then measure the fast ones together and the slow ones together
+for (let i = 0; i < 30; i++) {
+  baseline();
+  computeExhibit(route, ms, durations, cache);
+  computeExhibit(rope, ms, durations);
+  todayExhibit(route, ms, oldDurations, cache);
+  todayExhibit(rope, ms, oldDurations);
 }
+const fast = blocks(
+  {
+    format1000BaselineMs: baseline,
+    route1000CachedMs: () => computeExhibit(route, ms, durations, cache),
+    rope1000Ms: () => computeExhibit(rope, ms, durations),
+    todayRoute1000CachedMs: () => todayExhibit(route, ms, oldDurations, cache),
+    todayRope1000Ms: () => todayExhibit(rope, ms, oldDurations),
+  },
+  40,
+);
+const slow = blocks(
+  {
+    route1000UncachedMs: () => computeExhibit(route, ms, durations),
+    todayRoute1000UncachedMs: () => todayExhibit(route, ms, oldDurations),
+  },
+  4,
+);
+const round = (x: number) => Number(x.toFixed(3));
+const out = {
+  ...Object.fromEntries(Object.entries({ ...fast, ...slow }).map(([k, v]) => [k, round(v)])),
+  route1000CachedVsBaseline: round(fast.route1000CachedMs / fast.format1000BaselineMs),
+  rope1000VsBaseline: round(fast.rope1000Ms / fast.format1000BaselineMs),
+  route1000UncachedVsToday: round(slow.route1000UncachedMs / slow.todayRoute1000UncachedMs),
+  targets: { cachedAndRopeVsBaseline: 2, uncachedVsToday: 0.5 },
+};
+console.log(`baseline: 1,000 distances through one Intl.NumberFormat: ${fast.format1000BaselineMs.toFixed(2)} ms`);
+console.log(`1,000 markers, 100,000-vertex route reused: ${fast.route1000CachedMs.toFixed(2)} ms (${out.route1000CachedVsBaseline}× the baseline; today ${fast.todayRoute1000CachedMs.toFixed(2)} ms)`);
+console.log(`1,000 markers, 46 m rope: ${fast.rope1000Ms.toFixed(2)} ms (${out.rope1000VsBaseline}× the baseline; today ${fast.todayRope1000Ms.toFixed(2)} ms)`);
+console.log(`1,000 markers, route re-measured: ${slow.route1000UncachedMs.toFixed(2)} ms (today ${slow.todayRoute1000UncachedMs.toFixed(2)} ms: ${out.route1000UncachedVsToday}×)`);
+if (sink < 0) console.log(sink);
 console.log(JSON.stringify(out));

@@ -38,14 +38,19 @@ function scaledInteger(a: number, d: number): number {
   return d > 20 ? -1 : roundScaled(a, d);
 }
 
-/** The text of the integer n / 10^d with d decimals and thousands separators. */
+const ZEROS = ["", "0", "00", "000", "0000", "00000", "000000", "0000000", "00000000", "000000000"];
+
+/** The text of the integer n / 10^d with d decimals and thousands separators (few intermediate strings). */
 function digits(n: number, d: number, negative: boolean): string {
   const sign = negative && n !== 0 ? "−" : "";
-  if (d === 0) return sign + group(String(n));
+  if (d === 0) return n < 1000 ? sign + n : sign + group(String(n));
   const p = pow10(d);
   const i = Math.floor(n / p);
-  const frac = String(n - i * p);
-  return `${sign}${group(String(i))}.${"0".repeat(d - frac.length)}${frac}`;
+  const f = n - i * p;
+  const int = i < 1000 ? String(i) : group(String(i));
+  if (f >= p / 10) return `${sign}${int}.${f}`;
+  const frac = String(f);
+  return `${sign}${int}.${d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)}${frac}`;
 }
 
 function formatFixedSlow(x: number, d: number): string {
@@ -245,32 +250,37 @@ function wholeStep(stepInUnit: number): number {
 
 /**
  * A distance rounded on a grid of the unit (y = metres in the unit; `decimals`, or the multiple `q`
- * when there are none): [value, text]. `up` rounds up instead of to the nearest (a ± converted to
- * feet is never shown smaller).
+ * when there are none): its value in the unit. `up` rounds up instead of to the nearest (a ±
+ * converted to feet is never shown smaller).
  */
-function onGrid(y: number, decimals: number, q: number, up: boolean): [number, string] {
+function gridValue(y: number, decimals: number, q: number, up: boolean): number {
+  let value: number;
   if (decimals > 0) {
     const p = pow10(decimals);
     const n = up ? Math.ceil(Math.abs(y) * p - 1e-9) : scaledInteger(Math.abs(y), decimals);
-    if (n >= 0) {
-      const value = n === 0 ? 0 : (y < 0 ? -n : n) / p;
-      return [value, digits(n, decimals, y < 0)];
-    }
-    let value = Number(y.toFixed(decimals));
-    if (value === 0) value = 0;
-    return [value, formatFixed(value, decimals)];
+    value = n >= 0 ? (y < 0 ? -n : n) / p : Number(y.toFixed(decimals));
+  } else {
+    value = (up ? Math.ceil(y / q - 1e-9) : Math.round(y / q)) * q;
   }
-  let value = (up ? Math.ceil(y / q - 1e-9) : Math.round(y / q)) * q;
-  if (value === 0) value = 0;
-  return [value, formatFixed(value, 0)];
+  return value === 0 ? 0 : value;
+}
+
+/** The same distance's text, with thousands separators ("4,501.00"). */
+function gridText(y: number, decimals: number, q: number, up: boolean): string {
+  if (decimals > 0) {
+    const n = up ? Math.ceil(Math.abs(y) * pow10(decimals) - 1e-9) : scaledInteger(Math.abs(y), decimals);
+    if (n >= 0) return digits(n, decimals, y < 0);
+  }
+  return formatFixed(gridValue(y, decimals, q, up), decimals);
 }
 
 /** Round a distance at a step and express it in a unit without implying more precision than the step. */
 export function roundAtStep(metres: number, stepMetres: number, unit: LengthUnit): DisplayLength {
   const uf = UNIT_METRES[unit];
   const decimals = decimalsFor(stepMetres / uf);
-  const [value, text] = onGrid(metres / uf, decimals, decimals > 0 ? 1 : wholeStep(stepMetres / uf), false);
-  return { metres: value * uf, value, unit, decimals, text: `${text} ${unit}` };
+  const q = decimals > 0 ? 1 : wholeStep(stepMetres / uf);
+  const value = gridValue(metres / uf, decimals, q, false);
+  return { metres: value * uf, value, unit, decimals, text: `${gridText(metres / uf, decimals, q, false)} ${unit}` };
 }
 
 export interface DistanceLabel {
@@ -298,11 +308,11 @@ export function distanceLabel(fromOlder: number, fromYounger: number, step: Disp
     const place = pow10(uncertaintyPlace(step.uncertaintyMetres));
     const uStep = (place < step.stepMetres ? place : step.stepMetres) / uf;
     const uDecimals = decimalsFor(uStep);
-    unc = `± ${onGrid(step.uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u])[1]} ${u}`;
+    unc = `± ${gridText(step.uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u])} ${u}`;
   }
   return {
-    fromOlderEnd: `${onGrid(fromOlder / uf, decimals, q, false)[1]} ${u}`,
-    fromYoungerEnd: `${onGrid(fromYounger / uf, decimals, q, false)[1]} ${u}`,
+    fromOlderEnd: `${gridText(fromOlder / uf, decimals, q, false)} ${u}`,
+    fromYoungerEnd: `${gridText(fromYounger / uf, decimals, q, false)} ${u}`,
     uncertainty: unc,
     // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
     stepMetres: step.stepMetres,
@@ -361,8 +371,9 @@ export function formatDuration(seconds: number): string {
 /** A count to two significant figures from 100 up (a range is not more precise): 6,009 → "6,000". */
 export function formatCountTwoFigures(n: number): string {
   if (n < 100 || !Number.isSafeInteger(n)) return formatFixed(n, 0);
-  const p = pow10(String(n).length - 2);
-  return formatFixed(Math.round(n / p) * p, 0);
+  let p = 1;
+  while (n >= p * 100) p *= 10; // n has two more digits than p has zeros
+  return digits(Math.round(n / p) * p, 0, false);
 }
 
 export interface ScaleStatement {
