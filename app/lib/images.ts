@@ -58,6 +58,21 @@ export function mediaUrl(assetId: number, file: string): string {
   return `/media/${assetId}/${file}`;
 }
 
+/** The web widths made for an image `width` px wide: the standard ones below it, and it (capped at the largest). */
+export function widthsFor(width: number): number[] {
+  const largest = WEB_WIDTHS[WEB_WIDTHS.length - 1];
+  return [...new Set([...WEB_WIDTHS.filter((w) => w < width), Math.min(width, largest)])].sort((a, b) => a - b);
+}
+
+/**
+ * The WebP and JPEG sizes processing makes for an image `width` px wide, with their stable URLs, in
+ * the order the server lists them (by width, then format): what a snapshot can name before the files
+ * exist (the demo seeder's images, processed when the server starts).
+ */
+export function plannedWebSizes(assetId: number, width: number): ImageSize[] {
+  return widthsFor(width).flatMap((w) => (["jpeg", "webp"] as const).map((format) => ({ width: w, format, url: mediaUrl(assetId, sizeFileName(w, format)) })));
+}
+
 /** Parses the :file segment of /media/:assetId/:file ("960.webp", "print.jpg"); null if it is not one of ours. */
 export function parseMediaFile(file: string): { kind: "size"; width: number; format: ServedFormat } | { kind: "print" } | null {
   if (file === PRINT_FILE) return { kind: "print" };

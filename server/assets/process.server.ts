@@ -4,7 +4,7 @@
 // protected site); colour is converted to sRGB (the print master embeds the sRGB profile).
 import { createHash } from "node:crypto";
 import sharp, { type Metadata, type Sharp } from "sharp";
-import { MAX_IMAGE_PIXELS, PRINT_FILE, sizeFileName, WEB_WIDTHS, type AcceptedFormat, type ServedFormat } from "../../app/lib/images.ts";
+import { MAX_IMAGE_PIXELS, PRINT_FILE, sizeFileName, WEB_WIDTHS, widthsFor, type AcceptedFormat, type ServedFormat } from "../../app/lib/images.ts";
 
 // A shared server: one libvips thread per operation unless told otherwise, and no operation cache.
 sharp.concurrency(Number(process.env.SHARP_CONCURRENCY ?? 1) || 1);
@@ -62,11 +62,8 @@ function input(original: Uint8Array): Sharp {
   return sharp(original, { limitInputPixels: MAX_IMAGE_PIXELS, failOn: "error" }).rotate();
 }
 
-/** The widths to make for an image `width` px wide: the standard ones below it, and it (capped at the largest). */
-export function widthsFor(width: number): number[] {
-  const largest = WEB_WIDTHS[WEB_WIDTHS.length - 1];
-  return [...new Set([...WEB_WIDTHS.filter((w) => w < width), Math.min(width, largest)])].sort((a, b) => a - b);
-}
+/** The widths to make for an image `width` px wide (pure, in app/lib/images.ts: seeders plan URLs with it). */
+export { widthsFor };
 
 async function made(pipeline: Sharp, file: string, format: ServedFormat, role: MadeFile["role"]): Promise<MadeFile> {
   const { data, info } = await pipeline.toBuffer({ resolveWithObject: true });

@@ -6,6 +6,9 @@
 //    Lindqvist) as publication 1, so visitors and GET /api/exhibits/marrowby/riverside-walk have
 //    something to open;
 //  - school-rope is in review.
+// The demo images (the seeder before this one) are in the publication: each marker's image with its
+// alt text, credit and the stable /media/:assetId/:file URLs of the sizes the image worker makes
+// when the server starts (the same entries a publication made in the app carries).
 // db/ knows nothing of the web server, so this builds the publication from the models and the pure
 // code the server uses too (resolveMarkers, computeExhibit, runChecks, planSigns, buildSnapshot,
 // canonicalJson); marker texts are rendered with the same Markdown policy as server/markdown.server.ts.
@@ -17,9 +20,11 @@ import type { Sequelize, Transaction } from "sequelize";
 import { computeExhibit, standardDurations } from "../../../app/lib/exhibit/compose.ts";
 import { mediumSpecOf, resolveMarkers, type EventAge } from "../../../app/lib/exhibit/resolve.ts";
 import type { ExhibitSpec, InsetSpec } from "../../../app/lib/exhibit/types.ts";
+import { mediaUrl, plannedWebSizes, sizeFileName } from "../../../app/lib/images.ts";
 import { buildSnapshot } from "../../../app/lib/publication/build.ts";
 import { canonicalJson } from "../../../app/lib/publication/canonical.ts";
 import { planSigns } from "../../../app/lib/publication/signs.ts";
+import type { SnapshotImage } from "../../../app/lib/publication/types.ts";
 import { failuresInWords, runChecks } from "../../../app/lib/review/checks.ts";
 import { revisionContent } from "../../../app/lib/review/content.ts";
 import type { Interval } from "../../../app/lib/timescale/types.ts";
@@ -38,6 +43,27 @@ const MARKDOWN_POLICY: sanitizeHtml.IOptions = {
 };
 const render = (text: string) => (text.trim() ? sanitizeHtml(marked.parse(text, { async: false, gfm: true, breaks: false }) as string, MARKDOWN_POLICY).trim() : "");
 const sha256 = (text: string) => createHash("sha256").update(text).digest("hex");
+
+/**
+ * The images of an exhibit's markers as a publication names them (server/assets/usage.server.ts's
+ * imagesForExhibit): the served sizes once processed, else the sizes processing will make.
+ */
+async function markerImages(sequelize: Sequelize, exhibitId: number, transaction: Transaction): Promise<Map<string, SnapshotImage>> {
+  const [rows] = (await sequelize.query(
+    `SELECT u.marker_id AS "markerId", u.asset_id AS "assetId", u.alt, u.credit, a.width, a.files FROM image_uses u JOIN assets a ON a.id = u.asset_id
+      WHERE u.exhibit_id = $1 AND u.marker_id IS NOT NULL ORDER BY u.id`,
+    { bind: [exhibitId], transaction },
+  )) as [{ markerId: number; assetId: number; alt: string; credit: string; width: number; files: { role: string; width: number; format: "webp" | "jpeg" | "avif" }[] }[], unknown];
+  return new Map(
+    rows.map((r) => {
+      const served = r.files
+        .filter((f) => f.role === "web")
+        .sort((a, b) => a.width - b.width || a.format.localeCompare(b.format))
+        .map((f) => ({ width: f.width, format: f.format, url: mediaUrl(r.assetId, sizeFileName(f.width, f.format)) }));
+      return [String(r.markerId), { assetId: r.assetId, alt: r.alt, credit: r.credit || null, sizes: served.length ? served : plannedWebSizes(r.assetId, r.width) }];
+    }),
+  );
+}
 
 async function load(sequelize: Sequelize, organisationId: number, slug: string, transaction: Transaction) {
   const m = await import("../../models/index.ts");
@@ -117,6 +143,7 @@ export const up: Migration = async ({ sequelize }) => {
         `SELECT m.id AS "markerId", i.name AS "intervalName", i.edition_id AS "editionId", i.base_ma AS "baseMa" FROM markers m JOIN intervals i ON i.id = m.interval_id WHERE m.exhibit_id = $1`,
         { bind: [exhibit.id], transaction },
       )) as [{ markerId: number; intervalName: string; editionId: number; baseMa: string }[], unknown];
+      const images = await markerImages(sequelize, exhibit.id, transaction);
       const report = runChecks({
         revision: exhibit.revision,
         spec,
@@ -124,6 +151,7 @@ export const up: Migration = async ({ sequelize }) => {
         edition: { id: edition.id, slug: edition.slug, label: edition.label, intervals },
         boundaries: boundaries.map((b) => ({ markerId: String(b.markerId), intervalName: b.intervalName, editionId: b.editionId, baseMa: Number(b.baseMa) })),
         acknowledgements: [],
+        images: new Map([...images].map(([id, image]) => [id, { alt: image.alt }])),
         recheck: null,
       });
       if (report.overall === "fail") throw new Error(`riverside-walk fails its checks: ${failuresInWords(report)}`);
@@ -144,7 +172,7 @@ export const up: Migration = async ({ sequelize }) => {
         intervals,
         html: new Map(markers.map((x) => [x.id, render(x.text)])),
         decay: new Map(),
-        images: new Map(),
+        images,
         signs: plan.numbers,
         retiredSigns: plan.retiredSigns,
       });
