@@ -1,6 +1,6 @@
 // /editions/:slug — one edition: the chart, the intervals table, the corrections and the source.
 import { Form, Link, useNavigation } from "react-router";
-import { CorrectionList, RankCounts } from "~/components/chart/edition-bits";
+import { CorrectionList, plainWords, RankCounts } from "~/components/chart/edition-bits";
 import { EditionBadges, OwnerNote } from "~/components/chart/edition-owner";
 import { can } from "~/lib/permissions";
 import { IntervalTable } from "~/components/chart/interval-table";
@@ -71,8 +71,8 @@ export default function EditionPage({ loaderData }: Route.ComponentProps) {
       <section className="card mt-4 grid gap-4 md:grid-cols-[2fr_1fr]">
         <div>
           <h2 className="sr-only">About this edition</h2>
-          <p className="text-sm"><span className="font-sans font-semibold">Source. </span>{e.source}</p>
-          <p className="mt-2 text-sm"><span className="font-sans font-semibold">Licence. </span>{e.licence}</p>
+          <p className="text-sm"><span className="font-sans font-semibold">Source. </span>{plainWords(e.source)}</p>
+          <p className="mt-2 text-sm"><span className="font-sans font-semibold">Licence. </span>{plainWords(e.licence)}</p>
           {languages.length ? <p className="mt-2 font-sans text-xs text-ink-soft">The interval names in {languages.length} other languages are kept in the downloads.</p> : null}
         </div>
         <div className="font-sans text-sm">

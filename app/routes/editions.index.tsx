@@ -1,7 +1,7 @@
 // /editions — the shared chart editions (the latest marked), and for a signed-in member also the
 // organisation's own editions, each labelled as such; drafts only for those who manage them.
 import { Link } from "react-router";
-import { RankCounts } from "~/components/chart/edition-bits";
+import { plainWords, RankCounts } from "~/components/chart/edition-bits";
 import { EditionBadges } from "~/components/chart/edition-owner";
 import { listEditions, managesEditions, scopeOf, viewerOf } from "#server/editions.server.ts";
 import type { Route } from "./+types/editions.index";
@@ -54,7 +54,7 @@ export default function EditionsIndex({ loaderData }: Route.ComponentProps) {
               </p>
             </div>
             <div className="mt-3"><RankCounts counts={e.counts} /></div>
-            <p className="mt-3 line-clamp-2 text-sm text-ink-soft">{e.source}</p>
+            <p className="mt-3 line-clamp-2 text-sm text-ink-soft">{plainWords(e.source)}</p>
             <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 font-sans text-sm">
               <Link to={`/editions/${e.slug}`}>Chart and intervals</Link>
               {e.corrections.length ? <Link to={`/editions/${e.slug}#corrections`}>{e.corrections.length} correction{e.corrections.length === 1 ? "" : "s"}</Link> : null}

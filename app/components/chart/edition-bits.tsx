@@ -59,7 +59,8 @@ export function plainWords(text: string): string {
     .replace(/gts:\w+/g, "a field of the data file")
     .replace(/\bischart:([\w-]+)/g, "$1")
     .replace(/\bIRIs?\b/g, "entry")
-    .replace(/\bedition\.corrections\b/g, "the list of corrections")
+    .replace(/\bedition\.corrections\b/g, "the corrections on this page")
+    .replace(/\bdata file chart\.ttl\b/g, "chart data file")
     .replace(/(?:db|app|server)\/[\w./-]+/g, "the project's data");
 }
 
