@@ -143,7 +143,15 @@ export function clean(x: number): number {
   if (!Number.isFinite(x) || x === 0) return x;
   const a = x < 0 ? -x : x;
   if (a >= 1e-7 && a < 1e15) {
-    const k = 14 - Math.floor(Math.log10(a)); // 0 ≤ k ≤ 21 here, so 10^k is exact
+    // the decade of a by a few comparisons (log10 costs more); an off-by-one is caught by the n range below
+    let lo = -7;
+    let hi = 14;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (a >= POW10[mid + 30]) lo = mid;
+      else hi = mid - 1;
+    }
+    const k = 14 - lo; // 0 ≤ k ≤ 21 here, so 10^k is exact
     const n = roundScaled(a, k);
     if (n >= 1e14 && n < 1e15) {
       const r = n / POW10[k + 30];
