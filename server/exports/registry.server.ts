@@ -108,6 +108,7 @@ const CORS = { "Access-Control-Allow-Origin": "*", "Access-Control-Expose-Header
 export async function publicExport(request: Request, org: string, slug: string, numberText: string, name: string): Promise<Response> {
   const file = exportFileNamed(name);
   if (!file) return publicJsonError(404, `No file "${name}" here. A publication's files: ${Object.keys(EXPORT_FILES).join(", ")}.`);
+  if (new URL(request.url).searchParams.get("from") === "draft") return publicJsonError(404, "Drafts are never public: only a publication's files are served here.");
   const number = Number(numberText);
   if (!/^\d{1,9}$/.test(numberText) || number < 1) return publicJsonError(400, "The publication number must be a whole number from 1.");
   const found = await findPublished(org, slug);

@@ -19,16 +19,19 @@ async function onPath(command: string): Promise<string | null> {
 }
 
 /** Runs a command; resolves with its exit code, standard output and standard error. */
-export function runCommand(command: string, args: string[], options: { input?: string; quiet?: boolean } = {}): Promise<{ code: number; stdout: string; stderr: string }> {
+export function runCommand(command: string, args: string[], options: { input?: string } = {}): Promise<{ code: number; stdout: string; stderr: string }> {
   return new Promise((resolve, reject) => {
-    const child = spawn(command, args, { stdio: ["pipe", "pipe", "pipe"], env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
+    const child = spawn(command, args, { stdio: [options.input === undefined ? "ignore" : "pipe", "pipe", "pipe"], env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
     let stdout = "";
     let stderr = "";
     child.stdout.on("data", (d: Buffer) => (stdout += d.toString()));
     child.stderr.on("data", (d: Buffer) => (stderr += d.toString()));
     child.on("error", reject);
     child.on("close", (code) => resolve({ code: code ?? 1, stdout, stderr }));
-    child.stdin.end(options.input ?? "");
+    if (child.stdin) {
+      child.stdin.on("error", () => {}); // the command may exit before reading its input
+      child.stdin.end(options.input);
+    }
   });
 }
 
