@@ -67,15 +67,30 @@ interface MarkerPoints {
 
 const checkedMarkers = new WeakMap<readonly ResolvedMarker[], MarkerPoints | null>();
 
+/** Is a remembered markers array still what it was (the same markers, ids, labels, ages and ±)? A caller may have changed it in place. */
+function unchanged(known: MarkerPoints | null, markers: readonly ResolvedMarker[]): boolean {
+  if (known === null) return false; // refused before: check again, it may have been fixed
+  if (known.points.length !== markers.length) return false;
+  for (let i = 0; i < markers.length; i++) {
+    const m = markers[i];
+    const p = known.points[i];
+    if (p.id !== m.id || p.label !== m.label || p.age.value !== m.ageMa) return false;
+    const u = m.uncertaintyMa != null && m.uncertaintyMa > 0 ? m.uncertaintyMa : undefined;
+    if (p.uncertainty?.value !== u) return false;
+  }
+  return true;
+}
+
 /**
  * The markers as request points, when every one passes what the request schema checks of a point
  * (a finite age ≥ 0, an id and label of sensible length, no id twice, a ± ≥ 0; the span is checked
  * by the caller); null otherwise — the full schema then says what is wrong. Worked out once per
- * markers array (the preview passes the same, never changed, array on every keystroke).
+ * markers array (the preview passes the same array on every keystroke); a remembered array is
+ * compared with its markers first, so one changed in place is worked out again.
  */
 function markerPoints(markers: readonly ResolvedMarker[]): MarkerPoints | null {
   const known = checkedMarkers.get(markers);
-  if (known !== undefined) return known;
+  if (known !== undefined && unchanged(known, markers)) return known;
   let out: MarkerPoints | null = null;
   if (markers.length <= MAX_POINTS) {
     const seen = new Set<string>();
