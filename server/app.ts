@@ -9,19 +9,23 @@ import type { Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import path from "node:path";
 import { createRequestHandler } from "@react-router/express";
+import { createRequestHandler as createFetchHandler } from "react-router";
 import compression from "compression";
 import express, { type Request, type Response, type NextFunction } from "express";
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import type { ServerBuild } from "react-router";
-import type { Sequelize } from "sequelize";
 import { pendingMigrations } from "../db/migrator.ts";
 import { CLIENT_IP_HEADER } from "./auth.server.ts";
 import { closeDatabase, sequelize } from "./db.server.ts";
 import { env } from "./env.server.ts";
 import { logger } from "./logger.server.ts";
 import { stopBoss } from "./queue.server.ts";
-import { startWorkers } from "./workers.server.ts";
+import { healthRoutes, startDraining } from "./readiness.server.ts";
+import { startWorkers, stopTakingJobs } from "./workers.server.ts";
+import { allowFraming, isEmbedPath, isVisitorPath, visitorPages } from "./visit/http.server.ts";
+
+export { healthCheck } from "./readiness.server.ts";
 
 declare module "react-router" {
   interface AppLoadContext {
@@ -42,15 +46,6 @@ export interface AppOptions {
   clientDir?: string;
 }
 
-export async function healthCheck(db: Sequelize = sequelize): Promise<boolean> {
-  try {
-    await db.query("SELECT 1");
-    return true;
-  } catch {
-    return false;
-  }
-}
-
 export function createApp(options: AppOptions = {}) {
   const app = express();
   const dev = Boolean(options.devMiddleware);
@@ -61,13 +56,14 @@ export function createApp(options: AppOptions = {}) {
   app.use(
     pinoHttp({
       logger,
-      autoLogging: { ignore: (req) => req.url === "/healthz" || req.url?.startsWith("/assets/") === true },
+      autoLogging: { ignore: (req) => req.url === "/healthz" || req.url === "/readyz" || req.url?.startsWith("/assets/") === true },
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? "error" : res.statusCode >= 400 ? "warn" : "info"),
     }),
   );
 
   app.use((req: Request, res: Response, next: NextFunction) => {
-    res.locals.cspNonce = randomBytes(16).toString("base64");
+    // Visitor pages carry no inline script and must be the same bytes for everyone: no nonce.
+    if (!isVisitorPath(req.path)) res.locals.cspNonce = randomBytes(16).toString("base64");
     // The client address the sign-in rate limit counts by; never trusted from the request itself.
     req.headers[CLIENT_IP_HEADER] = req.ip ?? req.socket.remoteAddress ?? "unknown";
     next();
@@ -78,7 +74,7 @@ export function createApp(options: AppOptions = {}) {
       contentSecurityPolicy: {
         useDefaults: true,
         directives: {
-          "script-src": ["'self'", (_req, res) => `'nonce-${(res as Response).locals.cspNonce}'`, ...(dev ? ["'unsafe-inline'"] : [])],
+          "script-src": ["'self'", (_req, res) => ((res as Response).locals.cspNonce ? `'nonce-${(res as Response).locals.cspNonce}'` : "'self'"), ...(dev ? ["'unsafe-inline'"] : [])],
           "style-src": ["'self'", "'unsafe-inline'"],
           "img-src": ["'self'", "data:", "blob:"],
           "connect-src": ["'self'", ...(dev ? ["ws:"] : [])],
@@ -92,10 +88,11 @@ export function createApp(options: AppOptions = {}) {
   );
   app.use(compression());
 
-  app.get("/healthz", async (_req, res) => {
-    const ok = await healthCheck();
-    res.status(ok ? 200 : 503).set("Cache-Control", "no-store").json(ok ? { ok: true } : { ok: false, error: "database unreachable" });
-  });
+  // Liveness and readiness for load balancers (server/readiness.server.ts).
+  const health = healthRoutes();
+  app.use(health.drain);
+  app.get("/healthz", health.healthz);
+  app.get("/readyz", health.readyz);
 
   if (options.devMiddleware) {
     app.use(options.devMiddleware);
@@ -107,10 +104,25 @@ export function createApp(options: AppOptions = {}) {
   }
   app.use(express.static("public", { maxAge: "1h", index: false }));
 
+  // The embedded strip alone may be framed by any site.
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (isEmbedPath(req.path)) allowFraming(res);
+    next();
+  });
+  const build = options.build ?? loadServerBuild;
+  const renderPage = createFetchHandler(build, dev ? "development" : "production");
+  app.use(
+    visitorPages({
+      buildId: async () => (await build()).assets.version,
+      render: (request) => renderPage(request, { cspNonce: "" }),
+      origin: env().APP_URL,
+    }),
+  );
+
   app.all(
     "*",
     createRequestHandler({
-      build: options.build ?? loadServerBuild,
+      build,
       mode: dev ? "development" : "production",
       getLoadContext: (_req, res) => ({ cspNonce: res.locals.cspNonce as string }),
     }),
@@ -167,6 +179,9 @@ export async function start(options: StartOptions = {}): Promise<Running> {
   let stopping: Promise<void> | undefined;
   const stop = () => {
     stopping ??= (async () => {
+      // Readiness turns 503 and this server takes no new jobs; requests in flight finish.
+      startDraining();
+      await stopTakingJobs().catch((error) => logger.error({ err: error }, "pausing the workers failed"));
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeIdleConnections();
       // Requests in flight get up to 8 s to finish; then their connections are cut.

@@ -7,23 +7,56 @@ import { logger } from "./logger.server.ts";
 
 // In development the queue survives Vite's module reloads (globalThis), so a code change does not
 // start a second pg-boss; elsewhere this module is evaluated once and a module variable suffices.
-const globalForBoss: { __eonscaleBoss?: Promise<PgBoss> } =
+const globalForBoss: { __eonscaleBoss?: Promise<PgBoss>; __eonscaleBossState?: QueueState } =
   process.env.NODE_ENV === "development" ? (globalThis as never) : {};
+
+/** "idle" until the queue is first used, "started", then "stopping"/"stopped" on shutdown. */
+export type QueueState = "idle" | "starting" | "started" | "stopping" | "stopped";
+
+export function queueState(): QueueState {
+  return globalForBoss.__eonscaleBossState ?? "idle";
+}
+
+/** Jobs still active when a stopping server gives up waiting go back to the queue (see stopBoss). */
+const STOP_WAIT_MS = 5_000;
 
 export function getBoss(): Promise<PgBoss> {
   globalForBoss.__eonscaleBoss ??= (async () => {
+    globalForBoss.__eonscaleBossState = "starting";
     const boss = new PgBoss({ connectionString: env().DATABASE_URL, schema: "pgboss", max: 4, application_name: "eonscale-jobs" });
     boss.on("error", (error) => logger.error({ err: error }, "job queue error"));
     await boss.start();
+    globalForBoss.__eonscaleBossState = "started";
     return boss;
   })();
   return globalForBoss.__eonscaleBoss;
 }
 
+/**
+ * Stops taking new jobs at once; the requests still running may queue jobs meanwhile (the queue
+ * stays open for sending). Used at the start of a graceful shutdown.
+ */
+export async function pauseWorkers(queues: readonly string[]) {
+  const pending = globalForBoss.__eonscaleBoss;
+  if (!pending) return;
+  const boss = await pending;
+  globalForBoss.__eonscaleBossState = "stopping";
+  await Promise.all(queues.map((q) => boss.offWork(q)));
+}
+
+/**
+ * Graceful stop: waits up to 5 s for the jobs this server is running, then hands any still running
+ * back to the queue (pg-boss fails them as "shut down while active", so they are retried — by
+ * another server if this one does not come back). Every job is idempotent, so a job this server
+ * was about to finish and another server runs again has one visible effect.
+ */
 export async function stopBoss() {
   const pending = globalForBoss.__eonscaleBoss;
   globalForBoss.__eonscaleBoss = undefined;
-  if (pending) await (await pending).stop({ graceful: true, timeout: 5000, wait: true });
+  if (!pending) return;
+  globalForBoss.__eonscaleBossState = "stopping";
+  await (await pending).stop({ graceful: true, timeout: STOP_WAIT_MS, wait: true });
+  globalForBoss.__eonscaleBossState = "stopped";
 }
 
 /** Lets pg-boss write its job row inside a Sequelize transaction, so the job exists only if the change commits. */

@@ -86,9 +86,17 @@ export async function processAsset(assetId: number, opts: { finalAttempt?: boole
       return await fail(processingReason(error)); // the image itself is at fault: retrying would not help
     }
     const files = await store(assetId, made);
-    const avif = (asset.files ?? []).filter((f) => f.format === "avif");
-    await asset.update({ status: "ready", error: null, files: [...files, ...avif] });
-    if (asset.avifStatus !== "ready") await send(ASSET_AVIF_QUEUE, { assetId }, undefined, { priority: -1 });
+    // One set of sizes however often this runs: the keys are content-hashed (a second run writes
+    // the same objects), and only the run that moves the row to "ready" records them (keeping any
+    // AVIF files already there) and queues the AVIF job.
+    const [, changed] = (await sequelize.query(
+      `UPDATE assets SET status = 'ready', error = NULL, updated_at = now(),
+         files = $1::jsonb || COALESCE((SELECT jsonb_agg(f) FROM jsonb_array_elements(files) f WHERE f->>'format' = 'avif'), '[]'::jsonb)
+       WHERE id = $2 AND status <> 'ready' RETURNING avif_status`,
+      { bind: [JSON.stringify(files), assetId] },
+    )) as [unknown, { rowCount?: number; rows?: { avif_status: string }[] }];
+    if (!changed?.rowCount) return "skipped";
+    if (changed.rows?.[0]?.avif_status !== "ready") await send(ASSET_AVIF_QUEUE, { assetId }, undefined, { priority: -1 });
     return "ready";
   } catch (error) {
     if (!(error instanceof StorageUnavailableError)) throw error;
@@ -103,7 +111,8 @@ export async function processAvif(assetId: number, opts: { finalAttempt?: boolea
   if (!asset || asset.status !== "ready" || asset.avifStatus === "ready") return "skipped";
   try {
     const files = await store(assetId, await makeAvifFiles(await getObjectBytes(asset.originalKey)));
-    await sequelize.query(`UPDATE assets SET files = files || $1::jsonb, avif_status = 'ready', updated_at = now() WHERE id = $2`, { bind: [JSON.stringify(files), assetId] });
+    // Only one run adds the AVIF files (a second finds avif_status already "ready").
+    await sequelize.query(`UPDATE assets SET files = files || $1::jsonb, avif_status = 'ready', updated_at = now() WHERE id = $2 AND avif_status <> 'ready'`, { bind: [JSON.stringify(files), assetId] });
     return "ready";
   } catch (error) {
     if (error instanceof StorageUnavailableError && !opts.finalAttempt) throw error;
