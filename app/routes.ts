@@ -51,5 +51,11 @@ export default [
   ]),
   // Images: stable URLs; drafts for the organisation only, published ones for everyone.
   route("media/:assetId/:file", "routes/media.$assetId.$file.ts"),
+  // Visitor pages (signed out, no hydration; server/visit/http.server.ts caches them): publications only.
+  route("visit/:org/:slug", "routes/visit.$org.$slug.tsx"),
+  route("visit/:org/:slug/embed", "routes/visit.$org.$slug.embed.tsx"),
+  route("visit/:org/:slug/:number", "routes/visit.$org.$slug.$number.tsx"),
+  route("visit/:org/:slug/:number/qr.svg", "routes/visit.$org.$slug.$number.qr-svg.ts"),
+  route("visit/:org/:slug/:number/qr.png", "routes/visit.$org.$slug.$number.qr-png.ts"),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;
