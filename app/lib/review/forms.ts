@@ -30,5 +30,5 @@ export type ReviewCommand = z.output<typeof ReviewCommandSchema>;
 /** `?from=N&to=M` or `to=published` of the compare page. */
 export const CompareQuerySchema = z.object({
   from: z.coerce.number({ error: "from must be a revision number." }).int().positive({ error: "from must be a revision number." }),
-  to: z.union([z.literal("published"), z.coerce.number({ error: "to must be a revision number or “published”." }).int().positive({ error: "to must be a revision number or “published”." })]),
+  to: z.union([z.literal("published"), z.coerce.number().int().positive()], { error: "to must be a revision number or “published”." }),
 });
