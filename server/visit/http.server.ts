@@ -116,7 +116,7 @@ export function visitorPages(options: VisitorPagesOptions) {
           const location = response.headers.get("Location");
           if (location) res.set("Location", location);
           res.type(response.headers.get("Content-Type") ?? "text/html");
-          res.send(Buffer.from(await response.arrayBuffer()));
+          res.end(Buffer.from(await response.arrayBuffer())); // end, not send: no Express ETag on a page that is not kept
           return;
         }
         const identity = Buffer.from(await response.arrayBuffer());
