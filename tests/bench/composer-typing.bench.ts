@@ -13,6 +13,8 @@
  * Environment: EONSCALE_BUILD_DIR (default build-bench), EONSCALE_E2E_PORT (default 3190),
  * EONSCALE_TEST_DATABASE (default eonscale_bench), EONSCALE_SKIP_BUILD=1 to reuse the last build.
  */
+import { cpus, loadavg } from "node:os";
+
 process.env.EONSCALE_BUILD_DIR ??= "build-bench";
 process.env.EONSCALE_E2E_PORT ??= "3190";
 process.env.EONSCALE_TEST_DATABASE ??= "eonscale_bench";
@@ -79,8 +81,9 @@ try {
     results[rhythm] = { keystrokes, reported: reported.length, p50Ms: percentile(all, 50), p95Ms: percentile(all, 95), maxMs: all[all.length - 1] };
     console.log(`${rhythm} typing (a key every ${delay} ms): ${keystrokes} keystrokes, ${reported.length} interactions of 16 ms or more; p50 ${results[rhythm].p50Ms} ms, p95 ${results[rhythm].p95Ms} ms, max ${results[rhythm].maxMs} ms`);
   }
-  console.log(`(${markers.trim()} on the riverside walk; Chromium ${browser.version()})`);
-  console.log(JSON.stringify({ bench: "composer-typing", markers: markers.trim(), steadyP95Ms: results.steady.p95Ms, fastP95Ms: results.fast.p95Ms, targetP95Ms: 50, ...Object.fromEntries(Object.entries(results).map(([k, v]) => [k, v])) }));
+  const load = loadavg()[0];
+  console.log(`(${markers.trim()} on the riverside walk; Chromium ${browser.version()}; ${cpus().length} CPUs, load average ${load.toFixed(1)} — other work on the machine lengthens every figure)`);
+  console.log(JSON.stringify({ bench: "composer-typing", markers: markers.trim(), cpus: cpus().length, loadAverage1m: Number(load.toFixed(1)), steadyP95Ms: results.steady.p95Ms, fastP95Ms: results.fast.p95Ms, targetP95Ms: 50, ...Object.fromEntries(Object.entries(results).map(([k, v]) => [k, v])) }));
 } finally {
   await browser.close();
   await stop();

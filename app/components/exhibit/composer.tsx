@@ -4,12 +4,13 @@
 // draws the preview at a lower priority than the typing (useDeferredValue), so keystrokes stay
 // quick. Every form carries the revision it was based on; the server refuses a save based on an
 // older one.
-import { useDeferredValue, useMemo, useState } from "react";
+import { memo, useCallback, useDeferredValue, useMemo, useState } from "react";
 import { FormMessage } from "~/components/forms";
 import { PageHeader } from "~/components/page-header";
 import { Term } from "~/components/term";
 import { AddBoundaries, AddCustom, AddEvent } from "~/components/exhibit/add-markers";
 import type { FieldError } from "~/components/exhibit/form-bits";
+import { ExportMenu } from "~/components/exhibit/export-menu";
 import { ImpactSection } from "~/components/exhibit/impact-section";
 import { InsetsSection } from "~/components/exhibit/insets";
 import { MarkersTable } from "~/components/exhibit/markers-table";
@@ -19,6 +20,21 @@ import { SettingsForm } from "~/components/exhibit/settings-form";
 import { WarningsSection } from "~/components/exhibit/warnings";
 import { bandsFor, computeExhibit, draftOf, routeCacheFor, specOfDraft, standardDurations, type ComposerRefusal, type ComposerView, type SettingsDraft } from "~/lib/exhibit";
 import { toYears } from "~/lib/units";
+
+// Sections re-draw only when their own inputs change: a keystroke in a settings field re-draws the
+// field at once and the preview (at lower priority), not the whole page.
+const Pane = memo(PreviewPane);
+const Warnings = memo(WarningsSection);
+const Durations = memo(DurationsSection);
+const Impact = memo(ImpactSection);
+const Markers = memo(MarkersTable);
+const Boundaries = memo(AddBoundaries);
+const Event = memo(AddEvent);
+const Custom = memo(AddCustom);
+const Insets = memo(InsetsSection);
+const Route = memo(RouteSection);
+const Cover = memo(CoverImageSection);
+const NO_FIELDS: Record<string, string> = {};
 
 export function Composer({ view, refusal, children }: { view: ComposerView; refusal?: ComposerRefusal; children?: React.ReactNode }) {
   // Re-mount after every save so the drafts start from what was saved.
@@ -33,7 +49,7 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
   const saved = useMemo(() => draftOf(exhibit.title, view.spec), [exhibit.title, view.spec]);
   const [draft, setDraft] = useState<SettingsDraft>(saved);
   const [lifeYears, setLifeYears] = useState("80");
-  const setField = (k: keyof SettingsDraft, value: string) => setDraft((d) => ({ ...d, [k]: value }));
+  const setField = useCallback((k: keyof SettingsDraft, value: string) => setDraft((d) => ({ ...d, [k]: value })), []);
   // The fields update at once; the preview follows at a lower priority.
   const shownDraft = useDeferredValue(draft);
   const shownLife = useDeferredValue(lifeYears);
@@ -46,7 +62,7 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
   const result = preview.ok ? preview.result : null;
   const acknowledged = useMemo(() => new Map(view.acknowledgements.map((a) => [a.warningKey, a])), [view.acknowledgements]);
   const warnings = result?.warnings ?? [];
-  const openWarnings = warnings.filter((w) => !acknowledged.has(w.key));
+  const openWarnings = useMemo(() => warnings.filter((w) => !acknowledged.has(w.key)), [warnings, acknowledged]);
   const flagged = useMemo(() => new Set(openWarnings.filter((w) => w.code.startsWith("markers-")).flatMap((w) => w.pointIds)), [openWarnings]);
   const olderMa = toYears(spec.spanOlder) / 1e6;
   const youngerMa = toYears(spec.spanYounger) / 1e6;
@@ -54,8 +70,9 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
   const points = useMemo(() => new Map(result?.points.map((p) => [p.id, p]) ?? []), [result]);
   const dirty = JSON.stringify(draft) !== JSON.stringify(saved);
   const isRoute = spec.medium.kind === "route";
-  const fieldsOf = (intent: string) => (refusal?.intent === intent ? refusal.fields : {});
-  const err: FieldError = (intent, field) => fieldsOf(intent)[field];
+  const fieldsOf = useCallback((intent: string) => (refusal?.intent === intent ? refusal.fields : NO_FIELDS), [refusal]);
+  const err = useCallback<FieldError>((intent, field) => fieldsOf(intent)[field], [fieldsOf]);
+  const boundaryChoices = useMemo(() => intervals.filter((i) => i.baseMa <= olderMa && i.baseMa >= youngerMa), [intervals, olderMa, youngerMa]);
   const revision = exhibit.revision;
   // Errors of forms that show their own message beside the form are not repeated at the top.
   const ownMessage = refusal && ["acknowledge-warning", "combine-markers"].includes(refusal.intent);
@@ -70,7 +87,7 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
         actions={
           <>
             <a href={`/studio/exhibits/${exhibit.slug}/schedule.csv`} className="btn-quiet no-underline" download>Marker schedule (CSV)</a>
-            {isRoute ? <a href={`/studio/exhibits/${exhibit.slug}/points.geojson`} className="btn-quiet no-underline" download>Marker points (GeoJSON)</a> : null}
+            {view.exportMenu ? <ExportMenu slug={exhibit.slug} view={view.exportMenu} /> : null}
           </>
         }
       >
@@ -85,35 +102,35 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
       {children}
 
       {/* A direct child of the page's column, so that it stays in view over the whole composer. */}
-      <PreviewPane title={exhibit.title} preview={preview} markers={markers} bands={bands} units={units} flagged={flagged} olderMa={olderMa} youngerMa={youngerMa} dirty={dirty} openWarnings={openWarnings.length} />
+      <Pane title={exhibit.title} preview={preview} markers={markers} bands={bands} units={units} flagged={flagged} olderMa={olderMa} youngerMa={youngerMa} dirty={dirty} openWarnings={openWarnings.length} />
 
       <div className="mt-6 space-y-6">
         {canEdit ? <SettingsForm spec={spec} draft={draft} setField={setField} revision={revision} err={err} /> : null}
 
         {result ? (
           <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
-            <WarningsSection warnings={warnings} acknowledged={acknowledged} canEdit={canEdit} revision={revision} refusal={refusal} />
-            <DurationsSection result={result} units={units} lifeYears={lifeYears} onLifeYears={setLifeYears} />
+            <Warnings warnings={warnings} acknowledged={acknowledged} canEdit={canEdit} revision={revision} refusal={refusal} />
+            <Durations result={result} units={units} lifeYears={lifeYears} onLifeYears={setLifeYears} />
           </div>
         ) : null}
 
-        {impact ? <ImpactSection impact={impact} editionLabel={edition.label} units={units} revision={revision} canEdit={canEdit} /> : null}
+        {impact ? <Impact impact={impact} editionLabel={edition.label} units={units} revision={revision} canEdit={canEdit} /> : null}
 
-        <MarkersTable markers={markers} decaySystems={decaySystems} points={points} flagged={flagged} units={units} isRoute={isRoute} canEdit={canEdit} revision={revision} />
+        <Markers markers={markers} decaySystems={decaySystems} points={points} flagged={flagged} units={units} isRoute={isRoute} canEdit={canEdit} revision={revision} />
 
-        <CoverImageSection revision={revision} canEdit={canEdit} />
+        <Cover revision={revision} canEdit={canEdit} />
 
         {canEdit ? (
           <section className="grid gap-6 lg:grid-cols-3" aria-label="Add markers">
-            <AddBoundaries revision={revision} intervals={intervals.filter((i) => i.baseMa <= olderMa && i.baseMa >= youngerMa)} error={err("add-boundaries", "intervalName") ?? err("add-boundaries", "rank")} />
-            <AddEvent revision={revision} error={err("add-event", "eventId")} />
-            <AddCustom revision={revision} fields={fieldsOf("add-custom")} />
+            <Boundaries revision={revision} intervals={boundaryChoices} error={err("add-boundaries", "intervalName") ?? err("add-boundaries", "rank")} />
+            <Event revision={revision} error={err("add-event", "eventId")} />
+            <Custom revision={revision} fields={fieldsOf("add-custom")} />
           </section>
         ) : null}
 
-        <InsetsSection insets={result?.insets} savedCount={view.insetIds.length} units={units} canEdit={canEdit} revision={revision} fields={fieldsOf("add-inset")} />
+        <Insets insets={result?.insets} savedCount={view.insetIds.length} units={units} canEdit={canEdit} revision={revision} fields={fieldsOf("add-inset")} />
 
-        {isRoute ? <RouteSection spec={spec} result={result} markers={markers} units={units} canEdit={canEdit} revision={revision} err={err} /> : null}
+        {isRoute ? <Route spec={spec} result={result} markers={markers} units={units} canEdit={canEdit} revision={revision} err={err} /> : null}
         {isRoute ? <RouteCautions /> : null}
       </div>
     </div>

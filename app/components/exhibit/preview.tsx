@@ -1,7 +1,7 @@
 // The live preview: the scale engine's result for the settings as typed. The pane with the scale
 // statement and the strip stays in view (sticky) while the settings, markers and insets below are
 // edited; durations and the route plan are sections of their own further down.
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import { Form } from "react-router";
 import { FormMessage } from "~/components/forms";
 import { RoutePlan } from "~/components/exhibit/route-plan";
@@ -29,6 +29,10 @@ export interface PreviewPaneProps {
 export function PreviewPane({ title, preview, markers, bands, units, flagged, olderMa, youngerMa, dirty, openWarnings }: PreviewPaneProps) {
   const [shown, setShown] = useState(true);
   const result = preview.ok ? preview.result : null;
+  useEffect(() => {
+    document.documentElement.classList.add("under-preview-pane");
+    return () => document.documentElement.classList.remove("under-preview-pane");
+  }, []);
   return (
     <section className="sticky top-0 z-20 -mx-4 mt-4 max-h-[55vh] overflow-y-auto border-b border-rule bg-white px-4 py-3 shadow-sm sm:mx-0 sm:rounded-b-lg sm:border sm:border-t-0" aria-labelledby="preview-h" data-testid="preview-pane">
       <div className="flex flex-wrap items-center justify-between gap-x-3 gap-y-1">

@@ -2,6 +2,7 @@
 // where the walk starts (the older end) and ends (the present), numbered markers (neighbours too
 // close to number one by one share a label such as "12–18"), a scale bar and a north arrow.
 // Everything stays inside the frame; Start and End never overprint, even on a loop.
+import { useMemo } from "react";
 import type { ScaleResult } from "~/lib/scale/compute";
 import type { LineStringGeometry, ResolvedMarker, UnitsPreference } from "~/lib/exhibit";
 import { scaleBar } from "~/components/exhibit/ruler";
@@ -44,17 +45,29 @@ export function RoutePlan({ geometry, result, markers, units }: { geometry: Line
   const [ref, W] = useWidth<HTMLDivElement>(600);
   const H = Math.round(Math.min(440, Math.max(260, W * 0.62)));
   const coords = geometry.coordinates as number[][];
-  const step = Math.max(1, Math.floor(coords.length / 2000));
-  const pts = coords.filter((_, i) => i % step === 0 || i === coords.length - 1);
-  const lat0 = (Math.min(...pts.map((p) => p[1])) + Math.max(...pts.map((p) => p[1]))) / 2;
-  const k = Math.cos((lat0 * Math.PI) / 180);
-  const xs = pts.map((p) => p[0] * k);
-  const ys = pts.map((p) => -p[1]);
-  const [minX, maxX, minY, maxY] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)];
-  const s = Math.min((W - 2 * M) / (maxX - minX || 1), (H - 2 * M - 24) / (maxY - minY || 1));
-  const px = (lon: number) => M + (lon * k - minX) * s + (W - 2 * M - (maxX - minX) * s) / 2;
-  const py = (lat: number) => M + (-lat - minY) * s + (H - 2 * M - 24 - (maxY - minY) * s) / 2;
-  const d = pts.map((p, i) => `${i ? "L" : "M"}${px(p[0]).toFixed(1)},${py(p[1]).toFixed(1)}`).join(" ");
+  // The projection and the drawn path depend on the route and the frame only, not on the markers:
+  // worked out once, not on every keystroke.
+  const { px, py, d, s } = useMemo(() => {
+    const step = Math.max(1, Math.floor(coords.length / 2000));
+    const pts = coords.filter((_, i) => i % step === 0 || i === coords.length - 1);
+    let [minX, maxX, minY, maxY, minLat, maxLat] = [Infinity, -Infinity, Infinity, -Infinity, Infinity, -Infinity];
+    for (const p of pts) {
+      minLat = Math.min(minLat, p[1]);
+      maxLat = Math.max(maxLat, p[1]);
+    }
+    const k = Math.cos((((minLat + maxLat) / 2) * Math.PI) / 180);
+    for (const p of pts) {
+      minX = Math.min(minX, p[0] * k);
+      maxX = Math.max(maxX, p[0] * k);
+      minY = Math.min(minY, -p[1]);
+      maxY = Math.max(maxY, -p[1]);
+    }
+    const s = Math.min((W - 2 * M) / (maxX - minX || 1), (H - 2 * M - 24) / (maxY - minY || 1));
+    const px = (lon: number) => M + (lon * k - minX) * s + (W - 2 * M - (maxX - minX) * s) / 2;
+    const py = (lat: number) => M + (-lat - minY) * s + (H - 2 * M - 24 - (maxY - minY) * s) / 2;
+    const d = pts.map((p, i) => `${i ? "L" : "M"}${px(p[0]).toFixed(1)},${py(p[1]).toFixed(1)}`).join(" ");
+    return { px, py, d, s };
+  }, [coords, W, H]);
   const first = coords[0];
   const last = coords[coords.length - 1];
   const byId = new Map(result?.points.map((p) => [p.id, p]) ?? []);
