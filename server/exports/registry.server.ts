@@ -141,7 +141,7 @@ function publicationHead(exhibitId: number, number: number) {
 }
 
 /** For pages: the files of an exhibit, in menu order (route-only files left out for straight lengths). */
-export function exportMenu(kind: "length" | "route"): { name: string; title: string; purpose: string }[] {
+export function exportMenuFiles(kind: "length" | "route"): { name: string; title: string; purpose: string }[] {
   return Object.entries(EXPORT_FILES)
     .filter(([, f]) => kind === "route" || !f.routeOnly)
     .map(([name, f]) => ({ name, title: f.title, purpose: f.purpose }));

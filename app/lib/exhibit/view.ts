@@ -26,6 +26,8 @@ export interface ComposerView {
   /** Stored acknowledgements of legibility warnings (acknowledgementOf / withAcknowledgements match them to the warnings by key). */
   acknowledgements: WarningAcknowledgement[];
   canEdit: boolean;
+  /** The export menu (the route adds it): latest publication, organisation slug, files offered. */
+  exportMenu?: { publication: number | null; organisation: string; files: { name: string; title: string; purpose: string }[] };
 }
 
 /** The action's answer when a form is refused: which form, the message, and field → message. */

@@ -12,6 +12,7 @@ import { requireMember, requirePermission } from "#server/auth.server.ts";
 import { composerImages } from "#server/assets/usage.server.ts";
 import { composerView, runComposerCommand } from "#server/exhibits/composer.server.ts";
 import { ExhibitError } from "#server/exhibits/load.server.ts";
+import { exportMenuFiles } from "#server/exports/registry.server.ts";
 import { readExhibitForm } from "#server/exhibits/revise.server.ts";
 import { lifecycleView } from "#server/review/view.server.ts";
 import { noticeHeader } from "#server/session.server.ts";
@@ -26,7 +27,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     composerImages(member.organisation.id, params.slug),
     lifecycleView({ organisationId: member.organisation.id, user: member.user, subject: member.subject }, params.slug),
   ]);
-  return { ...view, images, lifecycle };
+  const exportMenu = { publication: lifecycle.latestPublication?.number ?? null, organisation: lifecycle.organisation, files: exportMenuFiles(view.spec.medium.kind) };
+  return { ...view, images, lifecycle, exportMenu };
 }
 
 const refuse = (status: number, refusal: ComposerRefusal) => data(refusal, { status });
