@@ -1,5 +1,6 @@
 // Account and team operations: invitations, password resets, role changes. Each multi-row change
 // runs in one transaction together with its audit event and any e-mail it sends (outbox).
+import type PgBoss from "pg-boss";
 import { Op, type Transaction } from "sequelize";
 import { z } from "zod";
 import { Invitation, Membership, Organisation, PasswordReset, User } from "../db/models/index.ts";
@@ -7,9 +8,12 @@ import { sequelize } from "./db.server.ts";
 import { INVITATION_DAYS, RESET_MINUTES } from "../app/lib/account-links.ts";
 import { normaliseRoles, ROLES, rolesInWords, type Role } from "../app/lib/roles.ts";
 import { audit } from "./audit.server.ts";
-import { hashPassword, NewPasswordSchema, notFound, verifyPassword } from "./auth.server.ts";
+import { checkPasswordLimited, hashPassword, NewPasswordSchema, notFound, verifyPassword } from "./auth.server.ts";
 import { env } from "./env.server.ts";
+import { logger } from "./logger.server.ts";
 import { queueEmail } from "./mail.server.ts";
+import { getBoss } from "./queue.server.ts";
+import { assertResetRequestAllowed, takeResetEmail } from "./rate-limit.server.ts";
 import { endUserSessions } from "./session.server.ts";
 import { hashToken, newToken } from "./tokens.server.ts";
 
@@ -127,8 +131,11 @@ export async function checkInvitation(token: string, transaction?: Transaction):
   return { ok: true, invitation, organisation: invitation.organisation!, existingUser };
 }
 
-/** Accept an invitation: a new user chooses name + password; an existing user confirms with their password. */
-export async function acceptInvitation(token: string, form: Record<string, unknown>) {
+/**
+ * Accept an invitation: a new user chooses name + password; an existing user confirms with their
+ * password, under the same limits as signing in (the request names the client).
+ */
+export async function acceptInvitation(token: string, form: Record<string, unknown>, request: Request) {
   return sequelize.transaction(async (transaction) => {
     const state = await checkInvitation(token, transaction);
     if (!state.ok) throw new AccountError(state.message);
@@ -136,7 +143,7 @@ export async function acceptInvitation(token: string, form: Record<string, unkno
     let user = state.existingUser;
     if (user) {
       const password = typeof form.password === "string" ? form.password : "";
-      if (!(await verifyPassword(password, user.passwordHash))) throw new AccountError("That is not the password of this account.", "password");
+      if (!(await checkPasswordLimited(request, user.email, password, user.passwordHash))) throw new AccountError("That is not the password of this account.", "password");
     } else {
       const parsed = NewAccountSchema.safeParse(form);
       if (!parsed.success) {
@@ -236,12 +243,49 @@ export async function removeMember(organisation: Organisation, actor: User, memb
 
 // ---------- passwords ----------
 
-/** Always behaves the same whether or not the address has an account. */
-export async function requestPasswordReset(email: string) {
+export const RESET_QUEUE = "password-reset-request";
+let resetQueueReady: Promise<unknown> | undefined;
+
+/**
+ * The forgot-password form. Answers the same, after the same work, whether or not the address has
+ * an account: the client's request limit (RESET_LIMITS.perClient, else RateLimitedError → 429) and
+ * one job in the queue. Whether there is an account, and whether its reset e-mails for the hour are
+ * used up, is decided by the job (`sendPasswordReset`), after the answer has gone.
+ */
+export async function requestPasswordReset(email: string, client: string) {
+  await assertResetRequestAllowed(client);
+  const boss = await getBoss();
+  resetQueueReady ??= boss.createQueue(RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true });
+  await resetQueueReady;
+  await boss.send(RESET_QUEUE, { email });
+}
+
+/** The worker of RESET_QUEUE (registered in server/workers.server.ts). */
+export async function startResetWorker(boss: PgBoss) {
+  resetQueueReady ??= boss.createQueue(RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true });
+  await resetQueueReady;
+  return boss.work<{ email: string }>(RESET_QUEUE, { batchSize: 5, pollingIntervalSeconds: 2 }, async (jobs) => {
+    for (const job of jobs) await sendPasswordReset(job.data.email, job.id);
+  });
+}
+
+/**
+ * One reset request: a link to the account's address, at most RESET_LIMITS.emailsPerAddress an
+ * hour (more requests send nothing; the links already sent still work). Idempotent per job: a job
+ * run twice (the queue delivers at least once) sends one link.
+ */
+export async function sendPasswordReset(email: string, jobId: string) {
   const user = await User.findOne({ where: { email } });
   if (!user) return;
-  const { token, hash } = newToken();
   await sequelize.transaction(async (transaction) => {
+    await sequelize.query(`SELECT pg_advisory_xact_lock(hashtext($1))`, { bind: [`reset:${jobId}`], transaction });
+    const [done] = await sequelize.query(`SELECT 1 FROM audit_events WHERE action = 'password.reset-request' AND details->>'job' = $1`, { bind: [jobId], transaction });
+    if (done.length) return;
+    if (!(await takeResetEmail(email))) {
+      logger.info({ userId: user.id }, "reset e-mail not sent: the hourly limit for this address is used up");
+      return;
+    }
+    const { token, hash } = newToken();
     await PasswordReset.create({ userId: user.id, tokenHash: hash, expiresAt: new Date(Date.now() + RESET_MINUTES * 60_000), usedAt: null }, { transaction });
     const url = link(`/reset-password/${token}`);
     await queueEmail(
@@ -253,7 +297,7 @@ export async function requestPasswordReset(email: string) {
       },
       transaction,
     );
-    await audit({ actorId: user.id, action: "password.reset-request", objectType: "user", objectId: user.id }, transaction);
+    await audit({ actorId: user.id, action: "password.reset-request", objectType: "user", objectId: user.id, details: { job: jobId } }, transaction);
   });
 }
 
@@ -273,6 +317,8 @@ export async function resetPassword(token: string, password: string) {
     if (!user) throw new AccountError("This reset link is not valid.");
     await user.update({ passwordHash: await hashPassword(password) }, { transaction });
     await state.reset.update({ usedAt: new Date() }, { transaction });
+    // Every other unused link of this account dies with this reset.
+    await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction });
     await audit({ actorId: user.id, action: "password.reset", objectType: "user", objectId: user.id }, transaction);
     await endUserSessions(user.id, undefined, transaction);
     return user;

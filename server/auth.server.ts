@@ -1,6 +1,7 @@
 // Sign-in (remix-auth + remix-auth-form + bcryptjs) and the guards every studio route uses:
 // `requireMember` (signed in, in an organisation), `requirePermission` (and may do an action, asked of
 // the permissions table in app/lib/permissions.ts), and the non-throwing `getMember`.
+import { createHash, randomBytes } from "node:crypto";
 import bcrypt from "bcryptjs";
 import { data, redirect } from "react-router";
 import { Authenticator } from "remix-auth";
@@ -11,8 +12,8 @@ import { Membership, Organisation, User } from "../db/models/index.ts";
 import { can, decide, rolesFor, whoMay, type Action, type Resource, type Subject } from "../app/lib/permissions.ts";
 import { normaliseRoles, rolesInWords, type Role } from "../app/lib/roles.ts";
 import { sequelize } from "./db.server.ts";
-import { assertSignInAllowed, clearFailedSignIns, recordFailedSignIn } from "./rate-limit.server.ts";
-import { getSession, sessionStorage } from "./session.server.ts";
+import { beginSignInAttempt, signInSucceeded, type SignInAttempt } from "./rate-limit.server.ts";
+import { deviceCookie, getSession, sessionStorage } from "./session.server.ts";
 
 export const CLIENT_IP_HEADER = "x-eonscale-client-ip";
 export const BCRYPT_COST = 10;
@@ -44,6 +45,44 @@ export function clientAddress(request: Request): string {
 // A real bcrypt hash to compare against when the address is unknown, so both paths take as long.
 const DUMMY_HASH = bcrypt.hashSync("not-a-real-password", BCRYPT_COST);
 
+// ---------- device cookies: browsers where an address signed in before ----------
+
+type DeviceEntry = { a: string; d: string };
+const MAX_DEVICE_ENTRIES = 5;
+const addressTag = (email: string) => createHash("sha256").update(email.trim().toLowerCase()).digest("base64url").slice(0, 22);
+
+async function deviceEntries(request: Request): Promise<DeviceEntry[]> {
+  const value: unknown = await deviceCookie.parse(request.headers.get("Cookie")).catch(() => null);
+  return Array.isArray(value) ? value.filter((e): e is DeviceEntry => typeof e?.a === "string" && typeof e?.d === "string") : [];
+}
+
+/** This browser's device id for the address, when a sign-in to it succeeded here before. */
+export async function trustedDevice(request: Request, email: string): Promise<string | null> {
+  const tag = addressTag(email);
+  return (await deviceEntries(request)).find((e) => e.a === tag)?.d ?? null;
+}
+
+/** The Set-Cookie that makes this browser trusted for the address (kept for a year, five addresses at most). */
+export async function rememberDevice(request: Request, email: string): Promise<string> {
+  const tag = addressTag(email);
+  const entries = await deviceEntries(request);
+  const mine = entries.find((e) => e.a === tag) ?? { a: tag, d: randomBytes(16).toString("base64url") };
+  return deviceCookie.serialize([mine, ...entries.filter((e) => e.a !== tag)].slice(0, MAX_DEVICE_ENTRIES));
+}
+
+/**
+ * Checks a password for an address under the sign-in limits (server/rate-limit.server.ts): throws
+ * RateLimitedError when this client has to wait; the attempt counts as a failure unless the
+ * password is right. `hash` is null for an unknown address (a dummy hash is compared instead).
+ */
+export async function checkPasswordLimited(request: Request, email: string, password: string, hash: string | null): Promise<boolean> {
+  const attempt: SignInAttempt = { email, client: clientAddress(request), device: await trustedDevice(request, email) };
+  await beginSignInAttempt(attempt);
+  const ok = await bcrypt.compare(password, hash ?? DUMMY_HASH);
+  if (ok && hash) await signInSucceeded(attempt);
+  return ok && hash !== null;
+}
+
 export const authenticator = new Authenticator<AuthUser>();
 authenticator.use(
   new FormStrategy<AuthUser>(async ({ form, request }) => {
@@ -53,15 +92,8 @@ authenticator.use(
       throw new SignInError("Check the highlighted fields.", fields);
     }
     const { email, password } = parsed.data;
-    const client = clientAddress(request);
-    await assertSignInAllowed(email, client);
     const user = await User.findOne({ where: { email } });
-    const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
-    if (!user || !ok) {
-      await recordFailedSignIn(email, client);
-      throw new SignInError(SIGN_IN_FAILED);
-    }
-    await clearFailedSignIns(email);
+    if (!(await checkPasswordLimited(request, email, password, user?.passwordHash ?? null)) || !user) throw new SignInError(SIGN_IN_FAILED);
     await user.update({ lastSignInAt: new Date() });
     return { id: user.id, email: user.email };
   }),

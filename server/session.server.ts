@@ -20,6 +20,20 @@ export const sessionCookie = createCookie("en_session", {
   maxAge: SESSION_DAYS * 24 * 3600,
 });
 
+/**
+ * The device cookie (OWASP "Slow Down Online Guessing Attacks with Device Cookies"): after a
+ * right password this browser is trusted for that address, so other clients' failures at the
+ * address never slow it down (server/rate-limit.server.ts). Signed, holds no address in clear.
+ */
+export const deviceCookie = createCookie("en_device", {
+  httpOnly: true,
+  sameSite: "lax",
+  secure,
+  path: "/",
+  secrets,
+  maxAge: 365 * 24 * 3600,
+});
+
 export interface SessionData {
   userId: number;
   organisationId: number;

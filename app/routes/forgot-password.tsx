@@ -5,6 +5,8 @@ import { Wordmark } from "~/components/site-header";
 import { parseForm } from "~/lib/validation";
 import { RESET_MINUTES } from "~/lib/account-links";
 import { requestPasswordReset } from "#server/accounts.server.ts";
+import { clientAddress } from "#server/auth.server.ts";
+import { RateLimitedError, retryAfter } from "#server/rate-limit.server.ts";
 import type { Route } from "./+types/forgot-password";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Eonscale" }];
@@ -15,9 +17,14 @@ const Schema = z.object({
 
 export async function action({ request }: Route.ActionArgs) {
   const parsed = parseForm(Schema, await request.formData());
-  if (!parsed.ok) return data({ sent: false, fields: parsed.fieldErrors }, { status: 400 });
-  await requestPasswordReset(parsed.data.email);
-  return { sent: true, fields: {} as Record<string, string> };
+  if (!parsed.ok) return data({ sent: false, error: null, fields: parsed.fieldErrors }, { status: 400 });
+  try {
+    await requestPasswordReset(parsed.data.email, clientAddress(request));
+  } catch (error) {
+    if (error instanceof RateLimitedError) return data({ sent: false, error: error.message, fields: {} as Record<string, string> }, { status: 429, headers: retryAfter(error) });
+    throw error;
+  }
+  return { sent: true, error: null, fields: {} as Record<string, string> };
 }
 
 export default function ForgotPassword({ actionData }: Route.ComponentProps) {
@@ -32,6 +39,7 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
           </FormMessage>
         ) : (
           <Form method="post" noValidate>
+            <FormMessage>{actionData?.error}</FormMessage>
             <p className="mb-4 text-ink-soft">Enter the e-mail address you sign in with. We'll send a link to choose a new password.</p>
             <Field label="E-mail address" name="email" type="email" autoComplete="email" required error={actionData?.fields.email} />
             <button type="submit" className="btn">Send the link</button>

@@ -4,6 +4,7 @@ import { Wordmark } from "~/components/site-header";
 import { ROLE_SUMMARIES, rolesInWords } from "~/lib/roles";
 import { AccountError, acceptInvitation, checkInvitation } from "#server/accounts.server.ts";
 import { startSession } from "#server/auth.server.ts";
+import { RateLimitedError, retryAfter } from "#server/rate-limit.server.ts";
 import type { Route } from "./+types/invite";
 
 export const meta: Route.MetaFunction = () => [{ title: "Accept an invitation · Eonscale" }];
@@ -23,11 +24,12 @@ export async function loader({ params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const form = Object.fromEntries(await request.formData());
   try {
-    const { user, organisation } = await acceptInvitation(params.token, form);
+    const { user, organisation } = await acceptInvitation(params.token, form, request);
     const cookie = await startSession(request, user.id, organisation.id);
     return redirect("/studio?welcome=1", { headers: { "Set-Cookie": cookie } });
   } catch (error) {
     if (error instanceof AccountError) return data({ error: error.message, field: error.field }, { status: 400 });
+    if (error instanceof RateLimitedError) return data({ error: error.message, field: "_form" }, { status: 429, headers: retryAfter(error) });
     throw error;
   }
 }

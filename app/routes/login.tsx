@@ -1,32 +1,34 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
-import { safeRedirect } from "remix-utils/safe-redirect";
 import { Field, FormMessage } from "~/components/forms";
 import { Wordmark } from "~/components/site-header";
-import { authenticator, getUser, SignInError, startSession } from "#server/auth.server.ts";
-import { RateLimitedError } from "#server/rate-limit.server.ts";
+import { safeRedirectPath } from "~/lib/redirects";
+import { authenticator, getUser, rememberDevice, SignInError, startSession } from "#server/auth.server.ts";
+import { RateLimitedError, retryAfter } from "#server/rate-limit.server.ts";
 import type { Route } from "./+types/login";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Eonscale" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);
-  const redirectTo = safeRedirect(url.searchParams.get("redirectTo"), "/studio");
+  const redirectTo = safeRedirectPath(url.searchParams.get("redirectTo"), "/studio");
   if (await getUser(request)) throw redirect(redirectTo);
   return { redirectTo, reset: url.searchParams.get("reset") === "1" };
 }
 
 export async function action({ request }: Route.ActionArgs) {
   const form = await request.clone().formData();
-  const redirectTo = safeRedirect(String(form.get("redirectTo") ?? ""), "/studio");
+  const redirectTo = safeRedirectPath(form.get("redirectTo"), "/studio");
   const email = String(form.get("email") ?? "");
   try {
     const user = await authenticator.authenticate("form", request);
-    const cookie = await startSession(request, user.id);
-    return redirect(redirectTo, { headers: { "Set-Cookie": cookie } });
+    const headers = new Headers();
+    headers.append("Set-Cookie", await startSession(request, user.id));
+    headers.append("Set-Cookie", await rememberDevice(request, user.email));
+    return redirect(redirectTo, { headers });
   } catch (error) {
     if (error instanceof Response) throw error;
     if (error instanceof RateLimitedError) {
-      return data({ error: error.message, fields: {} as Record<string, string>, email }, { status: 429, headers: { "Retry-After": String(Math.ceil(error.retryAfterSeconds)) } });
+      return data({ error: error.message, fields: {} as Record<string, string>, email }, { status: 429, headers: retryAfter(error) });
     }
     if (error instanceof SignInError) return data({ error: error.message, fields: error.fields, email }, { status: 400 });
     throw error;

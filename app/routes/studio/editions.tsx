@@ -3,7 +3,7 @@
 // discard its own editions; chart stewards make a shared edition the latest and retire or discard
 // shared drafts. The log below lists every edition change the reader is concerned by.
 import { data, Form, Link, redirect, useNavigation } from "react-router";
-import { safeRedirect } from "remix-utils/safe-redirect";
+import { safeRedirectPath } from "~/lib/redirects";
 import { z } from "zod";
 import { EditionBadges } from "~/components/chart/edition-owner";
 import { FormMessage } from "~/components/forms";
@@ -53,7 +53,7 @@ export async function action({ request }: Route.ActionArgs) {
   const { intent, slug } = parsed.data;
   const actor = { id: s.user.id, subject: s.subject };
   let message: string;
-  let to = safeRedirect(parsed.data.redirectTo, "/studio/editions");
+  let to = safeRedirectPath(parsed.data.redirectTo, "/studio/editions");
   try {
     if (intent === "set-current") {
       if (!s.organisation) return data({ error: "Only an organisation has a current edition; you are not a member of one." }, { status: 403 });
