@@ -8,8 +8,6 @@ import { clean, toMetres, toYears, type UnitSystem } from "../units";
 import {
   displayStep,
   distanceLabel,
-  formatCountTwoFigures,
-  formatDuration,
   formatLengthSig,
   formatSig,
   formatYears,
@@ -22,26 +20,12 @@ import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, ty
 import { compareIds } from "./numbering";
 import type { ScaleRequest } from "./schema";
 import { computeWarnings, type ScaleWarning } from "./warnings";
+import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingAt, type Walking } from "./walking";
+
+export * from "./walking";
 
 export type { DistanceLabel } from "./format";
 export type { ScaleWarning, WarningMarker, WarningCode } from "./warnings";
-
-/** FHWA-RD-98-107: 1.2 m/s walking design speed. */
-export const DEFAULT_WALKING_SPEED_MPS = 1.2;
-/** MUTCD §4E.06: 0.9 m/s (3 ft/s) check for slower walkers. */
-export const DEFAULT_ACCESSIBLE_SPEED_MPS = 0.9;
-/**
- * Common practice (not a standard): a step is about 0.66 m (women) to 0.76 m (men). Step counts
- * are shown as that range; `steps` keeps the lower count (the long step), `stepsUpTo` the higher.
- */
-export const STEP_LENGTH_RANGE_M = [0.66, 0.76] as const;
-export const DEFAULT_STEP_LENGTH_M = STEP_LENGTH_RANGE_M[1];
-
-export const WALKING_SOURCES = {
-  walkingSpeed: "FHWA-RD-98-107: 1.2 m/s pedestrian design walking speed",
-  accessibleSpeed: "MUTCD §4E.06: 0.9 m/s (3 ft/s) slow-walker check",
-  stepLength: "common practice: about 0.66–0.76 m per step (not a standard)",
-} as const;
 
 export interface InsetPlacement {
   insetId: string;
@@ -49,18 +33,6 @@ export interface InsetPlacement {
   fromYoungerEndMetres: number;
   uncertaintyMetres: number | null;
   display: DistanceLabel;
-}
-
-export interface Walking {
-  distanceFromStartMetres: number;
-  seconds: number;
-  accessibleSeconds: number;
-  /** Steps at the long step length (the lower count). */
-  steps: number;
-  /** Steps at the short step length of the common-practice range (equal to `steps` when a single step length was asked for). */
-  stepsUpTo: number;
-  /** e.g. "12 min walk (16 min at 0.9 m/s), about 1,100–1,300 steps" */
-  text: string;
 }
 
 export interface PointResult {
@@ -311,26 +283,12 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     const ds = new Float64Array(n);
     for (let i = 0; i < n; i++) ds[i] = routeStart === "older" ? points[i].fromOlderEndMetres : points[i].fromYoungerEndMetres;
     const pos = positionsAt(route, ds);
+    const speeds = { walkingSpeed, accessibleSpeed, stepLength, shortStep, speedText };
     for (let i = 0; i < n; i++) {
       const p = points[i];
-      const d = ds[i];
-      const seconds = d / walkingSpeed;
-      const accessibleSeconds = d / accessibleSpeed;
-      const steps = Math.round(d / stepLength);
-      const stepsUpTo = Math.round(d / shortStep);
-      // A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900".
-      const low = formatCountTwoFigures(steps);
-      const stepsText = steps === stepsUpTo ? `about ${low} steps` : `about ${low}–${formatCountTwoFigures(stepsUpTo)} steps`;
       p.position = { lon: pos[i].lon, lat: pos[i].lat };
       p.bearing = Math.round(pos[i].bearing * 1e6) / 1e6;
-      p.walking = {
-        distanceFromStartMetres: clean(d),
-        seconds: clean(seconds),
-        accessibleSeconds: clean(accessibleSeconds),
-        steps,
-        stepsUpTo,
-        text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${speedText}), ${stepsText}`,
-      };
+      p.walking = walkingAt(ds[i], speeds);
     }
   }
 
