@@ -2,15 +2,11 @@
 // phone: axe-core (run inside Chromium) finds no serious or critical problem, no page scrolls
 // sideways, and no drawn chart text is smaller than 11 px. Each page is photographed at both
 // widths under test-results/screenshots/ (page-<who>-<page>-<width>.png).
-import { readFileSync } from "node:fs";
-import { createRequire } from "node:module";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser } from "../setup/chromium.ts";
-import { BASE, shot } from "./helpers.ts";
+import { axeFindings, BASE, shot } from "./helpers.ts";
 
-const require = createRequire(import.meta.url);
-const AXE = readFileSync(require.resolve("axe-core/axe.min.js"), "utf8");
 const PASSWORD = "deep-time-demo";
 const WIDTHS = [
   { width: 1366, height: 900 },
@@ -44,17 +40,6 @@ async function signedIn(email: string | null): Promise<BrowserContext> {
     await page.close();
   }
   return context;
-}
-
-/** axe's serious and critical findings, one line each with the first few elements. */
-async function axeFindings(page: Page): Promise<string[]> {
-  await page.addScriptTag({ content: AXE });
-  const violations = await page.evaluate(async () => {
-    const w = window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } };
-    const r = await w.axe.run(document, { resultTypes: ["violations"] });
-    return r.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.slice(0, 3).map((n) => n.target.join(" ")) }));
-  });
-  return violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.impact} ${v.id}: ${v.targets.join(" | ")}`);
 }
 
 /** Elements that reach past the right edge of the window (what makes a phone page scroll sideways). */
