@@ -2,7 +2,7 @@
 // happens next, and the one button that moves it on (submit for review, or publish an approved
 // revision). Each button posts its intent with the revision the page shows (a stale page gets 409).
 import { Form, Link } from "react-router";
-import { STATUS_EXPLAINED, STATUS_WORDS, type ExhibitStatus } from "~/lib/review/lifecycle";
+import { dayOf, STATUS_EXPLAINED, STATUS_WORDS, type ExhibitStatus } from "~/lib/review/lifecycle";
 
 export interface LifecycleView {
   slug: string;
@@ -37,8 +37,8 @@ export function LifecycleBar({ view }: { view: LifecycleView }) {
           <p className="mt-1 text-ink-soft">{STATUS_EXPLAINED[status]}</p>
           {view.latestPublication ? (
             <p className="mt-1 text-ink-soft">
-              Visitors see publication {view.latestPublication.number} (revision {view.latestPublication.revision}, {view.latestPublication.at.slice(0, 10)}):{" "}
-              <a href={`/api/exhibits/${view.organisation}/${slug}`}>public JSON</a>.
+              Visitors see publication {view.latestPublication.number} (revision {view.latestPublication.revision}, published <span className="whitespace-nowrap">{dayOf(view.latestPublication.at)}</span>).{" "}
+              <a href={`/api/exhibits/${view.organisation}/${slug}`}>Its data (public JSON)</a>.
             </p>
           ) : null}
         </div>

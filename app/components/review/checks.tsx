@@ -71,19 +71,18 @@ export function FiguresTable({ report }: { report: CheckReport }) {
   const pm = (v: number | null) => (v ? ` ± ${v} Ma` : "");
   return (
     <div className="overflow-x-auto">
-      <table className="w-full font-sans text-sm">
+      <table className="table-cards w-full font-sans text-sm">
         <caption className="sr-only">Boundary ages on the exhibit beside the pinned edition</caption>
         <thead>
-          <tr className="text-left"><th scope="col" className="p-2">#</th><th scope="col" className="p-2">Marker</th><th scope="col" className="p-2">On the exhibit</th><th scope="col" className="p-2">{report.edition.label}</th><th scope="col" className="p-2">Same?</th></tr>
+          <tr className="text-left"><th scope="col" className="p-2">Marker</th><th scope="col" className="p-2">On the exhibit</th><th scope="col" className="p-2">{report.edition.label}</th><th scope="col" className="p-2">Same?</th></tr>
         </thead>
         <tbody>
           {report.figures.map((f) => (
             <tr key={f.markerId} className="border-t border-rule">
-              <td className="p-2">{f.number}</td>
-              <td className="p-2">{f.label}</td>
-              <td className="p-2">{formatAgeMa(f.exhibitAgeMa)}{pm(f.exhibitUncertaintyMa)}</td>
-              <td className="p-2">{f.editionAgeMa === null ? "not in this edition" : `${formatAgeMa(f.editionAgeMa)}${pm(f.editionUncertaintyMa)}`}</td>
-              <td className={`p-2 font-semibold ${f.matches ? "text-ok" : "text-danger"}`}>{f.matches ? "yes" : "NO"}</td>
+              <td className="p-2" data-label="Marker"><span className="num">{f.number}.</span> {f.label}</td>
+              <td className="num p-2" data-label="On the exhibit">{formatAgeMa(f.exhibitAgeMa)}{pm(f.exhibitUncertaintyMa)}</td>
+              <td className="num p-2" data-label={report.edition.label}>{f.editionAgeMa === null ? "not in this edition" : `${formatAgeMa(f.editionAgeMa)}${pm(f.editionUncertaintyMa)}`}</td>
+              <td className={`p-2 font-semibold ${f.matches ? "text-ok" : "text-danger"}`} data-label="Same?">{f.matches ? "yes" : "NO"}</td>
             </tr>
           ))}
         </tbody>

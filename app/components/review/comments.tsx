@@ -3,7 +3,7 @@ import { Form } from "react-router";
 import type { ReviewComment as CommentItem } from "~/lib/review/types";
 
 
-const when = (iso: string) => `${iso.slice(0, 16).replace("T", " ")} UTC`;
+const when = (iso: string) => <span className="whitespace-nowrap">{iso.slice(0, 16).replace("T", " ")} UTC</span>;
 
 function Comment({ c, canComment, canResolve }: { c: CommentItem; canComment: boolean; canResolve: boolean }) {
   return (

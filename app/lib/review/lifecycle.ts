@@ -53,3 +53,33 @@ export function isExhibitStatus(value: unknown): value is ExhibitStatus {
 export function composerPermission(intent: string): "exhibit.publish" | "exhibit.submit" | "exhibit.edit" {
   return intent === "publish" ? "exhibit.publish" : intent === "submit-for-review" ? "exhibit.submit" : "exhibit.edit";
 }
+
+/** What a kept revision's change was, in words (the history page); unknown actions read as their name. */
+export const REVISION_ACTION_WORDS: Record<string, string> = {
+  create: "Created the exhibit",
+  settings: "Changed the settings",
+  "route.replace": "Replaced the route",
+  repin: "Pinned another chart edition",
+  "markers.add-boundaries": "Added boundary markers",
+  "markers.add-event": "Added a library event",
+  "markers.add-custom": "Added a custom age",
+  "markers.edit": "Edited a marker",
+  "markers.remove": "Removed a marker",
+  "markers.combine": "Combined markers",
+  "insets.add": "Added an inset",
+  "insets.remove": "Removed an inset",
+  "warnings.acknowledge": "Acknowledged a warning",
+  "images.set-marker": "Set a marker's image",
+  "images.remove-marker": "Removed a marker's image",
+  "images.set-cover": "Set the cover image",
+  "images.remove-cover": "Removed the cover image",
+};
+
+export function revisionActionWords(action: string): string {
+  return REVISION_ACTION_WORDS[action] ?? action.replace(/[.-]/g, " ");
+}
+
+/** A date as a person reads it ("1 December 2026"), the same on the server and in the browser. */
+export function dayOf(iso: string): string {
+  return new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+}

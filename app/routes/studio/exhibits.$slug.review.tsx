@@ -57,7 +57,7 @@ export default function ReviewPage({ loaderData, actionData }: Route.ComponentPr
         title={`Review: ${exhibit.title}`}
         crumbs={[{ to: "/studio/exhibits", label: "Exhibits" }, { to: `/studio/exhibits/${exhibit.slug}`, label: exhibit.title }]}
         current="Review"
-        lead={<>Status: <strong data-testid="review-status">{STATUS_WORDS[exhibit.status]}</strong> · revision {exhibit.revision} · edited since the last publication by {v.editors.join(", ") || "nobody"}</>}
+        lead={<>Status: <strong data-testid="review-status">{STATUS_WORDS[exhibit.status]}</strong> · revision {exhibit.revision} · {v.publications.length ? "edited since the last publication by" : "edited by"} {v.editors.join(", ") || "nobody"}</>}
         actions={<Link to={`/studio/exhibits/${exhibit.slug}/revisions`} className="btn-quiet no-underline">History</Link>}
       />
       {refusal && !decisionError && refusal.intent !== "comment" ? <div className="mt-4"><FormMessage>{refusal.error}</FormMessage></div> : null}
@@ -103,7 +103,7 @@ export default function ReviewPage({ loaderData, actionData }: Route.ComponentPr
         {v.reviews.length ? (
           <ul className="mt-4 space-y-1 font-sans text-sm">
             {v.reviews.map((r, i) => (
-              <li key={i}>Revision {r.revision}: <strong>{r.decision === "approved" ? "approved" : "changes requested"}</strong> by {r.reviewer}, {r.at.slice(0, 16).replace("T", " ")} UTC{r.comment ? ` — “${r.comment}”` : ""}</li>
+              <li key={i}>Revision {r.revision}: <strong>{r.decision === "approved" ? "approved" : "changes requested"}</strong> by {r.reviewer}, <span className="whitespace-nowrap">{r.at.slice(0, 16).replace("T", " ")} UTC</span>{r.comment ? ` — “${r.comment}”` : ""}</li>
             ))}
           </ul>
         ) : null}

@@ -26,7 +26,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
   const nothing = !diff.added.length && !diff.removed.length && !diff.changed.length && !diff.settings.length;
   return (
     <div>
-      <PageHeader title={`${from.label} → ${to.label}`} crumbs={[{ to: "/studio/exhibits", label: "Exhibits" }, { to: base, label: exhibit.title }, { to: `${base}/revisions`, label: "History" }]} current="Compare" lead={`${diff.unchanged} marker${diff.unchanged === 1 ? "" : "s"} unchanged.`} />
+      <PageHeader title={`Changes from ${from.label} to ${to.label}`} crumbs={[{ to: "/studio/exhibits", label: "Exhibits" }, { to: base, label: exhibit.title }, { to: `${base}/revisions`, label: "History" }]} current="Compare" lead={`${diff.unchanged} marker${diff.unchanged === 1 ? "" : "s"} unchanged.`} />
       <div className="mt-6 space-y-6 font-sans text-sm">
         {nothing ? <p>No differences.</p> : null}
         {diff.settings.length ? <section className="card"><h2 className="text-lg">Settings</h2><ul className="mt-2 list-disc pl-5">{diff.settings.map((s) => <li key={s}>{s}</li>)}</ul></section> : null}

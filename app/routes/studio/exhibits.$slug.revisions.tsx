@@ -2,7 +2,7 @@
 // reviewed and published; links to compare any two (or a revision with the live publication).
 import { Form, Link } from "react-router";
 import { PageHeader } from "~/components/page-header";
-import { STATUS_WORDS } from "~/lib/review/lifecycle";
+import { revisionActionWords, STATUS_WORDS } from "~/lib/review/lifecycle";
 import { requireMember } from "#server/auth.server.ts";
 import { revisionsView } from "#server/review/view.server.ts";
 import type { Route } from "./+types/exhibits.$slug.revisions";
@@ -31,19 +31,20 @@ export default function Revisions({ loaderData }: Route.ComponentProps) {
         </div>
         <button type="submit" className="btn-quiet">Compare</button>
       </Form>
-      <div className="mt-4 overflow-x-auto">
-        <table className="w-full font-sans text-sm">
+      <div className="mt-4">
+        <table className="table-cards w-full font-sans text-sm">
           <caption className="sr-only">Revisions, newest first</caption>
-          <thead><tr className="text-left"><th scope="col" className="p-2">Revision</th><th scope="col" className="p-2">Who</th><th scope="col" className="p-2">What</th><th scope="col" className="p-2">When (UTC)</th><th scope="col" className="p-2">Markers</th><th scope="col" className="p-2">Review / publication</th></tr></thead>
+          <thead><tr className="text-left"><th scope="col" className="p-2">Revision</th><th scope="col" className="p-2">Who</th><th scope="col" className="p-2">What</th><th scope="col" className="p-2">When (UTC)</th><th scope="col" className="p-2">Markers</th><th scope="col" className="p-2">Review / publication</th><th scope="col" className="p-2"><span className="sr-only">Compare</span></th></tr></thead>
           <tbody>
             {revisions.map((r) => (
-              <tr key={r.revision} className="border-t border-rule">
-                <td className="p-2">{r.revision > 1 ? <Link to={`${base}/revisions/compare?from=${r.revision - 1}&to=${r.revision}`}>{r.revision}</Link> : r.revision}</td>
-                <td className="p-2">{r.author}</td>
-                <td className="p-2">{r.action.replace(/\./g, " ").replace(/-/g, " ")}</td>
-                <td className="p-2">{r.at.slice(0, 16).replace("T", " ")}</td>
-                <td className="p-2">{r.markers}</td>
-                <td className="p-2">{[r.reviewed, r.published ? `publication ${r.published}` : null].filter(Boolean).join("; ")}</td>
+              <tr key={r.revision} className="border-t border-rule align-top">
+                <td className="num p-2 font-semibold" data-label="Revision">{r.revision}</td>
+                <td className="p-2" data-label="Who">{r.author}</td>
+                <td className="p-2" data-label="What">{revisionActionWords(r.action)}</td>
+                <td className="num whitespace-nowrap p-2" data-label="When (UTC)">{r.at.slice(0, 16).replace("T", " ")}</td>
+                <td className="num p-2" data-label="Markers">{r.markers}</td>
+                <td className="p-2 max-md:empty:hidden" data-label="Review / publication">{[r.reviewed, r.published ? `publication ${r.published}` : null].filter(Boolean).join("; ")}</td>
+                <td className="p-2 max-md:empty:hidden">{r.revision > 1 ? <Link to={`${base}/revisions/compare?from=${r.revision - 1}&to=${r.revision}`}>What changed from {r.revision - 1}</Link> : null}</td>
               </tr>
             ))}
           </tbody>

@@ -3,7 +3,7 @@
 // refusals of bad input in words.
 import { describe, expect, it } from "vitest";
 import { CompareQuerySchema, MAX_COMMENT_LENGTH, ReviewCommandSchema } from "../../../app/lib/review/forms.ts";
-import { composerPermission, EXHIBIT_STATUSES, isExhibitStatus, STATUS_EXPLAINED, STATUS_WORDS, statusAfterEdit, transitionRefusal, TRANSITIONS, type ExhibitStatus, type Transition } from "../../../app/lib/review/lifecycle.ts";
+import { composerPermission, dayOf, EXHIBIT_STATUSES, isExhibitStatus, revisionActionWords, STATUS_EXPLAINED, STATUS_WORDS, statusAfterEdit, transitionRefusal, TRANSITIONS, type ExhibitStatus, type Transition } from "../../../app/lib/review/lifecycle.ts";
 import { parseForm } from "../../../app/lib/validation.ts";
 
 describe("transitions", () => {
@@ -61,6 +61,20 @@ describe("transitions", () => {
     expect(composerPermission("publish")).toBe("exhibit.publish");
     expect(composerPermission("submit-for-review")).toBe("exhibit.submit");
     for (const intent of ["add-boundaries", "remove-marker", "acknowledge-warning", "approve", ""]) expect(composerPermission(intent)).toBe("exhibit.edit");
+  });
+});
+
+describe("history words", () => {
+  it("every revision action the server records reads as words; an unknown one as its name", () => {
+    const recorded = ["create", "settings", "route.replace", "repin", "markers.add-boundaries", "markers.add-event", "markers.add-custom", "markers.edit", "markers.remove", "markers.combine", "insets.add", "insets.remove", "warnings.acknowledge", "images.set-marker", "images.remove-marker", "images.set-cover", "images.remove-cover"];
+    for (const action of recorded) expect(revisionActionWords(action), action).toMatch(/^[A-Z][a-z]+ [a-z’' ]+/);
+    expect(revisionActionWords("markers.add-custom")).toBe("Added a custom age");
+    expect(revisionActionWords("labels.translate")).toBe("labels translate");
+  });
+
+  it("a day in words, in UTC whatever the clock's zone", () => {
+    expect(dayOf("2026-12-01T23:47:00.000Z")).toBe("1 December 2026");
+    expect(dayOf("2027-01-31T00:00:00Z")).toBe("31 January 2027");
   });
 });
 
