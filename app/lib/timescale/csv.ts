@@ -9,6 +9,7 @@
 // spaces are enclosed in double quotes, with inner quotes doubled. Lines end with "\n" on
 // export; "\r\n", "\n" and "\r" are all read. A UTF-8 byte-order mark is ignored.
 
+import { type CsvCell, unneutraliseCell, writeSafeCsv } from "../csv-safe";
 import { check } from "./check";
 import { validateInterval } from "./schema";
 import type { Interval, ParseResult, Problem } from "./types";
@@ -147,12 +148,9 @@ export function readCsv(text: string): CsvReadResult {
   return { records, errors };
 }
 
-function quoteField(s: string): string {
-  return /[",\r\n]|^\s|\s$/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
-export function writeCsv(rows: ReadonlyArray<ReadonlyArray<string>>): string {
-  return rows.map((r) => r.map(quoteField).join(",")).join("\n") + "\n";
+/** CSV text of rows (csv-stringify, formula-starting text cells neutralised: app/lib/csv-safe.ts). */
+export function writeCsv(rows: ReadonlyArray<ReadonlyArray<CsvCell>>): string {
+  return writeSafeCsv(rows);
 }
 
 // ------------------------------------------------------------------------------------------
@@ -236,7 +234,8 @@ export function parseCsv(text: string, options: ImportOptions = {}): CsvParseRes
 
   let rowsValid = problems.length === 0;
   for (const rec of records.slice(1)) {
-    const get = (c: Column) => (index.has(c) ? (rec.fields[index.get(c)!] ?? "") : "");
+    // A cell Eonscale neutralised on export ('=…) reads back as written (app/lib/csv-safe.ts).
+    const get = (c: Column) => unneutraliseCell(index.has(c) ? (rec.fields[index.get(c)!] ?? "") : "");
     const nameText = get("name");
     if (rec.fields.length !== columns.length) {
       problems.push({
