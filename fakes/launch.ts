@@ -5,11 +5,12 @@
 // idempotent. A start that fails stops the stand-ins this run started.
 import { spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
-import { existsSync, readFileSync, writeFileSync } from "node:fs";
+import { existsSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { REPO_ROOT } from "./config.ts";
 import { inboxPage } from "./inbox-page.ts";
 import { ServiceError, startServices, stopServices, type ServiceName } from "./services.ts";
+import { pidAlive } from "./util.ts";
 
 const dev = process.argv.includes("--dev");
 process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
@@ -22,6 +23,29 @@ function localSessionSecret(dataDir: string): string {
   const secret = randomBytes(32).toString("base64url");
   writeFileSync(file, `${secret}\n`, { mode: 0o600 });
   return secret;
+}
+
+/**
+ * App servers of this checkout already running (`.data/app-<port>.pid`): a second `npm start` on
+ * another PORT reuses the stand-ins they use and their build instead of rebuilding under them.
+ */
+function runningAppServers(dataDir: string): number[] {
+  return readdirSync(dataDir)
+    .map((f) => /^app-(\d+)\.pid$/.exec(f))
+    .filter((m): m is RegExpExecArray => m !== null)
+    .filter((m) => {
+      const pid = Number(readFileSync(path.join(dataDir, m[0]), "utf8"));
+      if (pid !== process.pid && pidAlive(pid)) return true;
+      rmSync(path.join(dataDir, m[0]), { force: true }); // left by a server that was killed
+      return false;
+    })
+    .map((m) => Number(m[1]));
+}
+
+function recordAppServer(dataDir: string, port: number) {
+  const file = path.join(dataDir, `app-${port}.pid`);
+  writeFileSync(file, String(process.pid));
+  process.once("exit", () => rmSync(file, { force: true }));
 }
 
 function step(label: string) {
@@ -50,7 +74,12 @@ try {
   }
   done();
 
-  if (!dev && !process.argv.includes("--no-build")) {
+  const others = runningAppServers(config.dataDir);
+  const buildDir = path.join(REPO_ROOT, process.env.EONSCALE_BUILD_DIR || "build");
+  if (others.length && !dev) {
+    console.log(`  another app server of this checkout is running (port ${others.join(", ")}): reusing its services${existsSync(path.join(buildDir, "server/index.js")) ? " and its build" : ""}`);
+  }
+  if (!dev && !process.argv.includes("--no-build") && !(others.length && existsSync(path.join(buildDir, "server/index.js")))) {
     console.log("Building the app…");
     done = step("built");
     const build = spawnSync("npx", ["react-router", "build"], { stdio: "inherit", cwd: REPO_ROOT, env: process.env });
@@ -60,6 +89,7 @@ try {
 
   const { launch } = await import("../server/index.ts");
   const running = await launch({ dev, before: [{ path: "/dev/mail", handler: inboxPage() }] });
+  recordAppServer(config.dataDir, Number(new URL(running.url).port));
   const { DEMO_PASSWORD, DEMO_USERS, DEMO_ORGANISATION } = await import("../db/seeders/demo/2026.12.01T00.00.00.marrowby-team.ts");
   const people = DEMO_USERS.map((u) => {
     const roles = (u as { roles?: string[] }).roles ?? [(u as { role?: string }).role];
@@ -67,7 +97,7 @@ try {
   });
   console.log(`
 Eonscale is running at ${running.url}${dev ? " (development, hot reload)" : ""}
-Local inbox (e-mail sent by the app): ${running.url}/dev/mail
+Local inbox (e-mail sent by the app; this computer only): ${running.url}/dev/mail
 
 Demo organisation: ${DEMO_ORGANISATION.name}
 ${people.join("\n")}
