@@ -57,7 +57,7 @@ export function EditionsTabs({ canManage, canImport }: { canManage: boolean; can
     { to: "/editions", label: "All editions", end: true },
     { to: "/editions/compare", label: "Compare two editions" },
     ...(canManage ? [{ to: "/studio/editions", label: "Manage", end: true }] : []),
-    ...(canImport ? [{ to: "/studio/editions/import", label: "Import an edition" }] : []),
+    ...(canImport ? [{ to: "/studio/editions/import", label: "Import" }] : []),
   ];
   const { pathname } = useLocation();
   return (

@@ -10,7 +10,7 @@ export const SHOTS = path.resolve("test-results/screenshots");
 mkdirSync(SHOTS, { recursive: true });
 
 export async function shot(page: Page, name: string) {
-  await page.screenshot({ path: path.join(SHOTS, `${name}.png`), fullPage: true });
+  await page.screenshot({ path: path.join(SHOTS, `${name}.png`), fullPage: true, timeout: 90_000 });
 }
 
 export async function signIn(page: Page, email: string, password: string) {
