@@ -6,9 +6,10 @@ import { MAIL_QUEUE, startMailWorker } from "./mail.server.ts";
 import { RESET_QUEUE, startResetWorker } from "./accounts.server.ts";
 import { getBoss, pauseWorkers } from "./queue.server.ts";
 import { startSweeps, SWEEP_QUEUE } from "./sweeps.server.ts";
+import { EXPORT_QUEUE, startExportWorker } from "./exports/fabrication/jobs.server.ts";
 
 /** Every queue this server takes jobs from. */
-export const WORKER_QUEUES = [MAIL_QUEUE, ASSET_PROCESS_QUEUE, ASSET_AVIF_QUEUE, ASSET_CLEANUP_QUEUE, SWEEP_QUEUE, RESET_QUEUE] as const;
+export const WORKER_QUEUES = [MAIL_QUEUE, ASSET_PROCESS_QUEUE, ASSET_AVIF_QUEUE, ASSET_CLEANUP_QUEUE, SWEEP_QUEUE, RESET_QUEUE, EXPORT_QUEUE] as const;
 
 export async function startWorkers() {
   const boss = await getBoss();
@@ -16,6 +17,7 @@ export async function startWorkers() {
   await startResetWorker(boss);
   await startAssetWorkers(boss);
   await startSweeps(boss);
+  await startExportWorker(boss);
   return boss;
 }
 

@@ -29,6 +29,7 @@ import { etagOf, notModified, publicJsonError } from "../editions/http.server.ts
 import { env } from "../env.server.ts";
 import { findPublished } from "../publications/public.server.ts";
 import { pointsGeoJsonFile, pointsGpxFile } from "./points.server.ts";
+import { FABRICATION_FILES } from "./fabrication/files.server.ts";
 import { ExportError, exportErrorData, memberExportSource, publicationSource, type ExportSource } from "./source.server.ts";
 
 export interface ExportContext {
@@ -64,6 +65,7 @@ export interface ExportFile {
 export const EXPORT_FILES: Readonly<Record<string, ExportFile>> = {
   "points.geojson": pointsGeoJsonFile,
   "points.gpx": pointsGpxFile,
+  ...FABRICATION_FILES,
 };
 
 export function exportFileNamed(name: string): ExportFile | null {

@@ -1,6 +1,7 @@
 // An uploaded route file (GeoJSON or GPX) → the LineString an exhibit stores, with its WGS84 length.
 import { parseGeoJsonRoute, parseGpxRoute, type RouteIssue } from "../geo/parse";
 import { prepareRoute } from "../geo/route";
+import { routeElevations } from "../profile/elevations";
 import type { LineStringGeometry } from "./types";
 
 export type RouteFileResult =
@@ -29,5 +30,8 @@ export function readRouteFile(fileName: string, text: string): RouteFileResult {
   const coordinates: [number, number][] = [];
   for (let i = 0; i < c.length; i += 2) coordinates.push([Number(c[i].toFixed(8)), Number(c[i + 1].toFixed(8))]);
   const route = prepareRoute(coordinates.flat());
-  return { ok: true, geometry: { type: "LineString", coordinates }, lengthMetres: route.totalMetres, vertexCount: coordinates.length, format: isGpx ? "gpx" : "geojson", ...(parsed.note ? { note: parsed.note } : {}) };
+  // Elevations, when the file gives one for every point, ride along as a third coordinate (the slope profile reads them).
+  const elevations = routeElevations(text, isGpx, coordinates.length);
+  const stored = elevations ? coordinates.map((c, i) => [c[0], c[1], elevations[i]]) : coordinates;
+  return { ok: true, geometry: { type: "LineString", coordinates: stored }, lengthMetres: route.totalMetres, vertexCount: coordinates.length, format: isGpx ? "gpx" : "geojson", ...(parsed.note ? { note: parsed.note } : {}) };
 }

@@ -32,6 +32,20 @@ export function riversideRoute(): [number, number][] {
   return coords;
 }
 
+/**
+ * Invented elevations for the riverside path (metres, 0.1 m), one per vertex (vertex i is i × 10 m
+ * along): a gentle valley floor with GPS-like jitter of a few decimetres, one climb of 9 % over
+ * 160 m up the old river terrace from 1,800 m (steeper than ABA §1017 allows for that length, so
+ * the slope profile has a flagged stretch), a level terrace, and a 3.5 % descent back to the river.
+ */
+export function riversideElevation(i: number): number {
+  const d = i * 10;
+  const terrace = d < 1800 ? 0 : d < 1960 ? (d - 1800) * 0.09 : d < 2400 ? 14.4 : d < 2811 ? 14.4 - (d - 2400) * 0.035 : 0;
+  const valley = 38 + 2 * Math.sin(d / 400);
+  const jitter = 0.3 * Math.sin(i * 2.3) * Math.cos(i * 0.7);
+  return Number((valley + terrace + jitter).toFixed(1));
+}
+
 // Uses the models, bound here to the instance the migrator was given.
 export const up: Migration = async ({ sequelize }) => {
   const models = await import("../../models/index.ts");
@@ -83,7 +97,7 @@ export const up: Migration = async ({ sequelize }) => {
     // riverside-walk
     const walk = await make({
       slug: "riverside-walk", title: "Riverside walk through deep time", editionId: e2024.id, older: [4567, "Ma"], mediumType: "trail",
-      medium: { kind: "route", geometry: { type: "LineString", coordinates: coords }, routeLengthM: measured, routeVertexCount: coords.length, sourceName: "marrowby-riverside-path.gpx" },
+      medium: { kind: "route", geometry: { type: "LineString", coordinates: coords.map((c, i) => [c[0], c[1], riversideElevation(i)]) }, routeLengthM: measured, routeVertexCount: coords.length, sourceName: "marrowby-riverside-path.gpx" },
     });
     if (walk.created) {
       await addBoundaryMarkers(walk.exhibit.id, await bases(e2024.id, ["eon", "era", "period"], 4567));
