@@ -19,7 +19,9 @@ import { pendingMigrations } from "../db/migrator.ts";
 import { CLIENT_IP_HEADER } from "./auth.server.ts";
 import { closeDatabase, sequelize } from "./db.server.ts";
 import { env } from "./env.server.ts";
-import { logger } from "./logger.server.ts";
+import { logger as appLogger, requestForLog } from "./logger.server.ts";
+import { originGuard, publicUrl } from "./origin.server.ts";
+import { privateResponses } from "./cache-policy.server.ts";
 import { stopBoss } from "./queue.server.ts";
 import { healthRoutes, startDraining } from "./readiness.server.ts";
 import { startWorkers, stopTakingJobs } from "./workers.server.ts";
@@ -44,18 +46,22 @@ export interface AppOptions {
   /** Handlers mounted first, e.g. the local launcher's /dev/mail inbox (never in production). */
   before?: { path: string; handler: express.RequestHandler }[];
   clientDir?: string;
+  /** The request log's logger (tests pass one writing to memory). */
+  logger?: typeof appLogger;
 }
 
 export function createApp(options: AppOptions = {}) {
   const app = express();
   const dev = Boolean(options.devMiddleware);
   app.disable("x-powered-by");
-  if (env().TRUST_PROXY === "true") app.set("trust proxy", true);
+  // Express reads the client address from the right of X-Forwarded-For, skipping this many proxies.
+  app.set("trust proxy", env().TRUST_PROXY);
   for (const { path: at, handler } of options.before ?? []) app.use(at, handler);
 
   app.use(
     pinoHttp({
-      logger,
+      logger: options.logger ?? appLogger,
+      serializers: { req: requestForLog },
       autoLogging: { ignore: (req) => req.url === "/healthz" || req.url === "/readyz" || req.url?.startsWith("/assets/") === true },
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? "error" : res.statusCode >= 400 ? "warn" : "info"),
     }),
@@ -87,6 +93,9 @@ export function createApp(options: AppOptions = {}) {
     }),
   );
   app.use(compression());
+  app.use(publicUrl(env().APP_URL));
+  app.use(originGuard(env().APP_URL));
+  app.use(privateResponses());
 
   // Liveness and readiness for load balancers (server/readiness.server.ts).
   const health = healthRoutes();
@@ -174,22 +183,22 @@ export async function start(options: StartOptions = {}): Promise<Running> {
   });
   const { port } = server.address() as AddressInfo;
   const url = `http://${config.HOST}:${port}`;
-  logger.info({ url }, "Eonscale is listening");
+  appLogger.info({ url }, "Eonscale is listening");
 
   let stopping: Promise<void> | undefined;
   const stop = () => {
     stopping ??= (async () => {
       // Readiness turns 503 and this server takes no new jobs; requests in flight finish.
       startDraining();
-      await stopTakingJobs().catch((error) => logger.error({ err: error }, "pausing the workers failed"));
+      await stopTakingJobs().catch((error) => appLogger.error({ err: error }, "pausing the workers failed"));
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeIdleConnections();
       // Requests in flight get up to 8 s to finish; then their connections are cut.
       const cut = setTimeout(() => server.closeAllConnections(), 8_000);
       await closed;
       clearTimeout(cut);
-      await options.onStop?.().catch((error) => logger.error({ err: error }, "stop hook failed"));
-      await stopBoss().catch((error) => logger.error({ err: error }, "stopping the job queue failed"));
+      await options.onStop?.().catch((error) => appLogger.error({ err: error }, "stop hook failed"));
+      await stopBoss().catch((error) => appLogger.error({ err: error }, "stopping the job queue failed"));
       await closeDatabase().catch(() => {});
     })();
     return stopping;
@@ -197,7 +206,7 @@ export async function start(options: StartOptions = {}): Promise<Running> {
 
   if (options.handleSignals !== false) {
     const onSignal = (signal: NodeJS.Signals) => {
-      logger.info({ signal }, "shutting down");
+      appLogger.info({ signal }, "shutting down");
       const force = setTimeout(() => process.exit(1), 15_000);
       force.unref();
       void stop().then(() => process.exit(0));

@@ -29,7 +29,14 @@ function schemaFor(source: NodeJS.ProcessEnv) {
     S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default(source.S3_ENDPOINT ? "true" : "false"),
     SMTP_URL: z.string(required("SMTP_URL", "an smtp:// or smtps:// URL")).regex(/^smtps?:\/\//, { error: "SMTP_URL must be an smtp:// or smtps:// URL" }),
     MAIL_FROM: z.string().default("Eonscale <no-reply@eonscale.example>"),
-    TRUST_PROXY: z.enum(["true", "false"]).default("false"),
+    // How many proxies in front of the app to believe about the client's address (X-Forwarded-For,
+    // read from the right): 0 (or "false") for none, 1 for one load balancer, and so on. "true" is
+    // read as 1 — never "every hop", which would let a client name its own address.
+    TRUST_PROXY: z
+      .string()
+      .regex(/^(true|false|\d{1,2})$/, { error: "TRUST_PROXY must be the number of trusted proxy hops (0, 1, 2 …), or false (0) or true (1)" })
+      .default("0")
+      .transform((v) => (v === "false" ? 0 : v === "true" ? 1 : Number(v))),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
     MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(30),
     MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).default(12),
