@@ -84,10 +84,11 @@ export function panelPage(strip: StripLayout, index: PanelIndex, panel: Panel, o
   const text = Math.min(C * 0.32, 7);
   shapes.push({ kind: "line", x1: B, y1: y0, x2: B + W, y2: y0, stroke: INK, strokeMm: 0.2 });
   shapes.push({ kind: "text", x: B + 4, y: y0 + C * 0.45, text: `Panel ${panel.number} of ${panel.count} — ${o.exhibitTitle}`, sizeMm: text, font: "sans-bold", fill: INK, anchor: "start" });
-  const stretch = `${fmtMm(panel.startMm)}–${fmtMm(panel.endMm)} mm from the older end · panel ${fmtMm(W)} × ${fmtMm(H)} mm, bleed ${fmtMm(B)} mm`;
+  const overlaps = [panel.overlapBeforeMm > 0 ? `first ${fmtMm(panel.overlapBeforeMm)} mm under panel ${panel.number - 1}` : "", panel.overlapAfterMm > 0 ? `last ${fmtMm(panel.overlapAfterMm)} mm under panel ${panel.number + 1}` : ""].filter(Boolean);
+  const stretch = `${fmtMm(panel.startMm)}–${fmtMm(panel.endMm)} mm from the older end · panel ${fmtMm(W)} × ${fmtMm(H)} mm, bleed ${fmtMm(B)} mm${overlaps.length ? ` · overlap: ${overlaps.join(", ")}` : ""}`;
   shapes.push({ kind: "text", x: B + 4, y: y0 + C * 0.85, text: stretch, sizeMm: text * 0.8, font: "sans", fill: INK, anchor: "start" });
-  if (panel.overlapBeforeMm > 0) overlapMark(shapes, B + panel.overlapBeforeMm, y0, C, `◂ overlap ${fmtMm(panel.overlapBeforeMm)} mm with panel ${panel.number - 1}`, "start", text * 0.6);
-  if (panel.overlapAfterMm > 0) overlapMark(shapes, B + W - panel.overlapAfterMm, y0, C, `overlap ${fmtMm(panel.overlapAfterMm)} mm with panel ${panel.number + 1} ▸`, "end", text * 0.6);
+  if (panel.overlapBeforeMm > 0) overlapMark(shapes, B + panel.overlapBeforeMm, y0, C);
+  if (panel.overlapAfterMm > 0) overlapMark(shapes, B + W - panel.overlapAfterMm, y0, C);
   locationMap(shapes, panel, { x: B + W - Math.min(120, W * 0.3) - 6, y: y0 + C * 0.25, w: Math.min(120, W * 0.3), h: C * 0.4 });
 
   cropMarks(shapes, B, W, H);
@@ -95,9 +96,9 @@ export function panelPage(strip: StripLayout, index: PanelIndex, panel: Panel, o
   return { widthMm: pageW, heightMm: pageH, shapes, trim: { x: B, y: B, w: W, h: H } };
 }
 
-function overlapMark(shapes: Shape[], x: number, y0: number, C: number, label: string, anchor: "start" | "end", size: number) {
+/** A dashed line in the panel's band where the neighbouring panel's edge lies. */
+function overlapMark(shapes: Shape[], x: number, y0: number, C: number) {
   shapes.push({ kind: "line", x1: x, y1: y0, x2: x, y2: y0 + C, stroke: INK, strokeMm: 0.25, dashMm: [1.5, 1], role: "overlap" });
-  shapes.push({ kind: "text", x: anchor === "start" ? x + 1 : x - 1, y: y0 + C * 0.15 + size, text: label, sizeMm: size, font: "sans", fill: INK, anchor: anchor === "start" ? "start" : "end" });
 }
 
 /** All panels as small boxes, this one filled. */

@@ -145,7 +145,7 @@ export function signColours(outdoor: boolean) {
 }
 
 export function layoutSign(input: SignInput): SignResult {
-  const { marker, options: o, rules, snapshot } = input;
+  const { marker, options: o, rules } = input;
   const measure = input.measure ?? roughMeasure;
   const W = o.widthMm;
   const H = o.heightMm;
@@ -154,7 +154,7 @@ export function layoutSign(input: SignInput): SignResult {
   const shapes: Shape[] = [{ kind: "rect", x: 0, y: 0, w: W, h: H, fill: colours.ground }];
   const warnings: string[] = [];
   const name = `Sign ${marker.signNumber} (${marker.label})`;
-  const band = Math.max(4, rules.titleFontMm * 0.25);
+  const band = Math.max(8, 0.05 * H);
   shapes.push({ kind: "rect", x: 0, y: 0, w: W, h: band, fill: marker.color });
 
   // QR code, bottom right, at least the rule-of-thumb size.
@@ -224,6 +224,5 @@ export function layoutSign(input: SignInput): SignResult {
   ];
   for (const c of contrast) if (c.ratio < 4.5) warnings.push(`${name}: ${c.pair} contrast ${c.ratio.toFixed(2)}:1 is under 4.5:1 (${FABRICATION_SOURCES.contrast}).`);
   if (input.watermark) watermark(shapes, input.watermark, W, H);
-  void snapshot;
   return { page: { widthMm: W, heightMm: H, shapes }, warnings, qrBox: { x: qrX, y: qrY, size: qs.totalMm }, contrast };
 }

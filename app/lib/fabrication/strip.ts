@@ -74,8 +74,12 @@ export function layoutStrip(snapshot: PublicationSnapshot, options: StripOptions
       shapes.push({ kind: "rect", x: x0, y: row.y, w: x1 - x0, h: row.h, fill: iv.color, stroke: INK, strokeMm: 0.2 });
       let size = nameSize;
       while (size > 4 && measure(iv.name, size, "sans") + 4 > x1 - x0) size *= 0.85;
-      if (measure(iv.name, size, "sans") + 4 <= x1 - x0) {
-        shapes.push({ kind: "text", x: (x0 + x1) / 2, y: row.y + row.h / 2 + size * 0.35, text: iv.name, sizeMm: size, font: "sans", fill: textOn(iv.color), anchor: "middle" });
+      const w = measure(iv.name, size, "sans");
+      if (w + 4 > x1 - x0) continue;
+      // Long bands repeat their name about every half metre, so every print panel carries it.
+      const copies = Math.max(1, Math.floor((x1 - x0) / Math.max(500, 3 * w)));
+      for (let k = 0; k < copies; k++) {
+        shapes.push({ kind: "text", x: x0 + ((k + 0.5) * (x1 - x0)) / copies, y: row.y + row.h / 2 + size * 0.35, text: iv.name, sizeMm: size, font: "sans", fill: textOn(iv.color), anchor: "middle" });
       }
     }
   }

@@ -53,6 +53,16 @@ export function sansProportions(doc: PDFKit.PDFDocument): FontProportions {
   return { capHeight: f.capHeight / f.unitsPerEm, xHeight: f.xHeight / f.unitsPerEm };
 }
 
+/** Stand-ins for characters the embedded Latin subsets lack (they would print as empty boxes). */
+const FALLBACK: Record<string, string> = { "≤": "<=", "≥": ">=", "→": "->", "−": "-", "′": "'", "″": '"', "≈": "~" };
+
+function printable(doc: PDFKit.PDFDocument, text: string): string {
+  const font = (doc as unknown as { _font: { font: { hasGlyphForCodePoint(cp: number): boolean } } })._font.font;
+  let out = "";
+  for (const ch of text) out += font.hasGlyphForCodePoint(ch.codePointAt(0)!) ? ch : (FALLBACK[ch] ?? "?");
+  return out;
+}
+
 function drawShape(doc: PDFKit.PDFDocument, s: Shape, images: ReadonlyMap<string, Buffer>) {
   switch (s.kind) {
     case "rect": {
@@ -81,10 +91,11 @@ function drawShape(doc: PDFKit.PDFDocument, s: Shape, images: ReadonlyMap<string
     case "text": {
       doc.save();
       doc.font(s.font).fontSize(pt(s.sizeMm)).fillColor(s.fill, s.opacity ?? 1);
-      const w = doc.widthOfString(s.text);
+      const text = printable(doc, s.text);
+      const w = doc.widthOfString(text);
       const dx = s.anchor === "middle" ? -w / 2 : s.anchor === "end" ? -w : 0;
       if (s.rotate) doc.rotate(s.rotate, { origin: [pt(s.x), pt(s.y)] });
-      doc.text(s.text, pt(s.x) + dx, pt(s.y), { lineBreak: false, baseline: "alphabetic" });
+      doc.text(text, pt(s.x) + dx, pt(s.y), { lineBreak: false, baseline: "alphabetic" });
       doc.restore();
       return;
     }
