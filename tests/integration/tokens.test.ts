@@ -7,6 +7,7 @@ import * as forgot from "../../app/routes/forgot-password.tsx";
 import { Invitation, Membership, OutboxMessage, PasswordReset, Session, User } from "../../db/models/index.ts";
 import { inviteMember, RESET_QUEUE, sendPasswordReset } from "../../server/accounts.server.ts";
 import { getBoss } from "../../server/queue.server.ts";
+import { RESET_LIMITS, SIGN_IN_LIMITS } from "../../server/rate-limit.server.ts";
 import { verifyPassword } from "../../server/auth.server.ts";
 import { hashToken, newToken } from "../../server/tokens.server.ts";
 import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle, TEST_PASSWORD, unique } from "../helpers/db.ts";
@@ -172,5 +173,78 @@ describe("password reset", () => {
     expect((unknown.body as { message: string }).message).toMatch(/not valid/);
     await user.reload();
     expect(await verifyPassword(TEST_PASSWORD, user.passwordHash)).toBe(true);
+  });
+});
+
+describe("limits on reset requests and invitation passwords", () => {
+  it("reset requests: the same work for every address (one queued job), e-mails capped per address, 429 with Retry-After per client", async () => {
+    const org = await createOrganisation();
+    const { user } = await createMember(org, "designer");
+    const ghost = `${unique("ghost")}@example.org`;
+    const ip = unique("192.0.2");
+    const ask = (email: string) => settle(() => forgot.action(routeArgs(formRequest("/forgot-password", { email }, { ip }))));
+    // Known and unknown addresses: the same answer after the same work (one job each, nothing else written).
+    const counts = async () => ({ resets: await PasswordReset.count(), mails: await OutboxMessage.count() });
+    const before = await counts();
+    const known = await ask(user.email);
+    const unknown = await ask(ghost);
+    expect(known).toEqual(unknown);
+    expect(await counts()).toEqual(before);
+    expect(await runResetJobs()).toBe(2);
+    expect(await OutboxMessage.count({ where: { to: user.email } })).toBe(1);
+    // Fifteen requests for one address send RESET_LIMITS.emailsPerAddress e-mails, not fifteen.
+    for (let i = 1; i < 15; i++) {
+      const res = await settle(() => forgot.action(routeArgs(formRequest("/forgot-password", { email: user.email }, { ip: unique("198.51.100") }))));
+      expect(res.body).toEqual(known.body);
+    }
+    await runResetJobs();
+    expect(await OutboxMessage.count({ where: { to: user.email } })).toBe(RESET_LIMITS.emailsPerAddress);
+    // One client asking too often is told to wait, with Retry-After.
+    let last = known;
+    for (let i = 2; i <= RESET_LIMITS.perClient + 1; i++) last = await ask(`${unique("many")}@example.org`);
+    expect(last.status).toBe(429);
+    expect(Number(last.headers.get("Retry-After"))).toBeGreaterThan(0);
+    expect((last.body as { error: string }).error).toMatch(/Too many reset requests/);
+  });
+
+  it("a reset job run twice sends one link", async () => {
+    const org = await createOrganisation();
+    const { user } = await createMember(org, "designer");
+    const job = unique("job");
+    await Promise.all([sendPasswordReset(user.email, job), sendPasswordReset(user.email, job)]);
+    await sendPasswordReset(user.email, job);
+    expect(await OutboxMessage.count({ where: { to: user.email } })).toBe(1);
+    expect(await PasswordReset.count({ where: { userId: user.id } })).toBe(1);
+  });
+
+  it("when any reset succeeds, the account's older unused links die", async () => {
+    const org = await createOrganisation();
+    const { user } = await createMember(org, "designer");
+    for (const job of [unique("job"), unique("job")]) await sendPasswordReset(user.email, job);
+    const mails = await OutboxMessage.findAll({ where: { to: user.email }, order: [["id", "ASC"]] });
+    const [older, newer] = mails.map((m) => tokenFromOutbox(m.text, "/reset-password"));
+    const reset = (token: string, password: string) => settle(() => resetRoute.action(routeArgs(formRequest(`/reset-password/${token}`, { password, confirm: password }), { token })));
+    expect((await reset(newer, "newest-password-1")).status).toBe(302);
+    const stale = await reset(older, "older-link-password");
+    expect(stale.status).toBe(400);
+    expect((stale.body as { error: string }).error).toMatch(/already been used/);
+    await user.reload();
+    expect(await verifyPassword("newest-password-1", user.passwordHash)).toBe(true);
+  });
+
+  it("confirming an invitation with an existing account's password is limited like signing in (429, Retry-After, nothing joined)", async () => {
+    const { org, admin } = await setup();
+    const other = await createOrganisation();
+    const { user } = await createMember(other, "designer");
+    await inviteMember({ organisation: org, inviter: admin, email: user.email, roles: ["reviewer"] });
+    const token = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: user.email }, order: [["id", "DESC"]] }))!.text, "/invite");
+    const ip = unique("192.0.2");
+    const accept = (password: string) => settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { password }, { ip }), { token })));
+    for (let i = 0; i < SIGN_IN_LIMITS.freeFailures + 1; i++) expect((await accept(`guess-${i}`)).body).toMatchObject({ field: "password" });
+    const limited = await accept(TEST_PASSWORD);
+    expect(limited.status).toBe(429);
+    expect(Number(limited.headers.get("Retry-After"))).toBeGreaterThan(0);
+    expect(await Membership.count({ where: { userId: user.id } })).toBe(1);
+    expect(await Invitation.count({ where: { email: user.email, acceptedAt: null, revokedAt: null } })).toBe(1);
   });
 });
