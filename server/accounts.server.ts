@@ -16,6 +16,7 @@ import { getBoss } from "./queue.server.ts";
 import { assertResetRequestAllowed, takeResetEmail } from "./rate-limit.server.ts";
 import { endUserSessions } from "./session.server.ts";
 import { hashToken, newToken } from "./tokens.server.ts";
+import { TEXT_LIMITS } from "../app/lib/limits.ts";
 
 export { INVITATION_DAYS, RESET_MINUTES };
 
@@ -27,7 +28,11 @@ export class AccountError extends Error {
   }
 }
 
-const EmailSchema = z.email({ error: "Enter an e-mail address, like name@example.org." }).transform((e) => e.trim().toLowerCase());
+const EmailSchema = z
+  .string({ error: "Enter an e-mail address, like name@example.org." })
+  .max(TEXT_LIMITS.invitations.email, { error: `An e-mail address has at most ${TEXT_LIMITS.invitations.email} characters.` })
+  .pipe(z.email({ error: "Enter an e-mail address, like name@example.org." }))
+  .transform((e) => e.trim().toLowerCase());
 
 /** One or more roles from a form's checkboxes (repeated `roles` fields, or one). Never empty. */
 export const RoleSetSchema = z.preprocess(

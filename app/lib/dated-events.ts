@@ -7,6 +7,7 @@
  * multiply floating-point numbers.
  */
 import { z } from "zod";
+import { TEXT_LIMITS } from "./limits";
 import { SLUG_PATTERN, slugify } from "./slug";
 import { AGE_UNITS, type AgeUnit } from "./units";
 
@@ -42,13 +43,13 @@ export const AGE_UNIT_WORDS: Record<AgeUnit, string> = { a: "years", ka: "thousa
 export const MAX_AGE_MA = 14000;
 
 export const LIBRARY_LIMITS = {
-  name: 160,
-  slug: 80,
+  name: TEXT_LIMITS.dated_events.name,
+  slug: TEXT_LIMITS.dated_events.slug,
   summary: 500,
   citation: 2000,
-  doi: 200,
-  url: 500,
-  datingMethod: 200,
+  doi: TEXT_LIMITS.dated_events.doi,
+  url: TEXT_LIMITS.dated_events.url,
+  datingMethod: TEXT_LIMITS.dated_events.datingMethod,
 } as const;
 
 // ---------------------------------------------------------------------------------------------
@@ -236,7 +237,7 @@ export const DatedEventFormSchema = z
   })
   .transform((v) => ({
     name: v.name,
-    slug: v.slug ? v.slug : slugify(v.name, LIBRARY_LIMITS.slug),
+    slug: v.slug ? v.slug : slugify(v.name, LIBRARY_LIMITS.slug, "event"),
     summary: v.summary,
     ageMa: toMa(v.ageValue, v.ageUnit),
     uncertaintyMa: v.uncertaintyValue ? toMa(v.uncertaintyValue, v.ageUnit) : null,

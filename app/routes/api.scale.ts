@@ -4,6 +4,8 @@
  */
 import type { Route } from "./+types/api.scale";
 import { computeScale, parseScaleRequest } from "~/lib/scale";
+import { DEPTH_MESSAGE, nestingExceeds } from "~/lib/geo/parse";
+import { MAX_GEOJSON_DEPTH } from "~/lib/limits";
 import { BodyTooLargeError, jsonError, jsonResponse, readBodyBytes } from "#server/http.server.ts";
 
 /** Largest accepted request body: 5 MB. */
@@ -37,6 +39,7 @@ export async function action({ request }: Route.ActionArgs) {
   } catch (err) {
     return invalid(400, `The request body is not valid JSON: ${(err as Error).message}`);
   }
+  if (nestingExceeds(body, MAX_GEOJSON_DEPTH)) return invalid(400, `route: ${DEPTH_MESSAGE}`);
   const parsed = parseScaleRequest(body);
   if (!parsed.ok) return jsonResponse(400, { error: parsed.error });
   try {

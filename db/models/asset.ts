@@ -3,6 +3,7 @@ import type { Sequelize } from "sequelize";
 import type { AcceptedFormat, AssetStatus, ServedFormat } from "../../app/lib/images.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** One file made from the original: a web size (WebP/JPEG/AVIF) or the print master. */
 export interface AssetFile {
@@ -47,8 +48,8 @@ export function initAsset(sequelize: Sequelize) {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       organisationId: { type: DataTypes.INTEGER, allowNull: false },
       uploadedById: { type: DataTypes.INTEGER, allowNull: true },
-      originalKey: { type: DataTypes.STRING(300), allowNull: false },
-      originalName: { type: DataTypes.STRING(255), allowNull: false, defaultValue: "" },
+      originalKey: { type: DataTypes.STRING(TEXT_LIMITS.assets.originalKey), allowNull: false },
+      originalName: { type: DataTypes.STRING(TEXT_LIMITS.assets.originalName), allowNull: false, defaultValue: "" },
       format: { type: DataTypes.ENUM("jpeg", "png", "webp", "avif", "tiff"), allowNull: false },
       bytes: { type: DataTypes.BIGINT, allowNull: false },
       width: { type: DataTypes.INTEGER, allowNull: false },
@@ -57,8 +58,8 @@ export function initAsset(sequelize: Sequelize) {
       error: { type: DataTypes.TEXT, allowNull: true },
       files: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       avifStatus: { type: DataTypes.ENUM("pending", "ready", "failed"), allowNull: false, defaultValue: "pending" },
-      alt: { type: DataTypes.STRING(250), allowNull: false, defaultValue: "" },
-      credit: { type: DataTypes.STRING(300), allowNull: false, defaultValue: "" },
+      alt: { type: DataTypes.STRING(TEXT_LIMITS.assets.alt), allowNull: false, defaultValue: "" },
+      credit: { type: DataTypes.STRING(TEXT_LIMITS.assets.credit), allowNull: false, defaultValue: "" },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

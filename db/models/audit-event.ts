@@ -9,6 +9,7 @@ import {
 import type { Sequelize } from "sequelize";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** Who did what to which object, when. Append-only. */
 export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {
@@ -29,9 +30,9 @@ export function initAuditEvent(sequelize: Sequelize) {
       id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
       organisationId: { type: DataTypes.INTEGER, allowNull: true },
       actorId: { type: DataTypes.INTEGER, allowNull: true },
-      action: { type: DataTypes.STRING(100), allowNull: false },
-      objectType: { type: DataTypes.STRING(60), allowNull: false },
-      objectId: { type: DataTypes.STRING(100), allowNull: true },
+      action: { type: DataTypes.STRING(TEXT_LIMITS.audit_events.action), allowNull: false },
+      objectType: { type: DataTypes.STRING(TEXT_LIMITS.audit_events.objectType), allowNull: false },
+      objectId: { type: DataTypes.STRING(TEXT_LIMITS.audit_events.objectId), allowNull: true },
       details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       createdAt: DataTypes.DATE,
     },

@@ -12,6 +12,7 @@ import type { Correction, EditionStatus } from "../../app/lib/timescale/types.ts
 import type { Interval } from "./interval.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 export const EDITION_STATUSES = ["draft", "current", "retired"] as const satisfies readonly EditionStatus[];
 
@@ -53,13 +54,13 @@ export function initChartEdition(sequelize: Sequelize) {
   ChartEdition.init(
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-      slug: { type: DataTypes.STRING(60), allowNull: false, unique: true },
-      label: { type: DataTypes.STRING(100), allowNull: false },
+      slug: { type: DataTypes.STRING(TEXT_LIMITS.chart_editions.slug), allowNull: false, unique: true },
+      label: { type: DataTypes.STRING(TEXT_LIMITS.chart_editions.label), allowNull: false },
       status: { type: DataTypes.ENUM(...EDITION_STATUSES), allowNull: false, defaultValue: "draft" },
       source: { type: DataTypes.TEXT, allowNull: false },
       licence: { type: DataTypes.TEXT, allowNull: false },
       organisationId: { type: DataTypes.INTEGER, allowNull: true },
-      sourceFile: { type: DataTypes.STRING(300), allowNull: true },
+      sourceFile: { type: DataTypes.STRING(TEXT_LIMITS.chart_editions.sourceFile), allowNull: true },
       corrections: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       createdById: { type: DataTypes.INTEGER, allowNull: true },
       madeCurrentById: { type: DataTypes.INTEGER, allowNull: true },

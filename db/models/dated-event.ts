@@ -11,6 +11,7 @@ import type { Sequelize } from "sequelize";
 import { AGE_KINDS, VERIFICATIONS, type AgeKind, type Verification } from "../../app/lib/dated-events.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /**
  * An event that is not a chart boundary ("oldest known mineral grains"), with its age, ± and the
@@ -48,17 +49,17 @@ export function initDatedEvent(sequelize: Sequelize) {
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       organisationId: { type: DataTypes.INTEGER, allowNull: true },
-      slug: { type: DataTypes.STRING(80), allowNull: false },
-      name: { type: DataTypes.STRING(160), allowNull: false },
+      slug: { type: DataTypes.STRING(TEXT_LIMITS.dated_events.slug), allowNull: false },
+      name: { type: DataTypes.STRING(TEXT_LIMITS.dated_events.name), allowNull: false },
       summary: { type: DataTypes.TEXT, allowNull: false },
       ageMa: { type: DataTypes.DECIMAL, allowNull: false },
       uncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
       ageKind: { type: DataTypes.ENUM(...AGE_KINDS), allowNull: false, defaultValue: "point" },
       citation: { type: DataTypes.TEXT, allowNull: false },
-      doi: { type: DataTypes.STRING(200), allowNull: true },
-      url: { type: DataTypes.STRING(500), allowNull: true },
-      datingMethod: { type: DataTypes.STRING(200), allowNull: true },
-      verification: { type: DataTypes.STRING(60), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
+      doi: { type: DataTypes.STRING(TEXT_LIMITS.dated_events.doi), allowNull: true },
+      url: { type: DataTypes.STRING(TEXT_LIMITS.dated_events.url), allowNull: true },
+      datingMethod: { type: DataTypes.STRING(TEXT_LIMITS.dated_events.datingMethod), allowNull: true },
+      verification: { type: DataTypes.STRING(TEXT_LIMITS.dated_events.verification), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
       createdById: { type: DataTypes.INTEGER, allowNull: true },
       updatedById: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,

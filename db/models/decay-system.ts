@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import type { Sequelize } from "sequelize";
 import { VERIFICATIONS, type Verification } from "../../app/lib/dated-events.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /**
  * A radioactive parent → daughter pair with its half-life ± and decay constant, for the "how we
@@ -35,18 +36,18 @@ export function initDecaySystem(sequelize: Sequelize) {
   DecaySystem.init(
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-      slug: { type: DataTypes.STRING(40), allowNull: false, unique: true },
-      parent: { type: DataTypes.STRING(20), allowNull: false },
-      daughter: { type: DataTypes.STRING(20), allowNull: false },
-      decayMode: { type: DataTypes.STRING(200), allowNull: false },
+      slug: { type: DataTypes.STRING(TEXT_LIMITS.decay_systems.slug), allowNull: false, unique: true },
+      parent: { type: DataTypes.STRING(TEXT_LIMITS.decay_systems.parent), allowNull: false },
+      daughter: { type: DataTypes.STRING(TEXT_LIMITS.decay_systems.daughter), allowNull: false },
+      decayMode: { type: DataTypes.STRING(TEXT_LIMITS.decay_systems.decayMode), allowNull: false },
       halfLifeYears: { type: DataTypes.DECIMAL, allowNull: false },
       halfLifeUncertaintyYears: { type: DataTypes.DECIMAL, allowNull: true },
       decayConstantPerYear: { type: DataTypes.DECIMAL, allowNull: false },
       decayConstantStated: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       branchConstantPerYear: { type: DataTypes.DECIMAL, allowNull: true },
       citation: { type: DataTypes.TEXT, allowNull: false },
-      doi: { type: DataTypes.STRING(200), allowNull: true },
-      verification: { type: DataTypes.STRING(60), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
+      doi: { type: DataTypes.STRING(TEXT_LIMITS.decay_systems.doi), allowNull: true },
+      verification: { type: DataTypes.STRING(TEXT_LIMITS.decay_systems.verification), allowNull: false, validate: { isIn: [VERIFICATIONS as unknown as string[]] } },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
       position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE,

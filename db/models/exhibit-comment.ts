@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
 import type { Exhibit } from "./exhibit.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** A review comment on an exhibit or one of its markers; replies point to their parent. Kept across revisions; the designer resolves it. */
 export class ExhibitComment extends Model<InferAttributes<ExhibitComment>, InferCreationAttributes<ExhibitComment>> {
@@ -27,7 +28,7 @@ export function initExhibitComment(sequelize: Sequelize) {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       exhibitId: { type: DataTypes.INTEGER, allowNull: false },
       markerId: { type: DataTypes.INTEGER, allowNull: true },
-      markerLabel: { type: DataTypes.STRING(200), allowNull: true },
+      markerLabel: { type: DataTypes.STRING(TEXT_LIMITS.exhibit_comments.markerLabel), allowNull: true },
       parentId: { type: DataTypes.INTEGER, allowNull: true },
       authorId: { type: DataTypes.INTEGER, allowNull: true },
       body: { type: DataTypes.TEXT, allowNull: false },

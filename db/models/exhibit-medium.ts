@@ -4,6 +4,7 @@ import type { LineStringGeometry } from "../../app/lib/exhibit/types.ts";
 import { MEDIUM_TYPES, type MediumType } from "../../app/lib/scale/legibility.ts";
 import { LENGTH_UNITS, type LengthUnit } from "../../app/lib/units/index.ts";
 import type { Exhibit } from "./exhibit.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** What an exhibit is laid out on: a straight length (wall, rope, banner) or a route (GeoJSON in JSONB). */
 export class ExhibitMedium extends Model<InferAttributes<ExhibitMedium>, InferCreationAttributes<ExhibitMedium>> {
@@ -39,7 +40,7 @@ export function initExhibitMedium(sequelize: Sequelize) {
       geometry: { type: DataTypes.JSONB, allowNull: true },
       routeLengthM: { type: DataTypes.DOUBLE, allowNull: true },
       routeVertexCount: { type: DataTypes.INTEGER, allowNull: true },
-      sourceName: { type: DataTypes.STRING(300), allowNull: true },
+      sourceName: { type: DataTypes.STRING(TEXT_LIMITS.exhibit_media.sourceName), allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -2,6 +2,7 @@ import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAtt
 import type { CheckReport } from "../../app/lib/review/types.ts";
 import type { Exhibit } from "./exhibit.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** A reviewer's decision on one revision, with the automatic check results it was made against. */
 export class ExhibitReview extends Model<InferAttributes<ExhibitReview>, InferCreationAttributes<ExhibitReview>> {
@@ -23,7 +24,7 @@ export function initExhibitReview(sequelize: Sequelize) {
       exhibitId: { type: DataTypes.INTEGER, allowNull: false },
       revision: { type: DataTypes.INTEGER, allowNull: false },
       reviewerId: { type: DataTypes.INTEGER, allowNull: true },
-      decision: { type: DataTypes.STRING(20), allowNull: false },
+      decision: { type: DataTypes.STRING(TEXT_LIMITS.exhibit_reviews.decision), allowNull: false },
       comment: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
       checks: { type: DataTypes.JSONB, allowNull: false },
       createdAt: DataTypes.DATE,

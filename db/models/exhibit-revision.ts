@@ -2,6 +2,7 @@ import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAtt
 import type { RevisionContent } from "../../app/lib/review/types.ts";
 import type { Exhibit } from "./exhibit.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** One revision of an exhibit: who made it, with which change, and a copy of the whole exhibit as it then was. */
 export class ExhibitRevision extends Model<InferAttributes<ExhibitRevision>, InferCreationAttributes<ExhibitRevision>> {
@@ -23,7 +24,7 @@ export function initExhibitRevision(sequelize: Sequelize) {
       exhibitId: { type: DataTypes.INTEGER, allowNull: false },
       revision: { type: DataTypes.INTEGER, allowNull: false },
       authorId: { type: DataTypes.INTEGER, allowNull: true },
-      action: { type: DataTypes.STRING(80), allowNull: false },
+      action: { type: DataTypes.STRING(TEXT_LIMITS.exhibit_revisions.action), allowNull: false },
       content: { type: DataTypes.JSONB, allowNull: false },
       createdAt: DataTypes.DATE,
     },

@@ -17,6 +17,7 @@ import type { Inset } from "./inset.ts";
 import type { Marker } from "./marker.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** A time-as-distance exhibit of one organisation, pinned to one chart edition. */
 export class Exhibit extends Model<InferAttributes<Exhibit>, InferCreationAttributes<Exhibit>> {
@@ -59,8 +60,8 @@ export function initExhibit(sequelize: Sequelize) {
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       organisationId: { type: DataTypes.INTEGER, allowNull: false },
-      title: { type: DataTypes.STRING(200), allowNull: false },
-      slug: { type: DataTypes.STRING(100), allowNull: false },
+      title: { type: DataTypes.STRING(TEXT_LIMITS.exhibits.title), allowNull: false },
+      slug: { type: DataTypes.STRING(TEXT_LIMITS.exhibits.slug), allowNull: false },
       editionId: { type: DataTypes.INTEGER, allowNull: false },
       spanOlderValue: { type: DataTypes.DECIMAL, allowNull: false },
       spanOlderUnit: { type: DataTypes.ENUM(...AGE_UNITS), allowNull: false },
@@ -68,7 +69,7 @@ export function initExhibit(sequelize: Sequelize) {
       spanYoungerUnit: { type: DataTypes.ENUM(...AGE_UNITS), allowNull: false },
       unitsPreference: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
       legibility: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-      status: { type: DataTypes.STRING(20), allowNull: false, defaultValue: "draft" },
+      status: { type: DataTypes.STRING(TEXT_LIMITS.exhibits.status), allowNull: false, defaultValue: "draft" },
       approvedRevision: { type: DataTypes.INTEGER, allowNull: true },
       approvedById: { type: DataTypes.INTEGER, allowNull: true },
       approvedAt: { type: DataTypes.DATE, allowNull: true },

@@ -3,6 +3,7 @@ import type { Sequelize } from "sequelize";
 import type { Asset } from "./asset.ts";
 import type { Exhibit } from "./exhibit.ts";
 import type { Marker } from "./marker.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** An image used on a marker (or, with no marker, as the exhibit's cover), with this use's alt text and credit. */
 export class ImageUse extends Model<InferAttributes<ImageUse>, InferCreationAttributes<ImageUse>> {
@@ -24,8 +25,8 @@ export function initImageUse(sequelize: Sequelize) {
       exhibitId: { type: DataTypes.INTEGER, allowNull: false },
       markerId: { type: DataTypes.INTEGER, allowNull: true },
       assetId: { type: DataTypes.INTEGER, allowNull: false },
-      alt: { type: DataTypes.STRING(250), allowNull: false, defaultValue: "" },
-      credit: { type: DataTypes.STRING(300), allowNull: false, defaultValue: "" },
+      alt: { type: DataTypes.STRING(TEXT_LIMITS.image_uses.alt), allowNull: false, defaultValue: "" },
+      credit: { type: DataTypes.STRING(TEXT_LIMITS.image_uses.credit), allowNull: false, defaultValue: "" },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

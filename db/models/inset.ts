@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import type { Sequelize } from "sequelize";
 import type { Exhibit } from "./exhibit.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** A sub-span of an exhibit shown at a magnified scale, with its own scale statement. */
 export class Inset extends Model<InferAttributes<Inset>, InferCreationAttributes<Inset>> {
@@ -23,7 +24,7 @@ export function initInset(sequelize: Sequelize) {
       olderMa: { type: DataTypes.DECIMAL, allowNull: false },
       youngerMa: { type: DataTypes.DECIMAL, allowNull: false },
       magnification: { type: DataTypes.DOUBLE, allowNull: false },
-      label: { type: DataTypes.STRING(200), allowNull: false },
+      label: { type: DataTypes.STRING(TEXT_LIMITS.insets.label), allowNull: false },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -10,6 +10,7 @@ import {
 import type { Sequelize } from "sequelize";
 import { BOUNDARY_KINDS, RANKS, type BoundaryKind, type Rank } from "../../app/lib/timescale/types.ts";
 import type { ChartEdition } from "./chart-edition.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /**
  * One interval (eon … age) of a chart edition. Ages are NUMERIC without a scale, so Postgres keeps
@@ -46,15 +47,15 @@ export function initInterval(sequelize: Sequelize) {
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       editionId: { type: DataTypes.INTEGER, allowNull: false },
-      name: { type: DataTypes.STRING(120), allowNull: false },
+      name: { type: DataTypes.STRING(TEXT_LIMITS.intervals.name), allowNull: false },
       rank: { type: DataTypes.ENUM(...RANKS), allowNull: false },
       parentId: { type: DataTypes.INTEGER, allowNull: true },
       baseMa: { type: DataTypes.DECIMAL, allowNull: false },
       baseUncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
       topMa: { type: DataTypes.DECIMAL, allowNull: false },
-      color: { type: DataTypes.STRING(7), allowNull: false },
+      color: { type: DataTypes.STRING(TEXT_LIMITS.intervals.color), allowNull: false },
       gssp: { type: DataTypes.BOOLEAN, allowNull: true },
-      boundaryKind: { type: DataTypes.STRING(4), allowNull: true, defaultValue: null, validate: { isIn: [[...BOUNDARY_KINDS]] } },
+      boundaryKind: { type: DataTypes.STRING(TEXT_LIMITS.intervals.boundaryKind), allowNull: true, defaultValue: null, validate: { isIn: [[...BOUNDARY_KINDS]] } },
       approximate: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       names: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       chartOrder: { type: DataTypes.INTEGER, allowNull: false },

@@ -11,6 +11,7 @@ import type { Sequelize } from "sequelize";
 import { ROLES, type Role } from "../../app/lib/roles.ts";
 import type { Organisation } from "./organisation.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** An admin's invitation of an e-mail address to an organisation with a role. Only the token's hash is kept. */
 export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
@@ -36,9 +37,9 @@ export function initInvitation(sequelize: Sequelize) {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       organisationId: { type: DataTypes.INTEGER, allowNull: false },
       invitedById: { type: DataTypes.INTEGER, allowNull: true },
-      email: { type: DataTypes.STRING(254), allowNull: false },
+      email: { type: DataTypes.STRING(TEXT_LIMITS.invitations.email), allowNull: false },
       roles: { type: DataTypes.ARRAY(DataTypes.ENUM(...ROLES)), allowNull: false },
-      tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+      tokenHash: { type: DataTypes.STRING(TEXT_LIMITS.invitations.tokenHash), allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       acceptedAt: { type: DataTypes.DATE, allowNull: true },
       revokedAt: { type: DataTypes.DATE, allowNull: true },

@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { Exhibit } from "./exhibit.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /**
  * A sign number of an exhibit, given to a marker at its first publication and kept for ever (it is
@@ -26,7 +27,7 @@ export function initMarkerSign(sequelize: Sequelize) {
       exhibitId: { type: DataTypes.INTEGER, allowNull: false },
       number: { type: DataTypes.INTEGER, allowNull: false },
       markerId: { type: DataTypes.INTEGER, allowNull: false },
-      label: { type: DataTypes.STRING(200), allowNull: false },
+      label: { type: DataTypes.STRING(TEXT_LIMITS.marker_signs.label), allowNull: false },
       firstPublication: { type: DataTypes.INTEGER, allowNull: false },
       retiredAtPublication: { type: DataTypes.INTEGER, allowNull: true },
       absorbedByNumber: { type: DataTypes.INTEGER, allowNull: true },

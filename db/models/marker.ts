@@ -11,6 +11,7 @@ import type { Sequelize } from "sequelize";
 import { MARKER_KINDS, type MarkerKind } from "../../app/lib/exhibit/types.ts";
 import type { Exhibit } from "./exhibit.ts";
 import type { Interval } from "./interval.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /**
  * A marker on an exhibit: the base of an interval of the pinned edition, a dated event from the
@@ -46,7 +47,7 @@ export function initMarker(sequelize: Sequelize) {
       ageMa: { type: DataTypes.DECIMAL, allowNull: true },
       uncertaintyMa: { type: DataTypes.DECIMAL, allowNull: true },
       source: { type: DataTypes.TEXT, allowNull: true },
-      label: { type: DataTypes.STRING(200), allowNull: false },
+      label: { type: DataTypes.STRING(TEXT_LIMITS.markers.label), allowNull: false },
       text: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
       decaySystemId: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,

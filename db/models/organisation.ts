@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import type { Sequelize } from "sequelize";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
   declare id: CreationOptional<number>;
@@ -16,8 +17,8 @@ export function initOrganisation(sequelize: Sequelize) {
   Organisation.init(
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-      name: { type: DataTypes.STRING(200), allowNull: false },
-      slug: { type: DataTypes.STRING(100), allowNull: false, unique: true },
+      name: { type: DataTypes.STRING(TEXT_LIMITS.organisations.name), allowNull: false },
+      slug: { type: DataTypes.STRING(TEXT_LIMITS.organisations.slug), allowNull: false, unique: true },
       currentEditionId: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

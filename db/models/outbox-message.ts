@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import type { Sequelize } from "sequelize";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 export const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
@@ -24,8 +25,8 @@ export function initOutboxMessage(sequelize: Sequelize) {
   OutboxMessage.init(
     {
       id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
-      to: { type: DataTypes.STRING(254), allowNull: false },
-      subject: { type: DataTypes.STRING(300), allowNull: false },
+      to: { type: DataTypes.STRING(TEXT_LIMITS.outbox_messages.to), allowNull: false },
+      subject: { type: DataTypes.STRING(TEXT_LIMITS.outbox_messages.subject), allowNull: false },
       text: { type: DataTypes.TEXT, allowNull: false },
       html: { type: DataTypes.TEXT, allowNull: true },
       status: { type: DataTypes.ENUM(...OUTBOX_STATUSES), allowNull: false, defaultValue: "pending" },

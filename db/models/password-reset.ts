@@ -9,6 +9,7 @@ import {
 } from "sequelize";
 import type { Sequelize } from "sequelize";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** A single-use password reset link. Only the token's hash is kept. */
 export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
@@ -28,7 +29,7 @@ export function initPasswordReset(sequelize: Sequelize) {
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       userId: { type: DataTypes.INTEGER, allowNull: false },
-      tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+      tokenHash: { type: DataTypes.STRING(TEXT_LIMITS.password_resets.tokenHash), allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE, allowNull: true },
       createdAt: DataTypes.DATE,

@@ -3,6 +3,7 @@ import type { PublicationMeta, PublicationSnapshot } from "../../app/lib/publica
 import type { ChartEdition } from "./chart-edition.ts";
 import type { Exhibit } from "./exhibit.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /**
  * An immutable publication of an approved revision: what visitors, signs and exports read. The
@@ -42,7 +43,7 @@ export function initPublication(sequelize: Sequelize) {
       meta: { type: DataTypes.JSONB, allowNull: false },
       snapshot: { type: DataTypes.JSONB, allowNull: false },
       snapshotCanonical: { type: DataTypes.TEXT, allowNull: false },
-      sha256: { type: DataTypes.STRING(64), allowNull: false },
+      sha256: { type: DataTypes.STRING(TEXT_LIMITS.publications.sha256), allowNull: false },
     },
     { sequelize, tableName: "publications", timestamps: false },
   );

@@ -8,6 +8,7 @@ import {
 } from "sequelize";
 import type { Sequelize } from "sequelize";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** A server-side session; the cookie carries only the (signed) id. */
 export class Session extends Model<InferAttributes<Session>, InferCreationAttributes<Session>> {
@@ -23,7 +24,7 @@ export class Session extends Model<InferAttributes<Session>, InferCreationAttrib
 export function initSession(sequelize: Sequelize) {
   Session.init(
     {
-      id: { type: DataTypes.STRING(64), primaryKey: true },
+      id: { type: DataTypes.STRING(TEXT_LIMITS.sessions.id), primaryKey: true },
       userId: { type: DataTypes.INTEGER, allowNull: true },
       data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       expiresAt: { type: DataTypes.DATE, allowNull: false },

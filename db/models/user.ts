@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import type { Sequelize } from "sequelize";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -16,9 +17,9 @@ export function initUser(sequelize: Sequelize) {
   User.init(
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-      email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
-      name: { type: DataTypes.STRING(200), allowNull: false },
-      passwordHash: { type: DataTypes.STRING(100), allowNull: false },
+      email: { type: DataTypes.STRING(TEXT_LIMITS.users.email), allowNull: false, unique: true },
+      name: { type: DataTypes.STRING(TEXT_LIMITS.users.name), allowNull: false },
+      passwordHash: { type: DataTypes.STRING(TEXT_LIMITS.users.passwordHash), allowNull: false },
       lastSignInAt: { type: DataTypes.DATE, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

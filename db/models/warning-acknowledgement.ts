@@ -2,6 +2,7 @@ import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAtt
 import type { Sequelize } from "sequelize";
 import type { Exhibit } from "./exhibit.ts";
 import type { User } from "./user.ts";
+import { TEXT_LIMITS } from "../../app/lib/limits.ts";
 
 /** A legibility warning accepted with a reason, under the warning's stable key. */
 export class WarningAcknowledgement extends Model<InferAttributes<WarningAcknowledgement>, InferCreationAttributes<WarningAcknowledgement>> {
@@ -22,7 +23,7 @@ export function initWarningAcknowledgement(sequelize: Sequelize) {
     {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       exhibitId: { type: DataTypes.INTEGER, allowNull: false },
-      warningKey: { type: DataTypes.STRING(5000), allowNull: false },
+      warningKey: { type: DataTypes.STRING(TEXT_LIMITS.exhibit_warning_acknowledgements.warningKey), allowNull: false },
       reason: { type: DataTypes.TEXT, allowNull: false },
       acknowledgedById: { type: DataTypes.INTEGER, allowNull: true },
       revision: { type: DataTypes.INTEGER, allowNull: false },

@@ -4,6 +4,7 @@ import { z } from "zod";
 import { MEDIUM_TYPES } from "../scale/legibility";
 import { AGE_UNITS, LENGTH_UNITS, YEARS_PER_AGE_UNIT as f } from "../units";
 import { RANKS } from "../timescale/types";
+import { INT4, MAX_INSET_MAGNIFICATION, TEXT_LIMITS } from "../limits";
 import { SLUG_PATTERN, slugify } from "../slug";
 import { UNITS_PREFERENCES } from "./types";
 
@@ -28,14 +29,14 @@ function cap(s: string) {
 const ageUnit = z.enum(AGE_UNITS, { error: `Choose an age unit: ${AGE_UNITS.join(", ")}.` });
 const lengthUnit = z.enum(LENGTH_UNITS, { error: `Choose a length unit: ${LENGTH_UNITS.join(", ")}.` });
 
-export const TitleSchema = z.string({ error: "Give the exhibit a title." }).trim().min(1, { error: "Give the exhibit a title." }).max(200, { error: "Keep the title under 200 characters." });
+export const TitleSchema = z.string({ error: "Give the exhibit a title." }).trim().min(1, { error: "Give the exhibit a title." }).max(TEXT_LIMITS.exhibits.title, { error: `Keep the title under ${TEXT_LIMITS.exhibits.title} characters.` });
 
 export const SlugSchema = z
   .string({ error: "Give the exhibit a web address (slug)." })
   .trim()
   .toLowerCase()
   .regex(SLUG_PATTERN, { error: "Use lower-case letters, digits and single hyphens, like riverside-walk." })
-  .max(100, { error: "Keep the slug under 100 characters." });
+  .max(TEXT_LIMITS.exhibits.slug, { error: `Keep the slug under ${TEXT_LIMITS.exhibits.slug} characters.` });
 
 export { slugify };
 
@@ -83,7 +84,7 @@ export const EventMarkerSchema = z.object({
 });
 
 export const CustomMarkerSchema = z.object({
-  label: z.string({ error: "Give the marker a label." }).trim().min(1, { error: "Give the marker a label." }).max(200, { error: "Keep the label under 200 characters." }),
+  label: z.string({ error: "Give the marker a label." }).trim().min(1, { error: "Give the marker a label." }).max(TEXT_LIMITS.markers.label, { error: `Keep the label under ${TEXT_LIMITS.markers.label} characters.` }),
   ageValue: numberField("the age", { min: 0 }),
   ageUnit,
   uncertaintyValue: optionalNumber("the uncertainty", { min: 0 }),
@@ -93,7 +94,7 @@ export const CustomMarkerSchema = z.object({
 
 export const MarkerTextSchema = z.object({
   markerId: z.coerce.number({ error: "Missing marker." }).int().positive({ error: "Missing marker." }),
-  label: z.string({ error: "Give the marker a label." }).trim().min(1, { error: "Give the marker a label." }).max(200, { error: "Keep the label under 200 characters." }),
+  label: z.string({ error: "Give the marker a label." }).trim().min(1, { error: "Give the marker a label." }).max(TEXT_LIMITS.markers.label, { error: `Keep the label under ${TEXT_LIMITS.markers.label} characters.` }),
   text: z.string().max(2000, { error: "Keep the text under 2,000 characters (about 75–100 words is the usual label length)." }).default(""),
   decaySystemId: z.preprocess(blankToUndefined, z.coerce.number({ error: "Choose a decay system from the list." }).int().positive({ error: "Choose a decay system from the list." }).optional()),
 });
@@ -104,8 +105,10 @@ export const InsetFormSchema = z
     olderUnit: ageUnit,
     youngerValue: numberField("the inset's younger age", { min: 0 }),
     youngerUnit: ageUnit,
-    magnification: numberField("the magnification").refine((m) => m > 1, { error: "The magnification must be greater than 1×." }),
-    label: z.preprocess(blankToUndefined, z.string().trim().max(200, { error: "Keep the label under 200 characters." }).optional()),
+    magnification: numberField("the magnification")
+      .refine((m) => m > 1, { error: "The magnification must be greater than 1×." })
+      .refine((m) => m <= MAX_INSET_MAGNIFICATION, { error: `The magnification must be at most ${MAX_INSET_MAGNIFICATION.toLocaleString("en-GB")}×.` }),
+    label: z.preprocess(blankToUndefined, z.string().trim().max(TEXT_LIMITS.markers.label, { error: `Keep the label under ${TEXT_LIMITS.markers.label} characters.` }).optional()),
   })
   .superRefine((v, ctx) => {
     if (!(v.olderValue * f[v.olderUnit] > v.youngerValue * f[v.youngerUnit])) {
@@ -113,4 +116,4 @@ export const InsetFormSchema = z
     }
   });
 
-export const RevisionSchema = z.coerce.number({ error: "The form lost its revision number; reload the page." }).int().positive({ error: "The form lost its revision number; reload the page." });
+export const RevisionSchema = z.coerce.number({ error: "The form lost its revision number; reload the page." }).int({ error: "The form lost its revision number; reload the page." }).positive({ error: "The form lost its revision number; reload the page." }).max(INT4.max, { error: "The form's revision number is not one this exhibit can have; reload the page." });

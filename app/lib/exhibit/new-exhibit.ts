@@ -8,6 +8,7 @@ import { slugify } from "../slug";
 import { LengthMediumSchema, NewExhibitSchema, SettingsSchema } from "./forms";
 import { readRouteFile } from "./route-file";
 import type { LineStringGeometry, UnitsPreference } from "./types";
+import { TEXT_LIMITS } from "../limits";
 
 export interface SettingsInput {
   title: string;
@@ -63,7 +64,7 @@ export async function readNewExhibitForm(form: FormData): Promise<{ ok: true; in
     }
   }
   if (!base.ok || !settings.ok || !medium) return { ok: false, fields };
-  const slug = base.data.slug ?? slugify(settings.data.title);
+  const slug = base.data.slug ?? slugify(settings.data.title, TEXT_LIMITS.exhibits.slug, "exhibit");
   if (!slug) return { ok: false, fields: { slug: "Give the exhibit a slug made of letters and digits." } };
   return { ok: true, input: { slug, editionSlug: base.data.editionSlug, settings: settings.data, medium } };
 }

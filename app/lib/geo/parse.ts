@@ -8,6 +8,7 @@
  */
 import { gpx as gpxToGeoJSON } from "@tmcw/togeojson";
 import { DOMParser as XmlDomParser } from "@xmldom/xmldom";
+import { MAX_GEOJSON_DEPTH } from "../limits";
 
 /** Default upper bound on the number of vertices in one route. */
 export const MAX_ROUTE_VERTICES = 200_000;
@@ -107,11 +108,26 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
   }
 }
 
+export const DEPTH_MESSAGE = `The GeoJSON is nested more than ${MAX_GEOJSON_DEPTH} levels deep; a route is a LineString, MultiLineString, Feature or FeatureCollection (a few levels).`;
+
+/** True when arrays/objects nest deeper than `max` levels (counted without recursion, so any depth is safe). */
+export function nestingExceeds(value: unknown, max: number): boolean {
+  const stack: [unknown, number][] = [[value, 1]];
+  while (stack.length) {
+    const [v, depth] = stack.pop()!;
+    if (v === null || typeof v !== "object") continue;
+    if (depth > max) return true;
+    for (const child of Array.isArray(v) ? v : Object.values(v)) if (child !== null && typeof child === "object") stack.push([child, depth + 1]);
+  }
+  return false;
+}
+
 /**
  * Validate a GeoJSON route and flatten it to interleaved lon/lat coordinates.
  * `basePath` prefixes every issue path (e.g. "medium.geometry").
  */
 export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteParseOptions = {}): RouteParseResult {
+  if (nestingExceeds(input, MAX_GEOJSON_DEPTH)) return { ok: false, issues: [{ path: basePath, message: DEPTH_MESSAGE }] };
   const maxVertices = options.maxVertices ?? MAX_ROUTE_VERTICES;
   const out: Collector = { lines: [], issues: [], skippedPoints: 0 };
   collectGeometry(input, basePath, out);

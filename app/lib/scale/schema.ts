@@ -4,6 +4,7 @@
  */
 import { z } from "zod";
 import { parseGeoJsonRoute, parseGpxRoute, MAX_ROUTE_VERTICES } from "../geo/parse";
+import { MAX_INSET_MAGNIFICATION } from "../limits";
 import { prepareRoute, type PreparedRoute } from "../geo/route";
 import {
   AGE_UNITS,
@@ -88,7 +89,7 @@ export const InsetSchema = objectOf("An inset", {
   younger: AgeSchema,
   magnification: finiteNumber("Magnification")
     .gt(1, { error: "An inset magnification must be greater than 1." })
-    .max(1e12, { error: "An inset magnification must be at most 10¹²." }),
+    .max(MAX_INSET_MAGNIFICATION, { error: "An inset magnification must be at most 10¹²." }),
 });
 
 const LengthMediumSchema = z.object({

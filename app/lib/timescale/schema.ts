@@ -1,6 +1,8 @@
 // Row validation for imports (CSV and JSON), with zod 4.
 
 import { z } from "zod";
+import { INT4, TEXT_LIMITS } from "../limits";
+import { CONTROL_CHARACTER_REASON, hasNoControlCharacters } from "../validation";
 import { BOUNDARY_KINDS, RANKS, type Interval, type Problem } from "./types";
 
 const HEX = /^#[0-9A-Fa-f]{6}$/;
@@ -10,7 +12,9 @@ export const intervalSchema = z.strictObject(
     name: z
       .string({ error: "name must be text" })
       .min(1, { error: "name is required" })
-      .refine((s) => s.trim() === s, { error: "name must not start or end with spaces" }),
+      .max(TEXT_LIMITS.intervals.name, { error: `name must be at most ${TEXT_LIMITS.intervals.name} characters` })
+      .refine((s) => s.trim() === s, { error: "name must not start or end with spaces" })
+      .refine(hasNoControlCharacters, { error: `name ${CONTROL_CHARACTER_REASON}` }),
     rank: z.enum(RANKS, { error: `rank must be one of ${RANKS.join(", ")}` }),
     parent: z
       .string({ error: "parent must be the name of another interval, or empty for an eon" })
@@ -33,7 +37,8 @@ export const intervalSchema = z.strictObject(
     order: z
       .number({ error: "order must be a whole number" })
       .int({ error: "order must be a whole number" })
-      .positive({ error: "order must be 1 or more" }),
+      .positive({ error: "order must be 1 or more" })
+      .max(INT4.max, { error: `order must be at most ${INT4.max}` }),
   },
   { error: "each interval must be an object" },
 );

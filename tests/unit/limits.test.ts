@@ -1,0 +1,65 @@
+// Pure parts of the input limits: control characters, slugs from any script, GeoJSON depth.
+import { describe, expect, it } from "vitest";
+import { z } from "zod";
+import { nestingExceeds, parseGeoJsonRoute } from "../../app/lib/geo/parse";
+import { MAX_GEOJSON_DEPTH } from "../../app/lib/limits";
+import { slugify } from "../../app/lib/slug";
+import { controlCharacterPath, parseForm } from "../../app/lib/validation";
+import { intervalSchema } from "../../app/lib/timescale/schema";
+
+function nested(depth: number): unknown {
+  let v: unknown = [0, 0];
+  for (let i = 0; i < depth; i++) v = [v];
+  return v;
+}
+
+describe("control characters", () => {
+  it("a NUL (or any C0/C1 control but tab, LF, CR) is refused with the field named", () => {
+    const r = parseForm(z.object({ label: z.string() }), { label: "Cambrian\u0000base" });
+    expect(r).toEqual({ ok: false, fieldErrors: { label: expect.stringMatching(/^label contains a control character/) }, formError: expect.stringMatching(/label/) });
+    for (const c of ["\u0001", "\u001b", "\u007f", "\u0085"]) expect(controlCharacterPath({ a: { b: [`x${c}`] } })).toBe("a.b.0");
+  });
+
+  it("tabs and line breaks are text", () => {
+    expect(controlCharacterPath({ source: "line one\r\nline\ttwo" })).toBeNull();
+    expect(parseForm(z.object({ s: z.string() }), { s: "a\nb" }).ok).toBe(true);
+  });
+
+  it("an interval name with NUL or over the column's 120 characters is refused", () => {
+    const base = { rank: "age", parent: null, baseMa: 2, baseUncertaintyMa: null, topMa: 1, color: "#ffffff", gssp: null, approximate: false, order: 1, names: {}, boundaryKind: null };
+    expect(intervalSchema.safeParse({ ...base, name: "A\u0000" }).success).toBe(false);
+    expect(intervalSchema.safeParse({ ...base, name: "A".repeat(121) }).success).toBe(false);
+    expect(intervalSchema.safeParse({ ...base, name: "A", order: 99999999999 }).success).toBe(false);
+  });
+});
+
+describe("slugify from any script", () => {
+  it.each([
+    ["Зачелмие", "zachelmie"],
+    ["Ζάκυνθος", "zakynthos"],
+    ["Đồng Văn Karst", "dong-van-karst"],
+  ])("%s → %s", (text, slug) => expect(slugify(text)).toBe(slug));
+
+  it("Japanese falls back to a stable id, never empty", () => {
+    const a = slugify("付加体の年代", 80, "event");
+    expect(a).toMatch(/^event-[0-9a-z]{7}$/);
+    expect(slugify("付加体の年代", 80, "event")).toBe(a);
+    expect(slugify("四万十帯", 80, "event")).not.toBe(a);
+    expect(slugify("  ---  ")).toBe("");
+  });
+});
+
+describe("GeoJSON nesting depth", () => {
+  it("20,000 levels are refused without recursion", () => {
+    expect(nestingExceeds(nested(20000), MAX_GEOJSON_DEPTH)).toBe(true);
+    const r = parseGeoJsonRoute({ type: "LineString", coordinates: nested(20000) }, "medium.geometry");
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.issues[0]).toEqual({ path: "medium.geometry", message: expect.stringMatching(/nested more than 32 levels/) });
+  });
+
+  it("a FeatureCollection of MultiLineStrings is well within the bound", () => {
+    const fc = { type: "FeatureCollection", features: [{ type: "Feature", properties: {}, geometry: { type: "MultiLineString", coordinates: [[[0, 0], [0, 0.01]]] } }] };
+    expect(nestingExceeds(fc, MAX_GEOJSON_DEPTH)).toBe(false);
+    expect(parseGeoJsonRoute(fc).ok).toBe(true);
+  });
+});
