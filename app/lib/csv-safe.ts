@@ -7,7 +7,9 @@
 // is a number, not text, and is written unchanged — it cannot carry a formula, and a negative
 // longitude must stay a number in the spreadsheet. Everything else that begins with a trigger
 // character (labels, sources, interval names, "-1+2", "+44 20 …") is text and gets the quote.
-import { stringify } from "csv-stringify/sync";
+// The package's browser build (it carries its own Buffer): this module also runs in the browser
+// (chart pages import the interval CSV code), where the Node build's top-level Buffer.from fails.
+import { stringify } from "csv-stringify/browser/esm/sync";
 
 const TRIGGERS = /^[=+\-@\t\r]/;
 const PLAIN_NUMBER = /^-?\d+(\.\d+)?$/;
