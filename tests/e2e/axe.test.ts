@@ -88,8 +88,12 @@ async function check(context: BrowserContext, who: string, name: string, path: s
     const page = await context.newPage();
     await page.setViewportSize(size);
     const res = await page.goto(`${BASE}${path}`, { waitUntil: "networkidle", timeout: 90_000 });
-    // Drawings measure their frame once the page has hydrated.
-    await page.waitForTimeout(500);
+    // Drawings are drawn at their frame's width once the page has hydrated.
+    await page.waitForFunction(
+      () => Array.from(document.querySelectorAll("svg[data-testid=scale-strip], svg[data-testid=route-plan]")).every((svg) => Math.abs(Number(svg.getAttribute("width")) - (svg.parentElement as HTMLElement).clientWidth) < 1),
+      undefined,
+      { timeout: 60_000 },
+    );
     expect(res?.status(), `${path} answered ${res?.status()}`).toBeLessThan(400);
     await shot(page, `page-${who}-${name}-${size.width}`).catch((e: Error) => problems.push({ page: path, width: size.width, what: `screenshot: ${e.message.split("\n")[0]}` }));
     for (const what of await axeFindings(page)) problems.push({ page: path, width: size.width, what });

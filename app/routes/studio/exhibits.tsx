@@ -87,7 +87,7 @@ export default function Exhibits({ loaderData }: Route.ComponentProps) {
                     {r.edition}
                     {r.needsRecheck ? <span className="ml-2 inline-block rounded bg-sandstone-100 px-2 py-0.5 text-xs font-semibold text-sandstone-700">needs re-check</span> : null}
                   </td>
-                  <td className="p-3" data-label="Status">{r.status} · saved version {r.revision}</td>
+                  <td className="p-3" data-label="Status">{r.status.replaceAll("_", " ")} · saved version {r.revision}</td>
                   <td className="p-3" data-label="Updated">{r.updated.slice(0, 10)}{r.updatedBy ? ` · ${r.updatedBy}` : ""}</td>
                 </tr>
               ))}
