@@ -1,8 +1,7 @@
 // The exhibit page's export menu: the files made from a publication snapshot (server/exports/
-// registry.server.ts), offered from the latest publication (what the reviewer checked; the default)
-// or from the working copy (every file then says "DRAFT — not checked"). The schedule CSV stays a
-// button of its own beside it.
-import { useId, useState } from "react";
+// registry.server.ts), each offered from the latest publication (what the reviewer checked) and
+// from the working copy (every such file says "DRAFT — not checked"). Plain links in a disclosure:
+// it works before the page's script has loaded. The schedule CSV stays a button of its own.
 
 export interface ExportMenuView {
   /** The exhibit's latest publication number, null while it has none. */
@@ -13,36 +12,37 @@ export interface ExportMenuView {
 }
 
 export function ExportMenu({ slug, view }: { slug: string; view: ExportMenuView }) {
-  const [from, setFrom] = useState<"publication" | "draft">(view.publication ? "publication" : "draft");
-  const id = useId();
   if (view.files.length === 0) return null;
-  const href = (name: string) => `/studio/exhibits/${encodeURIComponent(slug)}/${name}?from=${from}`;
+  const href = (name: string, from: "publication" | "draft") => `/studio/exhibits/${encodeURIComponent(slug)}/${name}?from=${from}`;
   return (
     <details className="relative font-sans text-sm" data-testid="export-menu">
       <summary className="btn-quiet cursor-pointer list-none no-underline">Export files ▾</summary>
-      <div className="absolute right-0 z-20 mt-2 w-[min(26rem,calc(100vw-2rem))] rounded border border-rule bg-paper p-4 text-left shadow-lg">
-        <fieldset>
-          <legend className="font-semibold">Made from</legend>
-          <label className="mt-2 flex items-start gap-2">
-            <input type="radio" name={`${id}-from`} value="publication" checked={from === "publication"} disabled={!view.publication} onChange={() => setFrom("publication")} />
-            <span>{view.publication ? `Publication ${view.publication}: as the reviewer checked it` : "A publication (none yet)"}</span>
-          </label>
-          <label className="mt-1 flex items-start gap-2">
-            <input type="radio" name={`${id}-from`} value="draft" checked={from === "draft"} onChange={() => setFrom("draft")} />
-            <span>The working copy: every file says “DRAFT — not checked”</span>
-          </label>
-        </fieldset>
-        <ul className="mt-3 space-y-2">
+      {/* On phones in the page's flow (never off the screen); wider screens float it over the page, above the sticky preview. */}
+      <div className="mt-2 w-[min(28rem,calc(100vw-2rem))] rounded border border-rule bg-paper p-4 text-left shadow-sm sm:absolute sm:left-0 sm:z-30 sm:shadow-lg">
+        <p className="text-ink-soft">
+          {view.publication
+            ? `From publication ${view.publication}: as the reviewer checked it. From the working copy: every file says “DRAFT — not checked”.`
+            : "Not published yet: files come from the working copy and say “DRAFT — not checked”."}
+        </p>
+        <ul className="mt-3 space-y-3">
           {view.files.map((f) => (
             <li key={f.name}>
-              <a href={href(f.name)} download className="font-semibold">
-                {f.title}
-              </a>
+              <span className="font-semibold text-ink">{f.title}</span>
               <p className="text-ink-soft">{f.purpose}</p>
+              <p className="mt-1 flex flex-wrap gap-x-4 gap-y-1">
+                {view.publication ? (
+                  <a href={href(f.name, "publication")} download aria-label={`${f.title} from publication ${view.publication}`}>
+                    Publication {view.publication}
+                  </a>
+                ) : null}
+                <a href={href(f.name, "draft")} download aria-label={`${f.title} from the working copy (draft)`}>
+                  Working copy (draft)
+                </a>
+              </p>
             </li>
           ))}
         </ul>
-        {view.publication && from === "publication" ? (
+        {view.publication ? (
           <p className="mt-3 text-ink-soft">
             Anyone can fetch a publication’s files without signing in, e.g. <code className="break-all">/api/exhibits/{view.organisation}/{slug}/publications/{view.publication}/{view.files[0].name}</code>
           </p>

@@ -1,4 +1,5 @@
-// Fabrication and installation exports: the marker schedule (CSV) and marker points (GeoJSON).
+// Fabrication and installation exports: the marker schedule (CSV). Marker points (GeoJSON, GPX) are
+// made from publication snapshots in app/lib/exports.
 import type { ScaleResult } from "../scale/compute";
 import { writeCsv } from "../timescale/csv";
 import type { ResolvedMarker } from "./types";
@@ -73,34 +74,4 @@ export function scheduleCsv(rows: ScheduleRow[]): string {
     [...SCHEDULE_HEADER],
     ...rows.map((r) => [String(r.number), r.label, r.kind, r.interval, r.event, r.ageMa, r.ageUncertaintyMa, r.source, r.fromStartM, r.toEndM, r.latitude, r.longitude, r.walkMinutes]),
   ]);
-}
-
-/** Marker points as a GeoJSON FeatureCollection (route exhibits only). */
-export function markerPointsGeoJson(markers: ResolvedMarker[], result: ScaleResult, meta: { exhibit: string; edition: string }) {
-  const byId = new Map(result.points.map((p) => [p.id, p]));
-  return {
-    type: "FeatureCollection" as const,
-    properties: { exhibit: meta.exhibit, chartEdition: meta.edition, note: "Planning coordinates (WGS84), not a survey." },
-    features: markers.flatMap((m) => {
-      const p = byId.get(m.id);
-      if (!p?.position) return [];
-      return [
-        {
-          type: "Feature" as const,
-          geometry: { type: "Point" as const, coordinates: [Number(p.position.lon.toFixed(7)), Number(p.position.lat.toFixed(7))] },
-          properties: {
-            number: m.number,
-            label: m.label,
-            kind: m.kind,
-            ageMa: m.ageMa,
-            ageUncertaintyMa: m.uncertaintyMa,
-            source: m.source,
-            fromStartMetres: Number(p.fromOlderEndMetres.toFixed(3)),
-            bearingDegrees: p.bearing == null ? null : Number(p.bearing.toFixed(1)),
-            walkMinutes: p.walking ? Number((p.walking.seconds / 60).toFixed(1)) : null,
-          },
-        },
-      ];
-    }),
-  };
 }
