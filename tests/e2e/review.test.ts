@@ -94,7 +94,10 @@ describe("review and publication in the browser", () => {
     await designer.locator("#mediumType").selectOption("rope");
     await designer.getByLabel("Length", { exact: true }).fill("54.1");
     await designer.getByRole("button", { name: "Create the exhibit" }).click();
-    await designer.waitForURL(exhibitUrl);
+    await Promise.race([
+      designer.waitForURL(exhibitUrl),
+      designer.locator("[role=alert]").first().waitFor().then(async () => expect.unreachable(`not created: ${await designer.locator("[role=alert]").first().textContent()}`)),
+    ]);
     await designer.getByLabel("All of a rank").selectOption("period");
     await designer.getByRole("button", { name: "Add all" }).click();
     await designer.getByText(/^Added \d+ boundaries\.$/).waitFor();
