@@ -16,8 +16,9 @@ import { SCHEDULE_COLUMNS, scheduleCells } from "../../../app/lib/fabrication/sc
 import { snapshotProfile, trailheadFacts, NO_ELEVATIONS, PLANNING_CAUTION } from "../../../app/lib/profile/trailhead.ts";
 import type { ExportContext, ExportFile } from "../registry.server.ts";
 import { pointsGeoJsonFile, pointsGpxFile } from "../points.server.ts";
-import { panelOptionsFor, panelsDocument, writePanels, type FileOptionsContext } from "../pdf/panels.server.ts";
-import { signOptionsFor, signsDocument, writeSigns } from "../pdf/signs.server.ts";
+import { panelsDocument, writePanels, type FileOptionsContext } from "../pdf/panels.server.ts";
+import { panelOptionsFor, signOptionsFor } from "./options.server.ts";
+import { signsDocument, writeSigns } from "../pdf/signs.server.ts";
 import { trailheadDocument, writeTrailhead } from "../pdf/trailhead.server.ts";
 import { pdfStream } from "../pdf/render.server.ts";
 import { signSettingsForSlug } from "./sign-settings.server.ts";

@@ -18,7 +18,8 @@ import { logger } from "../../logger.server.ts";
 import { getBoss } from "../../queue.server.ts";
 import { getObjectStream, storage } from "../../storage/s3.server.ts";
 import type { ExportContext } from "../registry.server.ts";
-import { panelOptionsFor, panelsDocument, writePanels } from "../pdf/panels.server.ts";
+import { panelsDocument, writePanels } from "../pdf/panels.server.ts";
+import { panelOptionsFor } from "./options.server.ts";
 
 export const EXPORT_QUEUE = "export-file";
 /** Panel files with more pages than this are made in the background when a member asks for them. */

@@ -2,17 +2,14 @@
 // (`?width=&height=&overlap=&bleed=` in mm). Every page is the panel plus its bleed; the strip is
 // laid out once (app/lib/fabrication/strip.ts) and each page cuts its window out of it, so memory
 // stays flat however many panels there are. Large files from the studio go to a background job
-// (exports/jobs.server.ts) that reports its progress.
+// (exports/fabrication/jobs.server.ts) that reports its progress. Options are read in
+// exports/fabrication/options.server.ts; this module only draws (no database, no HTTP).
 import type { PublicationSnapshot } from "../../../app/lib/publication/types.ts";
 import { DRAFT_NOTICE, statusLine } from "../../../app/lib/exports/common.ts";
-import { MAX_PANELS, parsePanelOptions, tilePanels, type PanelOptions } from "../../../app/lib/fabrication/panels.ts";
+import { tilePanels, type PanelOptions } from "../../../app/lib/fabrication/panels.ts";
 import { artHeightMm, indexStrip, panelPage } from "../../../app/lib/fabrication/panel-page.ts";
 import { layoutStrip } from "../../../app/lib/fabrication/strip.ts";
-import { toMetres } from "../../../app/lib/units/index.ts";
-import { ExportError } from "../source.server.ts";
 import { addPage, createPdf, drained, pdfMeasure } from "./render.server.ts";
-
-export const STRAIGHT_ONLY = "Print panels are for straight exhibits (walls, banners, ropes); a route exhibit has sign sheets and a trailhead board.";
 
 export interface FileOptionsContext {
   draft: boolean;
@@ -25,17 +22,6 @@ export function fileQuery(query: URLSearchParams, ignore: readonly string[] = []
   const out: Record<string, string> = {};
   for (const [k, v] of query) if (k !== "from" && !ignore.includes(k)) out[k] = v;
   return out;
-}
-
-/** Panel options for a snapshot, or a 400 naming the field. */
-export function panelOptionsFor(snapshot: PublicationSnapshot, query: URLSearchParams): PanelOptions & { count: number } {
-  if (snapshot.medium.kind !== "length") throw new ExportError(STRAIGHT_ONLY, 404);
-  const medium = snapshot.medium;
-  const parsed = parsePanelOptions(fileQuery(query, ["background"]), medium.panelWidth ? toMetres(medium.panelWidth) * 1000 : null);
-  if (!parsed.ok) throw new ExportError(Object.values(parsed.errors).join(" "), 400);
-  const count = tilePanels(snapshot.scale.totalMetres * 1000, parsed.value).length;
-  if (count > MAX_PANELS) throw new ExportError(`width: ${count} panels is more than ${MAX_PANELS}; choose wider panels.`, 400);
-  return { ...parsed.value, count };
 }
 
 /**

@@ -4,6 +4,7 @@
 import { createRequire } from "node:module";
 import { readFileSync } from "node:fs";
 import { Readable } from "node:stream";
+import { inflateSync } from "node:zlib";
 import PDFDocument from "pdfkit";
 import type { FontName, Measure, Page, Shape } from "../../../app/lib/fabrication/draw.ts";
 import { POINTS_PER_MM } from "../../../app/lib/fabrication/sources.ts";
@@ -16,9 +17,49 @@ const FONT_FILES: Record<FontName, string> = {
   serif: "@fontsource/literata/files/literata-latin-400-normal.woff",
 };
 
+/**
+ * WOFF 1.0 (W3C) → the TrueType font inside it: the same tables, each inflated with zlib when
+ * compressed, behind a new sfnt header. Done once per process; fontkit would otherwise inflate a
+ * WOFF's tables again on every text measurement.
+ */
+export function woffToSfnt(woff: Buffer): Buffer {
+  if (woff.toString("latin1", 0, 4) !== "wOFF") return woff;
+  const flavor = woff.readUInt32BE(4);
+  const numTables = woff.readUInt16BE(12);
+  const tables: { tag: number; checksum: number; data: Buffer }[] = [];
+  for (let i = 0; i < numTables; i++) {
+    const at = 44 + i * 20;
+    const [tag, offset, compLength, origLength, checksum] = [0, 4, 8, 12, 16].map((k) => woff.readUInt32BE(at + k));
+    const raw = woff.subarray(offset, offset + compLength);
+    tables.push({ tag, checksum, data: compLength < origLength ? inflateSync(raw) : Buffer.from(raw) });
+  }
+  const entrySelector = Math.floor(Math.log2(numTables));
+  const searchRange = 2 ** entrySelector * 16;
+  const header = Buffer.alloc(12 + numTables * 16);
+  header.writeUInt32BE(flavor, 0);
+  header.writeUInt16BE(numTables, 4);
+  header.writeUInt16BE(searchRange, 6);
+  header.writeUInt16BE(entrySelector, 8);
+  header.writeUInt16BE(numTables * 16 - searchRange, 10);
+  const parts: Buffer[] = [header];
+  let offset = header.length;
+  tables.forEach((t, i) => {
+    const at = 12 + i * 16;
+    header.writeUInt32BE(t.tag, at);
+    header.writeUInt32BE(t.checksum, at + 4);
+    header.writeUInt32BE(offset, at + 8);
+    header.writeUInt32BE(t.data.length, at + 12);
+    const padded = Buffer.alloc((t.data.length + 3) & ~3);
+    t.data.copy(padded);
+    parts.push(padded);
+    offset += padded.length;
+  });
+  return Buffer.concat(parts);
+}
+
 let fonts: Record<FontName, Buffer> | undefined;
 function fontBytes(): Record<FontName, Buffer> {
-  fonts ??= Object.fromEntries(Object.entries(FONT_FILES).map(([name, file]) => [name, readFileSync(require.resolve(file))])) as Record<FontName, Buffer>;
+  fonts ??= Object.fromEntries(Object.entries(FONT_FILES).map(([name, file]) => [name, woffToSfnt(readFileSync(require.resolve(file)))])) as Record<FontName, Buffer>;
   return fonts;
 }
 

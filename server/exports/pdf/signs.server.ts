@@ -6,27 +6,19 @@
 import QRCode from "qrcode";
 import type { PublicationSnapshot, SnapshotMarker } from "../../../app/lib/publication/types.ts";
 import { alongText, DRAFT_NOTICE, markerPageUrl, statusLine } from "../../../app/lib/exports/common.ts";
-import { layoutSign, parseSignOptions, signRules, SIGN_SIZES, type SignOptions, type SignRules } from "../../../app/lib/fabrication/signs.ts";
+import { layoutSign, signRules, SIGN_SIZES, type SignOptions, type SignRules } from "../../../app/lib/fabrication/signs.ts";
 import { FABRICATION_SOURCES } from "../../../app/lib/fabrication/sources.ts";
 import { wrapText, type Page, type Shape } from "../../../app/lib/fabrication/draw.ts";
 import { Asset } from "../../../db/models/index.ts";
 import type { AssetFile } from "../../../db/models/asset.ts";
 import { getObjectBytes } from "../../storage/s3.server.ts";
 import { logger } from "../../logger.server.ts";
-import { ExportError } from "../source.server.ts";
-import { fileQuery, type FileOptionsContext } from "./panels.server.ts";
+import type { FileOptionsContext } from "./panels.server.ts";
 import { addPage, createPdf, drained, pdfMeasure, sansProportions } from "./render.server.ts";
-import type { SignSettings } from "../../../app/lib/fabrication/signs.ts";
 
 /** The marker's visitor page; for a draft the address it will have if published as it stands. */
 export function signUrl(snapshot: PublicationSnapshot, marker: SnapshotMarker, ctx: FileOptionsContext): string {
   return markerPageUrl(snapshot, marker, ctx) ?? `${ctx.baseUrl}/visit/${encodeURIComponent(snapshot.organisation.slug)}/${encodeURIComponent(snapshot.exhibit.slug)}/${marker.signNumber}`;
-}
-
-export function signOptionsFor(snapshot: PublicationSnapshot, query: URLSearchParams, settings: SignSettings): SignOptions {
-  const parsed = parseSignOptions(fileQuery(query), settings, snapshot.medium.kind === "route" ? "wayside" : "a4");
-  if (!parsed.ok) throw new ExportError(Object.values(parsed.errors).join(" "), 400);
-  return parsed.value;
 }
 
 /** The largest JPEG web size of a marker's image, for the sign (pdfkit embeds JPEG and PNG). */
