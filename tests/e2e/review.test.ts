@@ -68,6 +68,17 @@ async function moveOn(page: Page, button: string, want: string) {
 
 const POLL = { timeout: 15_000 };
 
+/** The composer's custom-age form: the quarry marker (330 Ma) with the given source. */
+async function addQuarryAge(page: Page, source: string) {
+  const form = page.locator("form").filter({ has: page.getByRole("button", { name: "Add the age" }) });
+  await form.locator("input[name=label]").fill("Marrow quarry limestone");
+  await form.locator("input[name=ageValue]").fill("330");
+  await form.locator("select[name=ageUnit]").selectOption("Ma");
+  await form.locator("input[name=source]").fill(source);
+  await form.getByRole("button", { name: "Add the age" }).click();
+  await page.getByText("Added “Marrow quarry limestone”.").waitFor();
+}
+
 beforeAll(async () => {
   browser = await launchBrowser();
 });
@@ -105,13 +116,7 @@ describe("review and publication in the browser", () => {
 
     // The curator (designer and reviewer) adds a custom age: now one of the editors.
     await curator.goto(exhibitUrl);
-    const custom = curator.locator("form").filter({ has: curator.getByRole("button", { name: "Add the age" }) });
-    await custom.locator("input[name=label]").fill("Marrow quarry limestone");
-    await custom.locator("input[name=ageValue]").fill("330");
-    await custom.locator("select[name=ageUnit]").selectOption("Ma");
-    await custom.locator("input[name=source]").fill("Marrowby Museum field notes, quarry survey 2019 (invented demo source)");
-    await custom.getByRole("button", { name: "Add the age" }).click();
-    await curator.getByText("Added “Marrow quarry limestone”.").waitFor();
+    await addQuarryAge(curator, "Marrowby Museum field notes, quarry survey 2019 (invented demo source)");
 
     // The designer submits it for review.
     await designer.reload();
@@ -150,13 +155,7 @@ describe("review and publication in the browser", () => {
     await row.getByText("Edit", { exact: true }).click();
     await row.getByRole("button", { name: "Remove" }).click();
     await designer.getByText("Removed “Marrow quarry limestone”.").waitFor();
-    const again = designer.locator("form").filter({ has: designer.getByRole("button", { name: "Add the age" }) });
-    await again.locator("input[name=label]").fill("Marrow quarry limestone");
-    await again.locator("input[name=ageValue]").fill("330");
-    await again.locator("select[name=ageUnit]").selectOption("Ma");
-    await again.locator("input[name=source]").fill("Marrowby Museum field notes, quarry survey 2019, p. 14 (invented demo source)");
-    await again.getByRole("button", { name: "Add the age" }).click();
-    await designer.getByText("Added “Marrow quarry limestone”.").waitFor();
+    await addQuarryAge(designer, "Marrowby Museum field notes, quarry survey 2019, p. 14 (invented demo source)");
     await moveOn(designer, "Submit for review", "In review");
 
     // The curator edited this exhibit: refused by the four-eyes rule, on the page and over a plain post.
