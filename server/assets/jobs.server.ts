@@ -111,8 +111,14 @@ export async function processAvif(assetId: number, opts: { finalAttempt?: boolea
   if (!asset || asset.status !== "ready" || asset.avifStatus === "ready") return "skipped";
   try {
     const files = await store(assetId, await makeAvifFiles(await getObjectBytes(asset.originalKey)));
-    // Only one run adds the AVIF files (a second finds avif_status already "ready").
-    await sequelize.query(`UPDATE assets SET files = files || $1::jsonb, avif_status = 'ready', updated_at = now() WHERE id = $2 AND avif_status <> 'ready'`, { bind: [JSON.stringify(files), assetId] });
+    // The AVIF files replace any listed before (never appended twice), once: a second run finds
+    // avif_status already "ready".
+    await sequelize.query(
+      `UPDATE assets SET avif_status = 'ready', updated_at = now(),
+         files = COALESCE((SELECT jsonb_agg(f) FROM jsonb_array_elements(files) f WHERE f->>'format' <> 'avif'), '[]'::jsonb) || $1::jsonb
+       WHERE id = $2 AND avif_status <> 'ready'`,
+      { bind: [JSON.stringify(files), assetId] },
+    );
     return "ready";
   } catch (error) {
     if (error instanceof StorageUnavailableError && !opts.finalAttempt) throw error;

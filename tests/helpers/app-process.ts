@@ -113,3 +113,49 @@ export async function startSilentServer(): Promise<{ port: number; close(): Prom
       }),
   };
 }
+
+/**
+ * A TCP relay in front of a service (Postgres, S3, SMTP) that a test can cut and restore: to the
+ * app behind it, a cut looks exactly like the service going away (open connections reset, new ones
+ * refused), and nothing else using the service is disturbed.
+ */
+export async function startCuttableRelay(targetPort: number): Promise<{ port: number; cut(): Promise<void>; restore(): Promise<void> }> {
+  const net = await import("node:net");
+  const sockets = new Set<import("node:net").Socket>();
+  const track = (s: import("node:net").Socket) => {
+    sockets.add(s);
+    s.on("close", () => sockets.delete(s));
+    s.on("error", () => s.destroy());
+  };
+  let server = makeServer();
+  function makeServer() {
+    return net.createServer((client) => {
+      const upstream = net.connect(targetPort, "127.0.0.1");
+      track(client);
+      track(upstream);
+      client.pipe(upstream);
+      upstream.pipe(client);
+      client.on("close", () => upstream.destroy());
+      upstream.on("close", () => client.destroy());
+    });
+  }
+  const listen = (port: number) => new Promise<void>((resolve, reject) => {
+    server.once("error", reject);
+    server.listen(port, "127.0.0.1", () => resolve());
+  });
+  await listen(0);
+  const port = (server.address() as AddressInfo).port;
+  return {
+    port,
+    async cut() {
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        for (const s of sockets) s.destroy();
+      });
+    },
+    async restore() {
+      server = makeServer();
+      await listen(port);
+    },
+  };
+}

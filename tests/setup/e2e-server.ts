@@ -18,7 +18,8 @@ export default async function setup() {
     if (build.status !== 0) throw new Error("react-router build failed");
   }
   server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], { env, stdio: ["ignore", "inherit", "inherit"] });
-  const deadline = Date.now() + 30_000;
+  // Start-up takes 15-20 s on a busy two-core machine (the server build is large).
+  const deadline = Date.now() + 90_000;
   for (;;) {
     try {
       const res = await fetch(`http://127.0.0.1:${E2E_PORT}/healthz`);
@@ -26,7 +27,10 @@ export default async function setup() {
     } catch {
       // not up yet
     }
-    if (Date.now() > deadline) throw new Error(`The app did not answer on port ${E2E_PORT} within 30 s`);
+    if (Date.now() > deadline) {
+      server.kill("SIGKILL"); // never leave it running after a failed setup
+      throw new Error(`The app did not answer on port ${E2E_PORT} within 90 s`);
+    }
     if (server.exitCode !== null) throw new Error(`The app exited with code ${server.exitCode}`);
     await new Promise((r) => setTimeout(r, 250));
   }
