@@ -81,7 +81,13 @@ export function createApp(options: AppOptions = {}) {
         useDefaults: true,
         directives: {
           "script-src": ["'self'", (_req, res) => ((res as Response).locals.cspNonce ? `'nonce-${(res as Response).locals.cspNonce}'` : "'self'"), ...(dev ? ["'unsafe-inline'"] : [])],
+          // <style> elements only from our own files (an injected one could read the page with
+          // CSS selectors); style="" attributes stay allowed, because charts and colour chips set
+          // data-driven colours and widths inline in the server-rendered HTML. 'unsafe-inline' in
+          // style-src remains only for browsers without CSP Level 3 (style-src-elem/-attr).
           "style-src": ["'self'", "'unsafe-inline'"],
+          "style-src-elem": ["'self'", ...(dev ? ["'unsafe-inline'"] : [])],
+          "style-src-attr": ["'unsafe-inline'"],
           "img-src": ["'self'", "data:", "blob:"],
           "connect-src": ["'self'", ...(dev ? ["ws:"] : [])],
           "font-src": ["'self'", "data:"],
