@@ -1,5 +1,8 @@
 // Request bodies with a size limit: Content-Length is checked first, then the stream is counted,
 // so a client that lies about (or omits) the length still cannot make the server buffer more.
+import { ConnectionError } from "sequelize";
+import { logger } from "./logger.server.ts";
+
 export class BodyTooLargeError extends Error {
   constructor(public limit: number) {
     super(`The request body is larger than ${limit} bytes.`);
@@ -57,4 +60,32 @@ export function jsonResponse(status: number, body: unknown, headers: Record<stri
 /** The error body every JSON endpoint uses: { error: { message, issues? } }. */
 export function jsonError(status: number, message: string, headers: Record<string, string> = {}, issues?: { path: string; message: string }[]): Response {
   return jsonResponse(status, { error: issues ? { message, issues } : { message } }, headers);
+}
+
+function isRouterAnswer(error: unknown): boolean {
+  return error instanceof Response || (typeof error === "object" && error !== null && (error as { type?: unknown }).type === "DataWithResponseInit");
+}
+
+/** Errors of a database that cannot be reached (stopped, refused, pool closed or exhausted). */
+export function isDatabaseUnavailable(error: unknown): boolean {
+  if (error instanceof ConnectionError) return true;
+  const message = error instanceof Error ? error.message : "";
+  return /connection manager was closed|ECONNREFUSED|Connection terminated|the database system is (starting up|shutting down)/i.test(message);
+}
+
+/**
+ * An API loader or action whose unexpected errors are still JSON: 503 with Retry-After when the
+ * database cannot be reached, 500 otherwise. Responses the handler throws on purpose pass through.
+ */
+export function jsonOnError<A>(handler: (args: A) => Response | Promise<Response>): (args: A) => Promise<Response> {
+  return async (args: A) => {
+    try {
+      return await handler(args);
+    } catch (error) {
+      if (isRouterAnswer(error)) throw error;
+      if (isDatabaseUnavailable(error)) return jsonError(503, "The database cannot be reached at the moment; try again in a minute.", { "Retry-After": "30" });
+      logger.error({ err: error }, "API request failed");
+      return jsonError(500, "Something went wrong on the server; the error has been logged.");
+    }
+  };
 }

@@ -28,6 +28,11 @@ export const TEXT_LIMITS = {
   sessions: { id: 64 },
   users: { email: 254, name: 200, passwordHash: 100 },
   exhibit_warning_acknowledgements: { warningKey: 5000 },
+  // Tables written by raw SQL (no Sequelize model): listed so the schema check covers every column.
+  exhibit_route_geometries: { sha256: 64 },
+  exhibit_slug_redirects: { oldSlug: 100 },
+  organisation_slug_redirects: { oldSlug: 100 },
+  export_jobs: { file: 40, fileName: 300, s3Key: 300 },
 } as const;
 
 /** PostgreSQL `integer` (int4): every integer a form or API may store (revision, order, ids). */

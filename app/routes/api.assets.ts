@@ -2,7 +2,11 @@
 // 413/415/422 { error: { message } } for too large, wrong type, too many pixels; 503 when S3 is down.
 import type { Route } from "./+types/api.assets";
 import { uploadAction } from "#server/assets/http.server.ts";
+import { jsonOnError } from "#server/http.server.ts";
 
-export function action({ request }: Route.ActionArgs) {
+function actionBody({ request }: Route.ActionArgs) {
   return uploadAction(request);
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const action = jsonOnError(actionBody);

@@ -8,12 +8,12 @@
 import type { Route } from "./+types/api.events";
 import { getSigned } from "#server/auth.server.ts";
 import { SEARCH_LIMIT, searchEvents } from "#server/dated-events.server.ts";
-import { jsonError, jsonResponse } from "#server/http.server.ts";
+import { jsonError, jsonResponse, jsonOnError } from "#server/http.server.ts";
 
 /** Answers depend on who asks: never kept by a shared cache. */
 const PRIVATE = { "Cache-Control": "private, no-store", Vary: "Cookie" };
 
-export async function loader({ request }: Route.LoaderArgs) {
+async function loaderBody({ request }: Route.LoaderArgs) {
   // An API answers in JSON rather than redirecting to the sign-in page.
   const signed = await getSigned(request);
   if (!signed) return jsonError(401, "Sign in to search the event library.", PRIVATE);
@@ -30,3 +30,6 @@ export async function loader({ request }: Route.LoaderArgs) {
   const results = await searchEvents(organisation.id, q, limit);
   return jsonResponse(200, { query: q, count: results.length, limit, results }, PRIVATE);
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const loader = jsonOnError(loaderBody);

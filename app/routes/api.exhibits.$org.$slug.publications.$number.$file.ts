@@ -5,7 +5,11 @@
  */
 import { publicExport } from "#server/exports/registry.server.ts";
 import type { Route } from "./+types/api.exhibits.$org.$slug.publications.$number.$file";
+import { jsonOnError } from "#server/http.server.ts";
 
-export function loader({ request, params }: Route.LoaderArgs) {
+function loaderBody({ request, params }: Route.LoaderArgs) {
   return publicExport(request, params.org, params.slug, params.number, params.file);
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const loader = jsonOnError(loaderBody);

@@ -4,7 +4,11 @@
  */
 import { publicationsListResponse } from "#server/publications/public.server.ts";
 import type { Route } from "./+types/api.exhibits.$org.$slug.publications";
+import { jsonOnError } from "#server/http.server.ts";
 
-export function loader({ request, params }: Route.LoaderArgs) {
+function loaderBody({ request, params }: Route.LoaderArgs) {
   return publicationsListResponse(request, params.org, params.slug);
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const loader = jsonOnError(loaderBody);

@@ -8,7 +8,11 @@
  */
 import { publicationResponse } from "#server/publications/public.server.ts";
 import type { Route } from "./+types/api.exhibits.$org.$slug";
+import { jsonOnError } from "#server/http.server.ts";
 
-export function loader({ request, params }: Route.LoaderArgs) {
+function loaderBody({ request, params }: Route.LoaderArgs) {
   return publicationResponse(request, params.org, params.slug, null);
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const loader = jsonOnError(loaderBody);

@@ -6,7 +6,7 @@ import type { Route } from "./+types/api.scale";
 import { computeScale, parseScaleRequest } from "~/lib/scale";
 import { DEPTH_MESSAGE, nestingExceeds } from "~/lib/geo/parse";
 import { MAX_GEOJSON_DEPTH } from "~/lib/limits";
-import { BodyTooLargeError, jsonError, jsonResponse, readBodyBytes } from "#server/http.server.ts";
+import { BodyTooLargeError, jsonError, jsonResponse, readBodyBytes, jsonOnError } from "#server/http.server.ts";
 
 /** Largest accepted request body: 5 MB. */
 export const MAX_BODY_BYTES = 5 * 1024 * 1024;
@@ -17,7 +17,7 @@ function invalid(status: number, message: string, extra: Record<string, string> 
   return jsonError(status, message, extra, []);
 }
 
-export async function action({ request }: Route.ActionArgs) {
+async function actionBody({ request }: Route.ActionArgs) {
   if (request.method !== "POST") {
     return invalid(405, `Method ${request.method} is not allowed; POST a JSON scale request.`, ALLOW_POST);
   }
@@ -52,3 +52,6 @@ export async function action({ request }: Route.ActionArgs) {
 export function loader(_args: Route.LoaderArgs) {
   return invalid(405, "Use POST with a JSON scale request; GET is not supported on /api/scale.", ALLOW_POST);
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const action = jsonOnError(actionBody);

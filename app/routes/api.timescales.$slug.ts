@@ -7,9 +7,13 @@
  */
 import { apiEditionBody, cachedJson, publicJsonError } from "#server/editions.server.ts";
 import type { Route } from "./+types/api.timescales.$slug";
+import { jsonOnError } from "#server/http.server.ts";
 
-export async function loader({ request, params }: Route.LoaderArgs) {
+async function loaderBody({ request, params }: Route.LoaderArgs) {
   const body = await apiEditionBody(params.slug);
   if (!body) return publicJsonError(404, `No published chart edition has the slug "${params.slug}". GET /api/timescales lists them.`);
   return cachedJson(request, body);
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const loader = jsonOnError(loaderBody);

@@ -7,8 +7,12 @@
  */
 import { apiEditionMeta, cachedJson, listEditions, PUBLIC_SCOPE } from "#server/editions.server.ts";
 import type { Route } from "./+types/api.timescales";
+import { jsonOnError } from "#server/http.server.ts";
 
-export async function loader({ request }: Route.LoaderArgs) {
+async function loaderBody({ request }: Route.LoaderArgs) {
   const editions = await listEditions(PUBLIC_SCOPE);
   return cachedJson(request, { editions: editions.map(apiEditionMeta), latest: editions.find((e) => e.latest)?.slug ?? null });
 }
+
+// Unexpected errors (a database that cannot be reached included) are JSON too.
+export const loader = jsonOnError(loaderBody);

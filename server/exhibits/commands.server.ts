@@ -1,6 +1,6 @@
 // The commands that create and change an exhibit. Every change goes through reviseExhibit
 // (revise.server.ts): one transaction, the revision claimed first, the exhibit recomputed, audited.
-import { Op } from "sequelize";
+import { Op, UniqueConstraintError } from "sequelize";
 import { data } from "react-router";
 import { boundaryNames, planCombine, type MediumInput, type NewExhibitInput, type ResolvedMarker, type RouteMediumInput, type SettingsInput } from "../../app/lib/exhibit/index.ts";
 import { toYears } from "../../app/lib/units/index.ts";
@@ -34,9 +34,17 @@ export async function createExhibit(actor: Actor, input: NewExhibitInput) {
   // Shared editions, or the organisation's own: never another organisation's, never a draft.
   const edition = await ChartEdition.findOne({ where: { slug: input.editionSlug, status: { [Op.ne]: "draft" }, [Op.or]: [{ organisationId: null }, { organisationId: actor.organisationId }] } });
   if (!edition) throw new ExhibitError("Choose a published chart edition to pin the exhibit to.", "editionSlug");
-  if (await Exhibit.findOne({ where: { organisationId: actor.organisationId, slug: input.slug } })) {
-    throw new ExhibitError(`Your organisation already has an exhibit at /${input.slug}. Choose another slug.`, "slug");
-  }
+  const slugTaken = () => new ExhibitError(`Your organisation already has an exhibit at /${input.slug}. Choose another slug.`, "slug");
+  if (await Exhibit.findOne({ where: { organisationId: actor.organisationId, slug: input.slug } })) throw slugTaken();
+  // Two designers creating the same slug at once: the check above passes for both, the unique
+  // index refuses the second insert, and that answer is the same as the serial one.
+  return createInTransaction(actor, input, edition).catch((error: unknown) => {
+    if (error instanceof UniqueConstraintError) throw slugTaken();
+    throw error;
+  });
+}
+
+function createInTransaction(actor: Actor, input: NewExhibitInput, edition: ChartEdition) {
   return sequelize.transaction(async (transaction) => {
     const s = input.settings;
     const exhibit = await Exhibit.create(
