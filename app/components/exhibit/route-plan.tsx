@@ -9,6 +9,8 @@ import { scaleBar } from "~/components/exhibit/ruler";
 import { useWidth } from "~/components/exhibit/use-width";
 
 const M = 30;
+/** Room kept under the route for the scale bar and the north arrow, px. */
+const FOOT = 40;
 const FONT = "IBM Plex Sans, sans-serif";
 const INK = "#1f2430";
 const PATH = "#3d6b7a";
@@ -62,9 +64,9 @@ export function RoutePlan({ geometry, result, markers, units }: { geometry: Line
       minY = Math.min(minY, -p[1]);
       maxY = Math.max(maxY, -p[1]);
     }
-    const s = Math.min((W - 2 * M) / (maxX - minX || 1), (H - 2 * M - 24) / (maxY - minY || 1));
+    const s = Math.min((W - 2 * M) / (maxX - minX || 1), (H - 2 * M - FOOT) / (maxY - minY || 1));
     const px = (lon: number) => M + (lon * k - minX) * s + (W - 2 * M - (maxX - minX) * s) / 2;
-    const py = (lat: number) => M + (-lat - minY) * s + (H - 2 * M - 24 - (maxY - minY) * s) / 2;
+    const py = (lat: number) => M + (-lat - minY) * s + (H - 2 * M - FOOT - (maxY - minY) * s) / 2;
     const d = pts.map((p, i) => `${i ? "L" : "M"}${px(p[0]).toFixed(1)},${py(p[1]).toFixed(1)}`).join(" ");
     return { px, py, d, s };
   }, [coords, W, H]);
@@ -79,21 +81,22 @@ export function RoutePlan({ geometry, result, markers, units }: { geometry: Line
     if (!p) continue;
     const mx = px(p.lon);
     const my = py(p.lat);
-    const near = clusters.find((c) => Math.hypot(c.x - mx, c.y - my) < 22);
+    // Two labels closer than a label's size would overprint: they share one.
+    const near = clusters.find((c) => Math.abs(c.x - mx) < 48 && Math.abs(c.y - my) < 22);
     if (near) near.members.push(m);
     else clusters.push({ x: mx, y: my, members: [m] });
   }
   const discs = clusters.map((c) => {
     const text = c.members.length === 1 ? String(c.members[0].number) : `${c.members[0].number}–${c.members[c.members.length - 1].number}`;
     const w = Math.max(20, text.length * 7 + 10);
-    return { ...c, text, w, x: Math.min(Math.max(c.x, 4 + w / 2), W - 4 - w / 2), y: Math.min(Math.max(c.y, 14), H - 14) };
+    return { ...c, text, w, x: Math.min(Math.max(c.x, 4 + w / 2), W - 4 - w / 2), y: Math.min(Math.max(c.y, 14), H - FOOT) };
   });
 
   const startXY = { x: px(first[0]), y: py(first[1]) };
   const endXY = { x: px(last[0]), y: py(last[1]) };
   const discBoxes: Box[] = discs.map((c) => ({ x: c.x - c.w / 2, y: c.y - 10, w: c.w, h: 20 }));
-  const startLabel = placeLabel(startXY.x, startXY.y, "Start (oldest)", W, H - 24, discBoxes);
-  const endLabel = placeLabel(endXY.x, endXY.y, "End (present)", W, H - 24, [...discBoxes, startLabel]);
+  const startLabel = placeLabel(startXY.x, startXY.y, "Start (oldest)", W, H - FOOT, discBoxes);
+  const endLabel = placeLabel(endXY.x, endXY.y, "End (present)", W, H - FOOT, [...discBoxes, startLabel]);
 
   const metresPerPx = METRES_PER_DEGREE / s;
   const bar = scaleBar(metresPerPx * Math.min(160, W / 3), units);
@@ -121,9 +124,9 @@ export function RoutePlan({ geometry, result, markers, units }: { geometry: Line
             {text}
           </text>
         ))}
-        <g transform={`translate(${W - 26}, 12)`} aria-hidden="true">
+        <g transform={`translate(${W - 20}, ${H - 36})`} aria-hidden="true">
           <path d="M0,0 L7,18 L0,13 L-7,18 Z" fill={INK} />
-          <text x={0} y={32} textAnchor="middle" fontSize={12} fontWeight={700} fill={INK} fontFamily={FONT}>N</text>
+          <text x={-12} y={14} textAnchor="end" fontSize={12} fontWeight={700} fill={INK} fontFamily={FONT}>N</text>
         </g>
         <g transform={`translate(12, ${H - 14})`} aria-hidden="true">
           <rect x={0} y={-6} width={barPx} height={6} fill="white" stroke={INK} />
