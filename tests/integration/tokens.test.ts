@@ -37,6 +37,16 @@ async function setup() {
   return { org, admin };
 }
 
+/** A member of another organisation invited to a new one; the token from the e-mail. */
+async function inviteExistingUser() {
+  const { org, admin } = await setup();
+  const other = await createOrganisation();
+  const { user } = await createMember(other, "designer");
+  await inviteMember({ organisation: org, inviter: admin, email: user.email, roles: ["reviewer"] });
+  const token = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: user.email }, order: [["id", "DESC"]] }))!.text, "/invite");
+  return { user, token };
+}
+
 describe("invitations", () => {
   it("queues the e-mail with the invitation in one transaction, and the link creates the account once", async () => {
     const { org, admin } = await setup();
@@ -105,11 +115,7 @@ describe("invitations", () => {
   });
 
   it("an existing user joins a second organisation by confirming their password", async () => {
-    const { org, admin } = await setup();
-    const other = await createOrganisation();
-    const { user } = await createMember(other, "designer");
-    await inviteMember({ organisation: org, inviter: admin, email: user.email, roles: ["reviewer"] });
-    const token = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: user.email }, order: [["id", "DESC"]] }))!.text, "/invite");
+    const { user, token } = await inviteExistingUser();
     const wrong = await settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { password: "not-it-at-all" }), { token })));
     expect(wrong.body).toMatchObject({ field: "password" });
     const ok = await settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { password: TEST_PASSWORD }), { token })));
@@ -233,11 +239,7 @@ describe("limits on reset requests and invitation passwords", () => {
   });
 
   it("confirming an invitation with an existing account's password is limited like signing in (429, Retry-After, nothing joined)", async () => {
-    const { org, admin } = await setup();
-    const other = await createOrganisation();
-    const { user } = await createMember(other, "designer");
-    await inviteMember({ organisation: org, inviter: admin, email: user.email, roles: ["reviewer"] });
-    const token = tokenFromOutbox((await OutboxMessage.findOne({ where: { to: user.email }, order: [["id", "DESC"]] }))!.text, "/invite");
+    const { user, token } = await inviteExistingUser();
     const ip = unique("192.0.2");
     const accept = (password: string) => settle(() => invite.action(routeArgs(formRequest(`/invite/${token}`, { password }, { ip }), { token })));
     for (let i = 0; i < SIGN_IN_LIMITS.freeFailures + 1; i++) expect((await accept(`guess-${i}`)).body).toMatchObject({ field: "password" });
