@@ -10,7 +10,7 @@ export function EmbedPage({ view }: { view: EmbedView }) {
       <p className="my-1">{view.statement}</p>
       <Strip model={view.strip} caption={view.caption} />
       <details className="mt-2">
-        <summary className="inline-flex min-h-11 cursor-pointer items-center">{t.markersHeading}</summary>
+        <summary className="visit-switch">{t.markersHeading}</summary>
         <ol className="pl-6">
           {view.rows.map((r) => (
             <li key={r.signNumber} value={r.signNumber}>

@@ -16,14 +16,7 @@ export function ExhibitPage({ view }: { view: ExhibitView }) {
       kicker={`${t.exhibitKicker} · ${page.organisationName}`}
       heading={page.title}
       skipTo="markers"
-      offline={{
-        "data-precache": JSON.stringify(view.precache),
-        "data-t-saving": t.offlineSaving,
-        "data-t-saved": t.offlineSaved,
-        "data-t-failed": t.offlineFailed,
-        "data-t-showing": t.offlineShowing,
-        "data-lang": page.htmlLang,
-      }}
+      precache={view.precache}
     >
       <section aria-labelledby="scale-h">
         <h2 id="scale-h" className="mt-6 text-xl font-bold">
@@ -67,7 +60,7 @@ export function ExhibitPage({ view }: { view: ExhibitView }) {
           <h2 id="map-h" className="mt-6 text-xl font-bold">
             {t.mapHeading}
           </h2>
-          <RouteMap map={view.map} t={t} base={page.base} suffix={page.suffix} />
+          <RouteMap map={view.map} t={t} />
           {view.nearest ? (
             <div
               id="visit-nearest"
@@ -118,7 +111,9 @@ export function ExhibitPage({ view }: { view: ExhibitView }) {
 
       <p className="mt-6 text-sm">{view.editionSource}</p>
       <p className="text-sm">
-        <a href={view.jsonHref}>{t.jsonLink}</a>
+        <a href={view.jsonHref} className="inline-flex min-h-6 items-center">
+          {t.jsonLink}
+        </a>
       </p>
     </VisitFrame>
   );

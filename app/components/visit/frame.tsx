@@ -8,7 +8,7 @@ export function LanguageSwitcher({ page }: { page: PageBasics }) {
   const current = page.languages.find((l) => l.current);
   return (
     <details className="mt-2">
-      <summary className="inline-flex min-h-11 cursor-pointer items-center">
+      <summary className="visit-switch">
         {page.t.languageLabel}: <span lang={current?.tag}>&nbsp;{current?.name ?? page.lang}</span>
       </summary>
       <ul className="m-0 flex list-none flex-wrap gap-x-1 gap-y-1 p-0 pt-1">
@@ -25,11 +25,24 @@ export function LanguageSwitcher({ page }: { page: PageBasics }) {
   );
 }
 
-export function VisitFrame({ page, kicker, heading, skipTo, children, offline }: { page: PageBasics; kicker: React.ReactNode; heading: string; skipTo: string; children: React.ReactNode; offline?: Record<string, string> }) {
+/** `precache`: the pages public/visit.js asks the service worker to keep for use without signal. */
+export function VisitFrame({ page, kicker, heading, skipTo, children, precache }: { page: PageBasics; kicker: React.ReactNode; heading: string; skipTo: string; children: React.ReactNode; precache: string[] }) {
+  const { t } = page;
   return (
-    <div className="mx-auto max-w-3xl px-4 pb-10" data-visit-org={page.org} data-visit-slug={page.slug} data-visit-version={page.publication.sha256} {...offline}>
+    <div
+      className="mx-auto max-w-3xl px-4 pb-10"
+      data-visit-org={page.org}
+      data-visit-slug={page.slug}
+      data-visit-version={page.publication.sha256}
+      data-precache={JSON.stringify(precache)}
+      data-lang={page.htmlLang}
+      data-t-saving={t.offlineSaving}
+      data-t-saved={t.offlineSaved}
+      data-t-failed={t.offlineFailed}
+      data-t-showing={t.offlineShowing}
+    >
       <a className="visit-skip" href={`#${skipTo}`}>
-        {page.t.skipToMarkers}
+        {skipTo === "markers" ? t.skipToMarkers : t.skipToContent}
       </a>
       <header className="border-b border-[#d5cdbd] pb-3 pt-4">
         <p className="m-0 text-sm text-[#4a5160]">{kicker}</p>
@@ -42,6 +55,7 @@ export function VisitFrame({ page, kicker, heading, skipTo, children, offline }:
         <p className="m-0">{page.checkedLine}</p>
         <p className="m-0">{page.publicationLine}</p>
       </footer>
+      <script src="/visit.js" defer />
     </div>
   );
 }

@@ -22,7 +22,7 @@ export function MarkerPage({ view }: { view: MarkerView }) {
   const image = view.image;
   const smallest = image ? [...image.sizes].sort((a, b) => a.width - b.width) : [];
   return (
-    <VisitFrame page={page} kicker={<a href={view.exhibitHref}>{view.kicker}</a>} heading={view.label} skipTo="marker-facts">
+    <VisitFrame page={page} kicker={<a href={view.exhibitHref} className="inline-flex min-h-6 items-center">{view.kicker}</a>} heading={view.label} skipTo="marker-facts" precache={view.precache}>
       <dl id="marker-facts" className="mt-4 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
         <dt className="font-semibold">{t.markerAge}</dt>
         <dd className="m-0 text-lg font-semibold">{view.ageText}</dd>
@@ -99,7 +99,7 @@ export function MarkerPage({ view }: { view: MarkerView }) {
 
 export function RetiredSignPage({ view }: { view: RetiredView }) {
   return (
-    <VisitFrame page={view.page} kicker={<a href={view.exhibitHref}>{view.page.title}</a>} heading={view.heading} skipTo="retired">
+    <VisitFrame page={view.page} kicker={<a href={view.exhibitHref} className="inline-flex min-h-6 items-center">{view.page.title}</a>} heading={view.heading} skipTo="retired" precache={[]}>
       <p id="retired" className="mt-4">
         {view.text}
       </p>

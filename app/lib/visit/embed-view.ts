@@ -2,7 +2,7 @@
 import type { PublicationSnapshot } from "../publication/types";
 import { fill } from "./messages";
 import { stripModel, type StripModel } from "./strip";
-import { markerRows, type MarkerRow, type PageBasics } from "./view";
+import { markerRows, spanEnds, type MarkerRow, type PageBasics } from "./view";
 
 export interface EmbedView {
   page: PageBasics;
@@ -21,7 +21,7 @@ export function embedView(snapshot: PublicationSnapshot, page: PageBasics): Embe
     title: fill(t.embedTitle, { exhibit: snapshot.exhibit.title }),
     statement: snapshot.scale.statement.lengthPerTime,
     strip: stripModel(snapshot, page.lang),
-    caption: fill(t.stripCaption, { older: snapshot.markers[0]?.ageText ?? "", younger: snapshot.markers.at(-1)?.ageText ?? "" }),
+    caption: fill(t.stripCaption, spanEnds(snapshot)),
     rows: markerRows(snapshot, page.base, t, page.suffix),
     exhibitHref: `${page.base}${page.suffix}`,
   };

@@ -4,7 +4,7 @@ import type { PublicationSnapshot } from "../publication/types";
 import { fill } from "./messages";
 import { nearestData, routeMapModel, type NearestData, type RouteMapModel } from "./route-map";
 import { stripModel, type StripModel } from "./strip";
-import { markerRows, scaleWords, walkingWords, type MarkerRow, type PageBasics } from "./view";
+import { markerRows, spanEnds, scaleWords, walkingWords, type MarkerRow, type PageBasics } from "./view";
 
 export interface ExhibitView {
   page: PageBasics;
@@ -33,7 +33,7 @@ export function exhibitView(snapshot: PublicationSnapshot, page: PageBasics): Ex
     scale: scaleWords(snapshot, t),
     walking: walkingWords(snapshot, t),
     strip: stripModel(snapshot, page.lang),
-    stripCaption: fill(t.stripCaption, { older: snapshot.markers[0]?.ageText ?? "", younger: snapshot.markers.at(-1)?.ageText ?? "" }),
+    stripCaption: fill(t.stripCaption, spanEnds(snapshot)),
     rows,
     map: route && coordinates.length > 1 ? routeMapModel(coordinates, placed.map((m) => ({ signNumber: m.signNumber, label: m.label, lon: m.position!.lon, lat: m.position!.lat }))) : null,
     nearest:

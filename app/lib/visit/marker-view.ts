@@ -34,6 +34,8 @@ export interface MarkerView {
   decay: { system: string; sentence: string; citation: string } | null;
   insetLines: string[];
   exhibitHref: string;
+  /** The exhibit page and every marker page, for the offline copy. */
+  precache: string[];
 }
 
 export interface RetiredView {
@@ -93,5 +95,6 @@ export function markerView(snapshot: PublicationSnapshot, page: PageBasics, sign
     decay: m.decay,
     insetLines: m.insets.map((i) => fill(t.insetLine, { inset: snapshot.insets.find((s) => s.id === i.insetId)?.label ?? i.insetId, display: i.display })),
     exhibitHref,
+    precache: [exhibitHref, ...snapshot.markers.map((n) => `${base}/${n.signNumber}${suffix}`)],
   };
 }

@@ -2,7 +2,8 @@
 // projected to local metres (equirectangular about its mean latitude — under 0.1 % error over a few
 // kilometres) and simplified with simplify-js (Douglas–Peucker) to half a drawing unit, which is all
 // a screen can show; a 10⁵-vertex GPS track comes down to a few hundred points. The same projection,
-// simplified to a metre, feeds the "nearest marker" button (public/visit.js).
+// simplified to a metre, feeds the "nearest marker" button: public/visit.js puts the visitor's
+// position on the closest point of that track and picks the marker closest along the route.
 import simplify from "simplify-js";
 import { DEG, WGS84_A, WGS84_E2 } from "../geo/ellipsoid";
 import { prepareRoute } from "../geo/route";
@@ -66,7 +67,8 @@ export interface RouteMapModel {
   path: string;
   start: { x: number; y: number };
   end: { x: number; y: number };
-  markers: { signNumber: number; label: string; x: number; y: number }[];
+  /** `numbered`: drawn with its sign number (false where it would cover a numbered neighbour: a dot only). */
+  markers: { signNumber: number; label: string; x: number; y: number; numbered: boolean }[];
   /** A round length and its drawn width, for the scale bar. */
   scaleBar: { metres: number; width: number; text: string };
   vertexCount: number;
@@ -79,7 +81,7 @@ const ROUND_LENGTHS = [1, 2, 5, 10, 20, 50, 100, 200, 250, 500, 1000, 2000, 5000
  * The map in a `width`-unit-wide viewBox (height follows the track's shape, between 45 % and 100 %
  * of the width), with `pad` units kept free for the marker circles at the edges.
  */
-export function routeMapModel(coordinates: readonly number[][], markers: readonly MapMarker[], width = 640, pad = 22): RouteMapModel {
+export function routeMapModel(coordinates: readonly number[][], markers: readonly MapMarker[], width = 400, pad = 18): RouteMapModel {
   const frame = localFrame(coordinates);
   const local = coordinates.map(([lon, lat]) => toLocal(frame, lon, lat));
   const xs = local.map((p) => p[0]);
@@ -105,10 +107,12 @@ export function routeMapModel(coordinates: readonly number[][], markers: readonl
     path,
     start: px(local[0][0], local[0][1]),
     end: px(local[local.length - 1][0], local[local.length - 1][1]),
-    markers: markers.map((m) => {
-      const [x, y] = toLocal(frame, m.lon, m.lat);
-      return { signNumber: m.signNumber, label: m.label, ...px(x, y) };
-    }),
+    markers: numberWhereRoom(
+      markers.map((m) => {
+        const [x, y] = toLocal(frame, m.lon, m.lat);
+        return { signNumber: m.signNumber, label: m.label, ...px(x, y) };
+      }),
+    ),
     scaleBar: { metres: bar, width: round1(bar * scale), text: bar >= 1000 ? `${bar / 1000} km` : `${bar} m` },
     vertexCount: coordinates.length,
     drawnCount: kept.length,
@@ -137,32 +141,14 @@ export function nearestData(coordinates: readonly number[][], markers: readonly 
   };
 }
 
-/**
- * The nearest marker to a position, along the route: the position is put on the closest point of the
- * simplified track; the marker whose distance along the route is closest to that point wins.
- * (public/visit.js does the same steps in the browser; this is the reference the tests hold it to.)
- */
-export function nearestMarker(data: NearestData, lon: number, lat: number): { signNumber: number; alongMetres: number; offRouteMetres: number; distanceMetres: number } | null {
-  if (!data.markers.length || data.track.length < 3) return null;
-  const x = (lon - data.frame.lon0) * data.frame.kx;
-  const y = (lat - data.frame.lat0) * data.frame.ky;
-  const t = data.track;
-  let best = Math.hypot(x - t[0], y - t[1]);
-  let along = t[2];
-  for (let k = 0; k + 5 < t.length; k += 3) {
-    const ax = t[k], ay = t[k + 1], as = t[k + 2];
-    const dx = t[k + 3] - ax, dy = t[k + 4] - ay;
-    const len2 = dx * dx + dy * dy;
-    const u = len2 > 0 ? Math.min(1, Math.max(0, ((x - ax) * dx + (y - ay) * dy) / len2)) : 0;
-    const d = Math.hypot(x - (ax + u * dx), y - (ay + u * dy));
-    if (d < best) {
-      best = d;
-      along = as + u * (t[k + 5] - as);
-    }
-  }
-  let pick = data.markers[0];
-  for (const m of data.markers) if (Math.abs(m[1] - along) < Math.abs(pick[1] - along)) pick = m;
-  return { signNumber: pick[0], alongMetres: along, offRouteMetres: best, distanceMetres: Math.abs(pick[1] - along) };
+/** Circles of `2 × radius` units: a marker is numbered unless it would overlap one already numbered. */
+function numberWhereRoom<T extends { x: number; y: number }>(points: T[], radius = 10): (T & { numbered: boolean })[] {
+  const numbered: T[] = [];
+  return points.map((p) => {
+    const free = numbered.every((q) => Math.hypot(p.x - q.x, p.y - q.y) >= 2 * radius);
+    if (free) numbered.push(p);
+    return { ...p, numbered: free };
+  });
 }
 
 function round1(v: number): number {

@@ -107,10 +107,17 @@ export function markerRows(snapshot: PublicationSnapshot, base: string, t: Messa
 }
 
 /** The scale in plain words: "On this path: 1 m per million years." and the durations ("a 80-year life: 80 years = 0.08 mm"). */
+/** "4,567 Ma" and "0 Ma": the span's ends as the designer gave them. */
+export function spanEnds(snapshot: PublicationSnapshot): { older: string; younger: string } {
+  const { older, younger } = snapshot.exhibit.span;
+  return { older: `${older.value.toLocaleString("en-GB")} ${older.unit}`, younger: `${younger.value.toLocaleString("en-GB")} ${younger.unit}` };
+}
+
 export function scaleWords(snapshot: PublicationSnapshot, t: Messages): { lines: string[]; durations: string[] } {
   const medium = mediumWord(snapshot, t);
   const units = snapshot.exhibit.unitsPreference;
-  const span = `${snapshot.exhibit.span.older.value.toLocaleString("en-GB")} ${snapshot.exhibit.span.older.unit} – ${snapshot.exhibit.span.younger.value.toLocaleString("en-GB")} ${snapshot.exhibit.span.younger.unit}`;
+  const ends = spanEnds(snapshot);
+  const span = `${ends.older} – ${ends.younger}`;
   return {
     lines: [
       fill(t.scaleOn, { medium, statement: snapshot.scale.statement.lengthPerTime }),
@@ -119,7 +126,7 @@ export function scaleWords(snapshot: PublicationSnapshot, t: Messages): { lines:
     ],
     durations: snapshot.durations.map((d) => {
       const inset = d.insets.find((i) => i.visible);
-      const text = d.visible ? d.text : `${d.text} (${t.durationInvisible}${inset ? `; ${inset.text}` : ""})`;
+      const text = d.visible ? d.text : `${d.text} (${fill(t.durationInvisible, { medium })}${inset ? `; ${inset.text}` : ""})`;
       return fill(t.durationLine, { label: d.label, text });
     }),
   };
