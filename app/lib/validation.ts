@@ -8,6 +8,7 @@ export type FormResult<T> = { ok: true; data: T } | { ok: false; fieldErrors: Fi
 // Control characters: C0 except tab, line feed and carriage return, DEL, and C1. A NUL cannot be
 // stored by PostgreSQL and the others are invisible or break exports, so they are refused (never
 // stripped: nothing is silently altered) with the field named.
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
 const CONTROL_CHARACTERS = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u009F]/;
 export const CONTROL_CHARACTER_REASON = "contains a control character (such as NUL); remove it and try again.";
 
