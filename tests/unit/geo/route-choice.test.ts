@@ -46,7 +46,7 @@ describe("GPX 1.0 and 1.1, tracks and routes", () => {
   it("the upload reader passes the note on", () => {
     const r = readRouteFile("walk.gpx", doc("1.1", rte("Planned", [10, 10], [11, 11]) + trk("Walked", [54.1, -2.9], [54.2, -2.8])));
     expect(r.ok && r.note).toMatch(/^The file holds 1 track and 1 route/);
-    expect(r.ok && r.geometry.coordinates).toEqual([[-2.9, 54.1], [-2.8, 54.2]]);
+    expect(r.ok && r.geometry.coordinates).toEqual([[-2.9, 54.1, 10.5], [-2.8, 54.2, 10.5]]); // elevations kept
   });
 });
 
