@@ -37,10 +37,12 @@ function placeLabel(px: number, py: number, text: string, W: number, H: number, 
     { x: px + 11, y: py + 12, w, h, anchor: "start" },
     { x: px - 11 - w, y: py - 28, w, h, anchor: "end" },
   ];
-  const inside = (b: Box) => b.x >= 4 && b.y >= 4 && b.x + b.w <= W - 4 && b.y + b.h <= H - 4;
-  const fit = options.find((b) => inside(b) && !avoid.some((a) => clash(a, b)));
-  const chosen = fit ?? options.find(inside) ?? options[0];
-  return { ...chosen, x: Math.min(Math.max(4, chosen.x), W - 4 - chosen.w), y: Math.min(Math.max(4, chosen.y), H - 4 - chosen.h) };
+  // Each place slides sideways to stay inside the frame; it must then be clear of the other labels.
+  const slid = options.map((b) => ({ ...b, x: Math.min(Math.max(4, b.x), W - 4 - b.w) }));
+  const inside = (b: Box) => b.y >= 4 && b.y + b.h <= H - 4;
+  const fit = slid.find((b) => inside(b) && !avoid.some((a) => clash(a, b)));
+  const chosen = fit ?? slid.find(inside) ?? slid[0];
+  return { ...chosen, y: Math.min(Math.max(4, chosen.y), H - 4 - chosen.h) };
 }
 
 export function RoutePlan({ geometry, result, markers, units }: { geometry: LineStringGeometry; result: ScaleResult | null; markers: ResolvedMarker[]; units: UnitsPreference }) {
