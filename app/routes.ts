@@ -30,6 +30,7 @@ export default [
     route("exhibits/:slug/profile.json", "routes/studio/exhibits.$slug.profile-json.ts"),
     route("exhibits/:slug/schedule.xlsx", "routes/studio/exhibits.$slug.schedule-xlsx.ts"),
     route("exhibits/:slug/kit.zip", "routes/studio/exhibits.$slug.kit-zip.ts"),
+    route("exhibits/:slug/signs", "routes/studio/exhibits.$slug.signs.tsx"),
     route("exhibits/:slug/exports/:jobId", "routes/studio/exhibits.$slug.exports.$jobId.ts"),
     route("exhibits/:slug/exports/:jobId/file", "routes/studio/exhibits.$slug.exports.$jobId.file.ts"),
     route("exhibits/:slug/points.gpx", "routes/studio/exhibits.$slug.points-gpx.ts"),

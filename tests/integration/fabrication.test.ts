@@ -15,12 +15,12 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as panelsRoute from "../../app/routes/studio/exhibits.$slug.panels-pdf.ts";
 import * as panelsZipRoute from "../../app/routes/studio/exhibits.$slug.panels-zip.ts";
 import * as signsRoute from "../../app/routes/studio/exhibits.$slug.signs-pdf.ts";
-import * as trailheadRoute from "../../app/routes/studio/exhibits.$slug.trailhead-pdf.ts";
 import * as profileRoute from "../../app/routes/studio/exhibits.$slug.profile-json.ts";
 import * as xlsxRoute from "../../app/routes/studio/exhibits.$slug.schedule-xlsx.ts";
 import * as kitRoute from "../../app/routes/studio/exhibits.$slug.kit-zip.ts";
 import * as jobRoute from "../../app/routes/studio/exhibits.$slug.exports.$jobId.ts";
 import * as jobFileRoute from "../../app/routes/studio/exhibits.$slug.exports.$jobId.file.ts";
+import * as signsPage from "../../app/routes/studio/exhibits.$slug.signs.tsx";
 import * as publicFile from "../../app/routes/api.exhibits.$org.$slug.publications.$number.$file.ts";
 import { artHeightMm } from "../../app/lib/fabrication/panel-page.ts";
 import { tilePanels } from "../../app/lib/fabrication/panels.ts";
@@ -28,7 +28,8 @@ import { Organisation, User } from "../../db/models/index.ts";
 import { env } from "../../server/env.server.ts";
 import { loadBundle, resultOf } from "../../server/exhibits/load.server.ts";
 import { runExportJob } from "../../server/exports/fabrication/jobs.server.ts";
-import { cookieFor, createMember, createOrganisation, getRequest, routeArgs, settle } from "../helpers/db.ts";
+import { cookieFor, createMember, createOrganisation, formRequest, getRequest, routeArgs, settle } from "../helpers/db.ts";
+import { AuditEvent } from "../../db/models/index.ts";
 import { MM_PER_POINT, openPdf, pageText, renderPage, rgba, strokedSegments } from "../helpers/pdf.ts";
 
 let designer: string;
@@ -221,5 +222,24 @@ describe("schedule.xlsx and kit.zip", () => {
   it("kit.zip of the publication holds the route's files", async () => {
     const names = await zipEntries(await bytesOf(await get(kitRoute.loader, "riverside-walk", "kit.zip")));
     expect(names.sort()).toEqual(["README.txt", "points.geojson", "points.gpx", "profile.json", "schedule.csv", "schedule.xlsx", "signs.pdf", "trailhead.pdf"]);
+  });
+});
+
+describe("sign settings", () => {
+  it("a designer saves them (audited) and the sign sheets use them; bad values answer 400 by field and change nothing; a reviewer may not", async () => {
+    const post = (fields: Record<string, string>, cookie = designer) => settle(() => signsPage.action(routeArgs(formRequest("/studio/exhibits/riverside-walk/signs", fields, { cookie }), { slug: "riverside-walk" })));
+    const bad = await post({ mountingHeightMm: "abc", viewingDistanceMm: "100" });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.body)).toContain("mountingHeightMm: a number of millimetres");
+    expect(JSON.stringify(bad.body)).toContain("viewingDistanceMm: at least 200 mm");
+    const before = await settle(() => signsPage.loader(routeArgs(getRequest("/studio/exhibits/riverside-walk/signs", { cookie: designer }), { slug: "riverside-walk" })));
+    expect(before.body).toMatchObject({ settings: { mountingHeightMm: 1370, viewingDistanceMm: 1000, saved: false } });
+    const ok = await post({ mountingHeightMm: "1500", viewingDistanceMm: "3050" });
+    expect(ok.status).toBe(302);
+    expect(await AuditEvent.count({ where: { action: "exhibit.sign-settings" } })).toBe(1);
+    const note = await pageText(await (await openPdf(await bytesOf(await get(signsRoute.loader, "riverside-walk", "signs.pdf")))).getPage(1));
+    expect(note).toContain("16 + 3.2 × 1220 / 305 = 28.8 mm"); // ADA Table 703.5.5 first row, read from 3050 mm (hand-computed)
+    const reviewer = await cookieFor((await createMember((await Organisation.findOne({ where: { slug: "marrowby" } }))!, "reviewer")).user.id, orgId);
+    expect((await post({ mountingHeightMm: "1200", viewingDistanceMm: "1000" }, reviewer)).status).toBe(403);
   });
 });

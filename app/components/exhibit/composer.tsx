@@ -87,6 +87,7 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
         actions={
           <>
             <a href={`/studio/exhibits/${exhibit.slug}/schedule.csv`} className="btn-quiet no-underline" download>Marker schedule (CSV)</a>
+            <a href={`/studio/exhibits/${exhibit.slug}/signs`} className="btn-quiet no-underline">Signs and print files</a>
             {view.exportMenu ? <ExportMenu slug={exhibit.slug} view={view.exportMenu} /> : null}
           </>
         }

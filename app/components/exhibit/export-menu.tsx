@@ -2,6 +2,8 @@
 // registry.server.ts), each offered from the latest publication (what the reviewer checked) and
 // from the working copy (every such file says "DRAFT — not checked"). Plain links in a disclosure:
 // it works before the page's script has loaded. The schedule CSV stays a button of its own.
+// Print panels may be made in the background: their links show the job's progress (export-progress).
+import { ExportJobs, startBackgroundExport } from "./export-progress";
 
 export interface ExportMenuView {
   /** The exhibit's latest publication number, null while it has none. */
@@ -31,17 +33,18 @@ export function ExportMenu({ slug, view }: { slug: string; view: ExportMenuView 
               <p className="text-ink-soft">{f.purpose}</p>
               <p className="mt-1 flex flex-wrap gap-x-4 gap-y-1">
                 {view.publication ? (
-                  <a href={href(f.name, "publication")} download aria-label={`${f.title} from publication ${view.publication}`}>
+                  <a href={href(f.name, "publication")} download aria-label={`${f.title} from publication ${view.publication}`} onClick={f.name === "panels.pdf" ? startBackgroundExport : undefined}>
                     Publication {view.publication}
                   </a>
                 ) : null}
-                <a href={href(f.name, "draft")} download aria-label={`${f.title} from the working copy (draft)`}>
+                <a href={href(f.name, "draft")} download aria-label={`${f.title} from the working copy (draft)`} onClick={f.name === "panels.pdf" ? startBackgroundExport : undefined}>
                   Working copy (draft)
                 </a>
               </p>
             </li>
           ))}
         </ul>
+        <ExportJobs />
         {view.publication ? (
           <p className="mt-3 text-ink-soft">
             Anyone can fetch a publication’s files without signing in, e.g. <code className="break-all">/api/exhibits/{view.organisation}/{slug}/publications/{view.publication}/{view.files[0].name}</code>

@@ -5,6 +5,7 @@ import { useEffect, useState } from "react";
 import { Form } from "react-router";
 import { FormMessage } from "~/components/forms";
 import { RoutePlan } from "~/components/exhibit/route-plan";
+import { ProfileChart } from "~/components/exhibit/profile-chart";
 import { ScaleStrip } from "~/components/exhibit/scale-strip";
 import { IntentFields, type FieldError } from "~/components/exhibit/form-bits";
 import { Term } from "~/components/term";
@@ -114,6 +115,7 @@ export function RouteSection({ spec, result, markers, units, canEdit, revision, 
           ) : null}
         </div>
       </div>
+      <ProfileChart geometry={medium.geometry} units={units} />
     </section>
   );
 }

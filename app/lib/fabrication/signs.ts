@@ -195,15 +195,13 @@ export function layoutSign(input: SignInput): SignResult {
   }
   // The image above the QR code when there is room in the right column.
   const rightX = W - margin - qs.totalMm;
-  let imageBottom = y + margin * 0.5;
+  const imageTop = y + margin * 0.5;
   if (input.imageAspect) {
-    const room = qrY - margin * 0.5 - imageBottom;
+    const room = qrY - margin * 0.5 - imageTop;
     const w = Math.min(qs.totalMm * 1.4, W - 2 * margin - column - margin);
     const h = w / input.imageAspect;
-    if (room >= h && w > 20) {
-      shapes.push({ kind: "image", x: W - margin - w, y: imageBottom, w, h, ref: "marker-image" });
-      imageBottom += h;
-    } else warnings.push(`${name}: no room for the image at this size.`);
+    if (room >= h && w > 20) shapes.push({ kind: "image", x: W - margin - w, y: imageTop, w, h, ref: "marker-image" });
+    else warnings.push(`${name}: no room for the image at this size.`);
   }
   const bottom = H - margin;
   let shown = 0;

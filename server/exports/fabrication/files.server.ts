@@ -37,10 +37,6 @@ function streamed(doc: PDFKit.PDFDocument, write: () => Promise<unknown> | void)
   return new Response(body, { headers: { "Content-Type": "application/pdf" } });
 }
 
-function jsonError(status: number, message: string) {
-  return new Response(JSON.stringify({ message }), { status, headers: { "Content-Type": "application/json; charset=utf-8" } });
-}
-
 export const panelsPdfFile: ExportFile = {
   title: "Print panels at 1:1 (PDF)",
   purpose: "For the printer: the strip at true size in panels of a chosen width and height with overlap, bleed and crop marks (?width=&height=&overlap=&bleed= in mm).",

@@ -56,3 +56,14 @@ export async function saveSignSettings(member: MemberContext, slug: string, form
   });
   return { ok: true, settings: { mountingHeightMm, viewingDistanceMm } };
 }
+
+/** What the signs page shows: the exhibit's title, kind, sign settings and whether it has a publication. */
+export async function signsPageView(organisationId: number, slug: string) {
+  const [row] = await sequelize.query<{ id: number; title: string; kind: string; published: boolean }>(
+    `SELECT e.id, e.title, m.kind, EXISTS (SELECT 1 FROM publications p WHERE p.exhibit_id = e.id) AS published
+       FROM exhibits e JOIN exhibit_media m ON m.exhibit_id = e.id WHERE e.organisation_id = $1 AND e.slug = $2`,
+    { bind: [organisationId, slug], type: QueryTypes.SELECT },
+  );
+  if (!row) return null;
+  return { slug, title: row.title, kind: row.kind as "length" | "route", published: row.published, settings: await signSettingsOf(row.id) };
+}
