@@ -120,17 +120,8 @@ export interface RoutePosition {
   segment: number;
 }
 
-function ecef(lat: number, lon: number): [number, number, number] {
-  const phi = lat * DEG;
-  const lam = lon * DEG;
-  const sphi = Math.sin(phi);
-  const cphi = Math.cos(phi);
-  const nRad = A / Math.sqrt(1 - E2 * sphi * sphi);
-  return [nRad * cphi * Math.cos(lam), nRad * cphi * Math.sin(lam), nRad * ONE_MINUS_E2 * sphi];
-}
-
-/** ECEF → geodetic latitude/longitude (degrees) for points within a few metres of the surface. */
-function geodetic(x: number, y: number, z: number): [number, number] {
+/** ECEF → geodetic latitude/longitude (degrees) for points within a few metres of the surface, into outLat/outLon. */
+function geodetic(x: number, y: number, z: number): void {
   const p = Math.hypot(x, y);
   const lon = Math.atan2(y, x);
   let phi = Math.atan2(z, p * ONE_MINUS_E2);
@@ -141,7 +132,8 @@ function geodetic(x: number, y: number, z: number): [number, number] {
     const h = p * cphi + z * sphi - A * Math.sqrt(1 - E2 * sphi * sphi);
     phi = Math.atan2(z, p * (1 - (E2 * nRad) / (nRad + h)));
   }
-  return [phi / DEG, lon / DEG];
+  outLat = phi / DEG;
+  outLon = lon / DEG;
 }
 
 /** Index i of the segment [i, i+1] holding distance d (binary search; cumulative is non-decreasing). */
@@ -184,42 +176,83 @@ function longSegmentAzimuth(route: PreparedRoute, i: number): number {
 
 /** Position and bearing at one distance from the route's start. */
 export function positionAt(route: PreparedRoute, distanceMetres: number, segmentHint?: number): RoutePosition {
-  const total = route.totalMetres;
-  const d = Math.min(Math.max(distanceMetres, 0), total);
-  const n = route.lon.length;
-  if (n === 1) return { distanceMetres: 0, lon: route.lon[0], lat: route.lat[0], bearing: 0, segment: 0 };
-  const i = segmentHint ?? segmentIndexAt(route, d);
+  const d = Math.min(Math.max(distanceMetres, 0), route.totalMetres);
+  const i = route.lon.length === 1 ? 0 : (segmentHint ?? segmentIndexAt(route, d));
+  placeAt(route, d, i);
+  return { distanceMetres: d, lon: outLon, lat: outLat, bearing: outBearing, segment: i };
+}
+
+// placeAt's result (module scratch, so that placing many markers allocates nothing)
+let outLon = 0;
+let outLat = 0;
+let outBearing = 0;
+
+/** Position and bearing at distance d (already clamped) inside segment i, into outLon/outLat/outBearing. */
+function placeAt(route: PreparedRoute, d: number, i: number): void {
+  if (route.lon.length === 1) {
+    outLon = route.lon[0];
+    outLat = route.lat[0];
+    outBearing = 0;
+    return;
+  }
   const lat1 = route.lat[i];
   const lon1 = route.lon[i];
   const lat2 = route.lat[i + 1];
   const lon2 = route.lon[i + 1];
   const segLen = route.cumulative[i + 1] - route.cumulative[i];
   const along = d - route.cumulative[i];
-  const [x1, y1, z1] = ecef(lat1, lon1);
-  const [x2, y2, z2] = ecef(lat2, lon2);
-  const dx = x2 - x1;
-  const dy = y2 - y1;
-  const dz = z2 - z1;
+  // ECEF of both ends (as ecef())
+  let phi = lat1 * DEG;
+  let lam = lon1 * DEG;
+  let sphi = Math.sin(phi);
+  let cphi = Math.cos(phi);
+  let nRad = A / Math.sqrt(1 - E2 * sphi * sphi);
+  const x1 = nRad * cphi * Math.cos(lam);
+  const y1 = nRad * cphi * Math.sin(lam);
+  const z1 = nRad * ONE_MINUS_E2 * sphi;
+  phi = lat2 * DEG;
+  lam = lon2 * DEG;
+  sphi = Math.sin(phi);
+  cphi = Math.cos(phi);
+  nRad = A / Math.sqrt(1 - E2 * sphi * sphi);
+  const dx = nRad * cphi * Math.cos(lam) - x1;
+  const dy = nRad * cphi * Math.sin(lam) - y1;
+  const dz = nRad * ONE_MINUS_E2 * sphi - z1;
   const c = Math.hypot(dx, dy, dz);
-  if (along <= 0) return { distanceMetres: d, lon: lon1, lat: lat1, bearing: chordBearing(lat1, lon1, dx, dy, dz, c), segment: i };
-  if (along >= segLen) return { distanceMetres: d, lon: lon2, lat: lat2, bearing: chordBearing(lat2, lon2, dx, dy, dz, c), segment: i };
+  if (along <= 0) {
+    outLon = lon1;
+    outLat = lat1;
+    outBearing = chordBearing(lat1, lon1, dx, dy, dz, c);
+    return;
+  }
+  if (along >= segLen) {
+    outLon = lon2;
+    outLat = lat2;
+    outBearing = chordBearing(lat2, lon2, dx, dy, dz, c);
+    return;
+  }
   if (c >= CHORD_LIMIT_M) {
     const azi1 = longSegmentAzimuth(route, i);
     const r = geodesicDirect(lat1, lon1, azi1, along);
-    return { distanceMetres: d, lon: r.lon2, lat: r.lat2, bearing: r.azi2, segment: i };
+    outLon = r.lon2;
+    outLat = r.lat2;
+    outBearing = r.azi2;
+    return;
   }
   let t = segLen > 0 ? along / segLen : 0;
   // chord fraction corresponding to arc fraction t on a curve of radius R
-  const sphi = Math.sin(((lat1 + lat2) / 2) * DEG);
-  const w2 = 1 - E2 * sphi * sphi;
+  const sm = Math.sin(((lat1 + lat2) / 2) * DEG);
+  const w2 = 1 - E2 * sm * sm;
   const R = 1 / Math.sqrt(w2 * w2 * INV_R2_FACTOR);
   const theta = segLen / (2 * R);
   if (theta > 1e-9) {
     const u = 2 * t - 1;
     t = (Math.tan(u * theta) / Math.tan(theta) + 1) / 2;
   }
-  const [lat, lonRaw] = geodetic(x1 + t * dx, y1 + t * dy, z1 + t * dz);
-  return { distanceMetres: d, lon: normalizeLon(lonRaw), lat, bearing: chordBearing(lat, lonRaw, dx, dy, dz, c), segment: i };
+  geodetic(x1 + t * dx, y1 + t * dy, z1 + t * dz);
+  const lonRaw = outLon;
+  outLon = normalizeLon(lonRaw);
+  outBearing = chordBearing(outLat, lonRaw, dx, dy, dz, c);
 }
 
 /** Direction of the chord (dx, dy, dz) in the local east/north frame at (lat, lon), degrees from north. */
@@ -236,33 +269,66 @@ function chordBearing(lat: number, lon: number, dx: number, dy: number, dz: numb
   return normalizeAzimuth(Math.atan2(east, north) / DEG);
 }
 
+/** Positions for many distances, written into typed arrays (allocation-free but for the sort order when the distances are not monotone). */
+export interface RoutePositions {
+  lon: Float64Array;
+  lat: Float64Array;
+  bearing: Float64Array;
+  /** Index of the segment holding each point (optional). */
+  segment?: Int32Array;
+}
+
 /**
- * Positions for many distances at once. Distances are sorted once and the route is walked in a
- * single forward pass (no per-marker scan of the route). Results come back in input order.
+ * Positions for many distances at once. Distances are taken in increasing order (sorted once
+ * unless already monotone) and the route is walked in a single forward pass (no per-marker scan
+ * of the route). Results are written in input order into `out` (length ≥ distances.length).
  */
-export function positionsAt(route: PreparedRoute, distances: ArrayLike<number>): RoutePosition[] {
+export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>, out: RoutePositions): RoutePositions {
   const m = distances.length;
-  const order = new Array<number>(m);
-  for (let k = 0; k < m; k++) order[k] = k;
-  order.sort((a, b) => distances[a] - distances[b]);
-  const out = new Array<RoutePosition>(m);
+  let up = true;
+  let down = true;
+  for (let k = 1; k < m && (up || down); k++) {
+    if (distances[k] < distances[k - 1]) up = false;
+    if (distances[k] > distances[k - 1]) down = false;
+  }
+  let order: Uint32Array | null = null;
+  if (!up && !down) {
+    const idx = Array.from({ length: m }, (_, k) => k).sort((a, b) => distances[a] - distances[b]);
+    order = Uint32Array.from(idx);
+  }
   const cum = route.cumulative;
   const last = cum.length - 1;
+  const total = route.totalMetres;
   let seg = 0;
-  for (const k of order) {
+  for (let j = 0; j < m; j++) {
+    const k = order ? order[j] : up ? j : m - 1 - j;
+    const d = Math.min(Math.max(distances[k], 0), total);
+    let i: number;
+    if (last <= 0) i = 0;
+    else if (d >= cum[last]) i = segmentIndexAt(route, d);
+    else {
+      // advance: far jumps by binary search, short ones by stepping
+      if (seg + 8 < last && cum[seg + 8] <= d) seg = segmentIndexAt(route, d);
+      while (seg + 1 < last && cum[seg + 1] <= d) seg++;
+      i = seg;
+    }
+    placeAt(route, d, i);
+    out.lon[k] = outLon;
+    out.lat[k] = outLat;
+    out.bearing[k] = outBearing;
+    if (out.segment) out.segment[k] = i;
+  }
+  return out;
+}
+
+/** Positions for many distances at once (positionsInto, as objects), in input order. */
+export function positionsAt(route: PreparedRoute, distances: ArrayLike<number>): RoutePosition[] {
+  const m = distances.length;
+  const p = positionsInto(route, distances, { lon: new Float64Array(m), lat: new Float64Array(m), bearing: new Float64Array(m), segment: new Int32Array(m) });
+  const out = new Array<RoutePosition>(m);
+  for (let k = 0; k < m; k++) {
     const d = Math.min(Math.max(distances[k], 0), route.totalMetres);
-    if (last <= 0) {
-      out[k] = positionAt(route, d);
-      continue;
-    }
-    if (d >= cum[last]) {
-      out[k] = positionAt(route, d);
-      continue;
-    }
-    // advance: far jumps by binary search, short ones by stepping
-    if (seg + 8 < last && cum[seg + 8] <= d) seg = segmentIndexAt(route, d);
-    while (seg + 1 < last && cum[seg + 1] <= d) seg++;
-    out[k] = positionAt(route, d, seg);
+    out[k] = { distanceMetres: d, lon: p.lon[k], lat: p.lat[k], bearing: p.bearing[k], segment: p.segment![k] };
   }
   return out;
 }

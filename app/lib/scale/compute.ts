@@ -3,7 +3,7 @@
  * insets, legibility warnings (warnings.ts) and (on routes) coordinates, bearings and walking figures.
  */
 import { parseGeoJsonRoute, parseGpxRoute } from "../geo/parse";
-import { positionsAt, prepareRoute, type PreparedRoute } from "../geo/route";
+import { positionsInto, prepareRoute, type PreparedRoute } from "../geo/route";
 import { clean, toMetres, toYears, type UnitSystem } from "../units";
 import {
   displayStep,
@@ -282,12 +282,12 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     const speedText = system === "us" ? `${formatSig(accessibleSpeed / 0.3048, 2)} ft/s` : `${accessibleSpeed} m/s`;
     const ds = new Float64Array(n);
     for (let i = 0; i < n; i++) ds[i] = routeStart === "older" ? points[i].fromOlderEndMetres : points[i].fromYoungerEndMetres;
-    const pos = positionsAt(route, ds);
+    const pos = positionsInto(route, ds, { lon: new Float64Array(n), lat: new Float64Array(n), bearing: new Float64Array(n) });
     const speeds = { walkingSpeed, accessibleSpeed, stepLength, shortStep, speedText };
     for (let i = 0; i < n; i++) {
       const p = points[i];
-      p.position = { lon: pos[i].lon, lat: pos[i].lat };
-      p.bearing = Math.round(pos[i].bearing * 1e6) / 1e6;
+      p.position = { lon: pos.lon[i], lat: pos.lat[i] };
+      p.bearing = Math.round(pos.bearing[i] * 1e6) / 1e6;
       p.walking = walkingAt(ds[i], speeds);
     }
   }

@@ -10,7 +10,7 @@ export * from "./numbering";
 export * from "./warnings";
 export * from "./ruler";
 export * from "../units";
-export { prepareRoute, positionsAt, positionAt, segmentLength, CHORD_LIMIT_M, type PreparedRoute, type RoutePosition } from "../geo/route";
+export { prepareRoute, positionsAt, positionsInto, positionAt, segmentLength, CHORD_LIMIT_M, type PreparedRoute, type RoutePosition, type RoutePositions } from "../geo/route";
 export { geodesicInverse, geodesicDirect, type InverseResult, type DirectResult } from "../geo/geodesic";
 export { parseGeoJsonRoute, parseGpxRoute, MAX_ROUTE_VERTICES, type RouteParseResult, type RouteIssue } from "../geo/parse";
 
