@@ -67,7 +67,7 @@ export function checkStorage() {
       await s.client.send(new HeadBucketCommand({ Bucket: s.bucket }));
     } catch (error) {
       const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
-      throw new Error(status ? `S3 answered ${status} for bucket ${s.bucket}` : `S3 unreachable (${(error as Error).name})`);
+      throw new Error(status ? `S3 answered ${status} for bucket ${s.bucket}` : `S3 unreachable (${(error as Error).name})`, { cause: error });
     }
   });
 }

@@ -17,9 +17,9 @@ import type { Sequelize } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createSequelize } from "../../db/sequelize.ts";
 import { listMessages } from "../../fakes/inbox.ts";
-import { databaseUrl, dropDatabase, ensureDatabase } from "../../fakes/services.ts";
+import { databaseUrl, dropDatabase } from "../../fakes/services.ts";
 import { startSmtpStandIn } from "../../fakes/smtp.ts";
-import { startAppProcess, startBalancer, startSilentServer, type AppProcess } from "../helpers/app-process.ts";
+import { copyTemplateDatabase, startAppProcess, startBalancer, startSilentServer, until, type AppProcess } from "../helpers/app-process.ts";
 import { freePort } from "../helpers/net.ts";
 import { applyTestEnv, TEMPLATE_DATABASE, TEST_DATABASE } from "../setup/test-env.ts";
 
@@ -39,15 +39,6 @@ const ports: Record<Backend, number> = { a: 0, b: 0 };
 let serverEnv: Record<string, string>;
 const mailDir = mkdtempSync(path.join(tmpdir(), "eonscale-scaleout-mail-"));
 
-async function until<T>(what: string, fn: () => Promise<T | null | undefined | false>, timeoutMs = 30_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await fn();
-    if (value) return value;
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function rows<T>(sql: string, bind: unknown[] = []): Promise<T[]> {
@@ -130,16 +121,7 @@ async function mailJobs(outboxId: number) {
 describe("two app servers, one database", () => {
   beforeAll(async () => {
     applyTestEnv();
-    await dropDatabase(DATABASE);
-    for (let attempt = 1; ; attempt++) {
-      try {
-        await ensureDatabase(DATABASE, { template: TEMPLATE_DATABASE });
-        break;
-      } catch (error) {
-        if ((error as { code?: string }).code !== "55006" || attempt === 20) throw error;
-        await sleep(200 * attempt);
-      }
-    }
+    await copyTemplateDatabase(DATABASE, TEMPLATE_DATABASE);
     const url = databaseUrl(DATABASE);
     db = createSequelize(url);
     const [smtpPort, inboxPort] = [await freePort(), await freePort()];

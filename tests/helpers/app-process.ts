@@ -159,3 +159,30 @@ export async function startCuttableRelay(targetPort: number): Promise<{ port: nu
     },
   };
 }
+
+/** Polls `fn` until it returns something truthy (errors count as "not yet"). */
+export async function until<T>(what: string, fn: () => Promise<T | null | undefined | false>, timeoutMs = 30_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await fn().catch(() => null);
+    if (value) return value;
+    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+/** A fresh copy of the test template database under `name` (retried while the template is busy). */
+export async function copyTemplateDatabase(name: string, template: string) {
+  const { dropDatabase, ensureDatabase } = await import("../../fakes/services.ts");
+  await dropDatabase(name);
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await ensureDatabase(name, { template });
+      return;
+    } catch (error) {
+      // 55006: another process has the template open for a moment.
+      if ((error as { code?: string }).code !== "55006" || attempt === 20) throw error;
+      await new Promise((r) => setTimeout(r, 200 * attempt));
+    }
+  }
+}
