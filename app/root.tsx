@@ -28,6 +28,18 @@ function useVisitorPage(): { htmlLang: string } | null {
   return { htmlLang: (leaf?.data as { htmlLang?: string } | undefined)?.htmlLang ?? "en" };
 }
 
+function Head() {
+  return (
+    <head>
+      <meta charSet="utf-8" />
+      <meta name="viewport" content="width=device-width, initial-scale=1" />
+      <link rel="icon" href="/favicon.svg" type="image/svg+xml" />
+      <Meta />
+      <Links />
+    </head>
+  );
+}
+
 export function Layout({ children }: { children: React.ReactNode }) {
   const data = useRouteLoaderData<typeof loader>("root");
   const nonce = data?.nonce;
@@ -35,26 +47,14 @@ export function Layout({ children }: { children: React.ReactNode }) {
   if (visitor) {
     return (
       <html lang={visitor.htmlLang}>
-        <head>
-          <meta charSet="utf-8" />
-          <meta name="viewport" content="width=device-width, initial-scale=1" />
-          <link rel="icon" href="/favicon.svg" type="image/svg+xml" />
-          <Meta />
-          <Links />
-        </head>
+        <Head />
         <body className="visit">{children}</body>
       </html>
     );
   }
   return (
     <html lang="en-GB">
-      <head>
-        <meta charSet="utf-8" />
-        <meta name="viewport" content="width=device-width, initial-scale=1" />
-        <link rel="icon" href="/favicon.svg" type="image/svg+xml" />
-        <Meta />
-        <Links />
-      </head>
+      <Head />
       <body className="min-h-screen bg-paper text-ink antialiased">
         {children}
         <ScrollRestoration nonce={nonce} />

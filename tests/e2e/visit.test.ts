@@ -5,17 +5,13 @@
 // bytes; and the offline copy: keep the exhibit, go offline, open a marker page never opened before
 // — answered by the service worker's copy, with the "you are offline" note.
 import { once } from "node:events";
-import { readFileSync } from "node:fs";
 import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
-import { createRequire } from "node:module";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser } from "../setup/chromium.ts";
-import { BASE, shot } from "./helpers.ts";
+import { axeFindings, BASE, shot } from "./helpers.ts";
 
-const require = createRequire(import.meta.url);
-const AXE = readFileSync(require.resolve("axe-core/axe.min.js"), "utf8");
 const EXHIBIT = "/visit/marrowby/riverside-walk";
 const PAGES: [string, string][] = [
   ["exhibit", EXHIBIT],
@@ -40,16 +36,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-async function axeFindings(page: Page): Promise<string[]> {
-  await page.addScriptTag({ content: AXE });
-  const violations = await page.evaluate(async () => {
-    const w = window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } };
-    const r = await w.axe.run(document, { resultTypes: ["violations"] });
-    return r.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.slice(0, 3).map((n) => n.target.join(" ")) }));
-  });
-  return violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.impact} ${v.id}: ${v.targets.join(" | ")}`);
-}
 
 /** Links and buttons smaller than 24 × 24 CSS px that are not inline in a sentence (WCAG 2.2 2.5.8). */
 async function smallTargets(page: Page): Promise<string[]> {

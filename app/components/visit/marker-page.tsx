@@ -74,8 +74,8 @@ export function MarkerPage({ view }: { view: MarkerView }) {
       </section>
 
       <nav aria-label={`${t.markerPrevious} / ${t.markerNext}`} className="mt-6 grid gap-4 sm:grid-cols-2">
-        {view.previous ? <NeighbourLink n={view.previous} title={t.markerPrevious} words={fill(t.markerBack, { distance: view.previous.gap })} /> : <p className="m-0">{t.markerFirst}</p>}
-        {view.next ? <NeighbourLink n={view.next} title={t.markerNext} words={fill(t.markerAhead, { distance: view.next.gap })} /> : <p className="m-0">{t.markerLast}</p>}
+        {view.previous ? <NeighbourLink n={view.previous} title={t.markerPrevious} words={view.previous.same ? t.markerSamePlace : fill(t.markerBack, { distance: view.previous.gap })} /> : <p className="m-0">{t.markerFirst}</p>}
+        {view.next ? <NeighbourLink n={view.next} title={t.markerNext} words={view.next.same ? t.markerSamePlace : fill(t.markerAhead, { distance: view.next.gap })} /> : <p className="m-0">{t.markerLast}</p>}
       </nav>
 
       {view.decay ? (

@@ -1,5 +1,6 @@
 // The scale strip: rows of interval bands in the standard chart colours, each labelled (black or
-// white text, ≥ 4.5:1) where there is room, and a tick for each marker. Decorative for assistive
+// white text, ≥ 4.5:1) where there is room, each at its own place (a rank may begin later than
+// the span: the Hadean has no eras), and a tick for each marker. Decorative for assistive
 // technology: the figure's caption and the marker list say the same in words.
 import type { StripModel } from "../../lib/visit/strip";
 
@@ -19,7 +20,7 @@ export function Strip({ model, caption, here }: { model: StripModel; caption: st
                 className="visit-band"
                 title={b.name}
                 lang={b.lang ?? undefined}
-                style={{ width: pct(b.width), background: b.color, color: b.textColor }}
+                style={{ left: pct(b.start), width: pct(b.width), background: b.color, color: b.textColor }}
               >
                 {b.labelled ? b.name : ""}
               </div>

@@ -13,6 +13,8 @@ export interface Neighbour {
   label: string;
   href: string;
   gap: string;
+  /** At the same distance (several markers can share a sign post). */
+  same: boolean;
 }
 
 export interface MarkerView {
@@ -68,7 +70,9 @@ export function markerView(snapshot: PublicationSnapshot, page: PageBasics, sign
   const m = snapshot.markers[index];
   const neighbour = (k: number): Neighbour | null => {
     const n = snapshot.markers[k];
-    return n ? { signNumber: n.signNumber, label: n.label, href: `${base}/${n.signNumber}${suffix}`, gap: gapText(snapshot, m, n) } : null;
+    if (!n) return null;
+    const same = n.distance.fromOlderEndMetres === m.distance.fromOlderEndMetres;
+    return { signNumber: n.signNumber, label: n.label, href: `${base}/${n.signNumber}${suffix}`, gap: gapText(snapshot, m, n), same };
   };
   const total = snapshot.scale.totalMetres;
   const units = snapshot.exhibit.unitsPreference;
