@@ -10,7 +10,8 @@ export const ROLL_PRESETS = [24, 36, 44, 54, 60, 64].map((inches) => ({ id: `${i
 export const PANEL_DEFAULTS = { widthMm: 36 * MM_PER_INCH, heightMm: 500, overlapMm: 20, bleedMm: 3 } as const;
 export const MAX_PANELS = 2000;
 
-const mmField = (name: string, min: number, max: number) =>
+/** A length in millimetres from a form or query, refused with the field's name and the reason. */
+export const mmField = (name: string, min: number, max: number) =>
   z.coerce
     .number({ error: `${name}: a number of millimetres` })
     .refine(Number.isFinite, { error: `${name}: a number of millimetres` })

@@ -10,7 +10,7 @@ import type { PublicationSnapshot, SnapshotMarker } from "../publication/types";
 import { adaMinimumHeight, minimumXHeight, NPS_MIN_FONT_MM } from "./ada";
 import { roughMeasure, wrapText, type Measure, type Page, type Shape } from "./draw";
 import { checkLabelLength, plainText, LABEL_LIMITS } from "./label-length";
-import { issuesToFields, type Parsed } from "./panels";
+import { issuesToFields, mmField as mm, type Parsed } from "./panels";
 import { qrRuns, qrSize } from "./qr";
 import { FABRICATION_SOURCES, MM_PER_INCH } from "./sources";
 import { watermark } from "./panel-page";
@@ -28,8 +28,6 @@ export const SIGN_SETTING_DEFAULTS = { mountingHeightMm: 1370, viewingDistanceMm
 /** Assumption, not a standard: a phone is held about half a metre from a code, nearer if the sign is read nearer. */
 export const SCANNING_DISTANCE_MM = 500;
 
-const mm = (name: string, min: number, max: number) =>
-  z.coerce.number({ error: `${name}: a number of millimetres` }).refine(Number.isFinite, { error: `${name}: a number of millimetres` }).min(min, { error: `${name}: at least ${min} mm` }).max(max, { error: `${name}: at most ${max} mm` });
 
 export const signSettingsSchema = z.object({
   mountingHeightMm: mm("mountingHeightMm", 300, 6000),

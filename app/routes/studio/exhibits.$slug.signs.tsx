@@ -30,6 +30,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   return redirect(`/studio/exhibits/${encodeURIComponent(params.slug)}/signs`, { headers: { "Set-Cookie": await noticeHeader({ kind: "success", message: `Sign settings saved: text ${result.settings.mountingHeightMm} mm above the floor, read from ${result.settings.viewingDistanceMm} mm.` }) } });
 }
 
+/** Sources as sentences: "Common roll widths …". */
+const sentences = (...texts: string[]) => texts.map((t) => `${t.charAt(0).toUpperCase()}${t.slice(1)}.`).join(" ");
+
 export default function Signs({ loaderData, actionData }: Route.ComponentProps) {
   const v = loaderData;
   const base = `/studio/exhibits/${encodeURIComponent(v.slug)}`;
@@ -54,7 +57,7 @@ export default function Signs({ loaderData, actionData }: Route.ComponentProps) 
           </div>
           {v.canEdit ? <button type="submit" className="btn-quiet">Save the sign settings</button> : <p className="text-ink-soft">Designers change these.</p>}
         </Form>
-        <p className="mt-2 text-ink-soft">{FABRICATION_SOURCES.wallLabelHeight}. {FABRICATION_SOURCES.wayside}.</p>
+        <p className="mt-2 text-ink-soft">{sentences(FABRICATION_SOURCES.wallLabelHeight, FABRICATION_SOURCES.wayside)}</p>
       </section>
 
       <section className="card mt-6 font-sans text-sm" aria-labelledby="signs-h">
@@ -100,7 +103,7 @@ export default function Signs({ loaderData, actionData }: Route.ComponentProps) 
             <button type="submit" className="btn-quiet">Make panels.pdf</button>
           </form>
           <ExportJobs />
-          <p className="mt-2 text-ink-soft">{FABRICATION_SOURCES.rolls}. {FABRICATION_SOURCES.overlap}. {FABRICATION_SOURCES.bleed}.</p>
+          <p className="mt-2 text-ink-soft">{sentences(FABRICATION_SOURCES.rolls, FABRICATION_SOURCES.overlap, FABRICATION_SOURCES.bleed)}</p>
         </section>
       ) : (
         <p className="mt-6 font-sans text-sm"><a href={`${base}/trailhead.pdf?from=${from}`}>Trailhead board (PDF)</a> · <a href={`${base}/profile.json?from=${from}`}>Slope profile (JSON)</a> · <Link to={base}>the profile chart is under the route plan</Link></p>
