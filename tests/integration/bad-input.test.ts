@@ -7,10 +7,9 @@
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import type { RouteConfigEntry } from "@react-router/dev/routes";
-import routes from "../../app/routes.ts";
 import { Organisation } from "../../db/models/index.ts";
 import { sequelize } from "../../server/db.server.ts";
+import { routePaths } from "../helpers/route-table.ts";
 import { cookieFor, createMember, makeSteward, routeArgs, settle } from "../helpers/db.ts";
 
 type RouteModule = { action?: (args: never) => unknown };
@@ -57,14 +56,7 @@ const caseArb = (spec: (typeof FIELDS)[string]) =>
     extra: fc.dictionary(fc.string({ minLength: 1, maxLength: 6 }), bad, { maxKeys: 2 }),
   });
 
-const PATHS = new Map<string, string>();
-(function walk(entries: RouteConfigEntry[], prefix: string) {
-  for (const e of entries) {
-    const path = e.index ? prefix : e.path ? `${prefix}/${e.path}` : prefix;
-    PATHS.set(e.file.replace(/^routes\//, ""), path.replace(/\/+/g, "/") || "/");
-    if (e.children) walk(e.children, path);
-  }
-})(routes, "");
+const PATHS = routePaths();
 const PARAMS = { org: "marrowby", slug: "riverside-walk", id: "1", token: "made-up-token-999999", assetId: "1" };
 
 async function rowCounts() {

@@ -9,9 +9,8 @@
 // NOT derived from app/lib/permissions.ts. Route modules are discovered, so a new route without a
 // row fails this file, which prints routes × identities × methods covered.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { RouteConfigEntry } from "@react-router/dev/routes";
-import routes from "../../app/routes.ts";
 import { Organisation } from "../../db/models/index.ts";
+import { routePaths } from "../helpers/route-table.ts";
 import { cookieFor, createMember, createOrganisation, createUser, formRequest, getRequest, makeSteward, routeArgs, settle } from "../helpers/db.ts";
 
 type RouteModule = { loader?: (args: never) => unknown; action?: (args: never) => unknown };
@@ -88,15 +87,7 @@ const EXPECTED: Record<string, { loader?: Row; action?: Row }> = {
   "visit.$org.$slug.tsx": { loader: [200, 200, 200, 200, 200, 200, 200, 200, 200] },
 };
 
-// URL of each route module, read from the route table; parameters filled in per route.
-const PATHS = new Map<string, string>();
-(function walk(entries: RouteConfigEntry[], prefix: string) {
-  for (const e of entries) {
-    const path = e.index ? prefix : e.path ? `${prefix}/${e.path}` : prefix;
-    PATHS.set(e.file.replace(/^routes\//, ""), path.replace(/\/+/g, "/") || "/");
-    if (e.children) walk(e.children, path);
-  }
-})(routes, "");
+const PATHS = routePaths();
 
 function paramsFor(name: string): Record<string, string> {
   const edition = /^(editions\.|api\.timescales)/.test(name);
