@@ -18,7 +18,7 @@ module.exports = {
       from: { path: "^app/lib/" },
       to: {
         dependencyTypes: ["npm", "npm-dev", "npm-peer", "npm-optional", "core"],
-        pathNot: "node_modules/(zod|@tmcw/togeojson|@xmldom/xmldom|n3|canonicalize|simplify-js|csv-stringify/dist/esm)/",
+        pathNot: "node_modules/(zod|@tmcw/togeojson|@xmldom/xmldom|n3|canonicalize|simplify-js|csv-stringify/dist/esm|@sindresorhus/transliterate)/",
       },
     },
     {

@@ -1,4 +1,4 @@
-import { useEffect, useId, useState } from "react";
+import { useId, useState } from "react";
 import { useNavigation } from "react-router";
 
 export function Field({
@@ -69,9 +69,8 @@ export interface Notice {
 export function FlashNotice({ notice }: { notice: Notice | null | undefined }) {
   const navigation = useNavigation();
   const [dismissed, setDismissed] = useState<Notice | null>(null);
-  useEffect(() => {
-    if (navigation.state === "submitting" && notice) setDismissed(notice);
-  }, [navigation.state, notice]);
+  // Derived during render (React's "adjusting state when a prop changes"), not in an effect.
+  if (navigation.state === "submitting" && notice && dismissed !== notice) setDismissed(notice);
   if (!notice || dismissed === notice) return null;
   return <FormMessage kind={notice.kind}>{notice.message}</FormMessage>;
 }

@@ -43,21 +43,7 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
 
   const ranksPresent = RANKS.filter((r) => intervals.some((iv) => iv.rank === r));
 
-  function Header({ k, children, num }: { k: SortKey; children: React.ReactNode; num?: boolean }) {
-    const active = sort.key === k;
-    return (
-      <th scope="col" aria-sort={active ? (sort.dir === 1 ? "ascending" : "descending") : "none"} className={`p-0 ${num ? "text-right" : ""}`}>
-        <button
-          type="button"
-          className={`flex min-h-10 w-full items-center gap-1 px-3 py-2 font-semibold hover:bg-paper-deep ${num ? "justify-end" : ""}`}
-          onClick={() => setSort((s) => (s.key === k ? { key: k, dir: s.dir === 1 ? -1 : 1 } : { key: k, dir: 1 }))}
-        >
-          {children}
-          <span aria-hidden="true" className="text-ink-soft">{active ? (sort.dir === 1 ? "▲" : "▼") : "↕"}</span>
-        </button>
-      </th>
-    );
-  }
+
 
   return (
     <div>
@@ -93,13 +79,13 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
           <caption className="sr-only">{caption}</caption>
           <thead className="border-b border-rule bg-paper">
             <tr>
-              <Header k="name">Name</Header>
-              <Header k="rank">Rank</Header>
+              <Header sort={sort} setSort={setSort} k="name">Name</Header>
+              <Header sort={sort} setSort={setSort} k="rank">Rank</Header>
               <th scope="col" className="px-3 py-2">Parent</th>
-              <Header k="base" num>Base (Ma)</Header>
-              <Header k="uncertainty" num>± (Ma)</Header>
-              <Header k="top" num>Top (Ma)</Header>
-              <Header k="gssp">Base defined by</Header>
+              <Header sort={sort} setSort={setSort} k="base" num>Base (Ma)</Header>
+              <Header sort={sort} setSort={setSort} k="uncertainty" num>± (Ma)</Header>
+              <Header sort={sort} setSort={setSort} k="top" num>Top (Ma)</Header>
+              <Header sort={sort} setSort={setSort} k="gssp">Base defined by</Header>
               <th scope="col" className="px-3 py-2">Colour</th>
             </tr>
           </thead>
@@ -132,5 +118,23 @@ export function IntervalTable({ intervals, caption }: { intervals: readonly Inte
         </table>
       </div>
     </div>
+  );
+}
+
+type SortState = { key: SortKey; dir: 1 | -1 };
+
+function Header({ k, children, num, sort, setSort }: { k: SortKey; children: React.ReactNode; num?: boolean; sort: SortState; setSort: (update: (s: SortState) => SortState) => void }) {
+  const active = sort.key === k;
+  return (
+    <th scope="col" aria-sort={active ? (sort.dir === 1 ? "ascending" : "descending") : "none"} className={`p-0 ${num ? "text-right" : ""}`}>
+      <button
+        type="button"
+        className={`flex min-h-10 w-full items-center gap-1 px-3 py-2 font-semibold hover:bg-paper-deep ${num ? "justify-end" : ""}`}
+        onClick={() => setSort((s) => (s.key === k ? { key: k, dir: s.dir === 1 ? -1 : 1 } : { key: k, dir: 1 }))}
+      >
+        {children}
+        <span aria-hidden="true" className="text-ink-soft">{active ? (sort.dir === 1 ? "▲" : "▼") : "↕"}</span>
+      </button>
+    </th>
   );
 }

@@ -99,6 +99,7 @@ export function TimescaleChart({
 
   const chosen = selected ? model.byName.get(selected) ?? null : null;
   const visible = model.present.filter((r) => !hidden.has(r));
+  const visibleKey = visible.join(",");
 
   const layout = useMemo(() => {
     const all = intervals.filter((iv) => Number.isFinite(iv.baseMa) && Number.isFinite(iv.topMa));
@@ -158,8 +159,8 @@ export function TimescaleChart({
       last = yy;
     }
     return { boxes, columns, columnX, columnsWidth, height, y, ageLabels, windowBase, windowTop };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [intervals, win, visible.join(","), spacing, model]);
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- `visible` is compared by its contents (visibleKey)
+  }, [intervals, win, visibleKey, spacing, model]);
 
   const axis = spacing === "scale" ? AXIS : 0;
   const width = axis + layout.columnsWidth + AGE_COLUMN;

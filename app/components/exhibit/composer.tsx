@@ -61,7 +61,7 @@ function ComposerBody({ view, refusal, children }: { view: ComposerView; refusal
   const units = shownDraft.unitsPreference;
   const result = preview.ok ? preview.result : null;
   const acknowledged = useMemo(() => new Map(view.acknowledgements.map((a) => [a.warningKey, a])), [view.acknowledgements]);
-  const warnings = result?.warnings ?? [];
+  const warnings = useMemo(() => result?.warnings ?? [], [result]);
   const openWarnings = useMemo(() => warnings.filter((w) => !acknowledged.has(w.key)), [warnings, acknowledged]);
   const flagged = useMemo(() => new Set(openWarnings.filter((w) => w.code.startsWith("markers-")).flatMap((w) => w.pointIds)), [openWarnings]);
   const olderMa = toYears(spec.spanOlder) / 1e6;
