@@ -2,7 +2,7 @@
 // every marker page, the styles and this site's small script — so a walker can read it with no
 // signal. One cache per exhibit ("eonscale-visit:<org>/<slug>"), replaced as a whole when a newer
 // publication is kept. Pages go to the network first (revalidating with the server) and fall back
-// to the kept copy; styles and scripts are served from the copy first.
+// to the kept copy (also when a weak signal is too slow); styles and scripts come from the copy first.
 "use strict";
 
 const PREFIX = "eonscale-visit:";
@@ -33,6 +33,10 @@ async function keep({ org, slug, version, urls }) {
 self.addEventListener("message", (event) => {
   const port = event.ports[0];
   const data = event.data || {};
+  if (data.type === "from-kept?" && port) {
+    port.postMessage({ fromKept: servedFromKept.has(data.url) });
+    return;
+  }
   if (data.type !== "keep" || !port) return;
   event.waitUntil(
     keep(data).then(
@@ -51,20 +55,40 @@ async function fromKept(request) {
   return undefined;
 }
 
+const SLOW_MS = 6000;
+/** Page addresses answered from the kept copy lately (the page asks, to say "you are offline"). */
+const servedFromKept = new Set();
+
+async function networkOrKept(request) {
+  const network = fetch(request, { cache: "no-cache" });
+  const slow = new Promise((resolve) => setTimeout(() => resolve("slow"), SLOW_MS));
+  let first;
+  try {
+    first = await Promise.race([network, slow]);
+  } catch (error) {
+    first = error;
+  }
+  if (first instanceof Response) {
+    servedFromKept.delete(request.url);
+    return first;
+  }
+  const kept = await fromKept(request);
+  if (kept) {
+    servedFromKept.add(request.url);
+    return kept;
+  }
+  return network; // nothing kept: wait for the network after all (or its error)
+}
+
 self.addEventListener("fetch", (event) => {
   const request = event.request;
   if (request.method !== "GET") return;
   const url = new URL(request.url);
   if (url.origin !== self.location.origin) return;
   if (request.mode === "navigate" || url.pathname.startsWith("/visit/")) {
-    // Network first, always revalidated with the server (never a stale HTTP-cache copy); the kept copy when there is no signal.
-    event.respondWith(
-      fetch(request, { cache: "no-cache" }).catch(async (error) => {
-        const kept = await fromKept(request);
-        if (kept) return kept;
-        throw error;
-      }),
-    );
+    // Network first, always revalidated with the server (never a stale HTTP-cache copy); the kept
+    // copy when there is no signal, or when a weak signal has not answered within SLOW_MS.
+    event.respondWith(networkOrKept(request));
     return;
   }
   if (url.pathname.startsWith("/assets/") || url.pathname === "/visit.js" || url.pathname === "/favicon.svg") {

@@ -110,11 +110,29 @@
     });
   }
 
+  // "You are offline": no network at all, or this page came from the kept copy (a signal too weak to answer).
+  function askWorker(message) {
+    return navigator.serviceWorker.ready.then(function (reg) {
+      return new Promise(function (resolve) {
+        var channel = new MessageChannel();
+        channel.port1.onmessage = function (e) {
+          resolve(e.data);
+        };
+        reg.active.postMessage(message, [channel.port2]);
+      });
+    });
+  }
   keptMeta().then(function (meta) {
-    if (meta && !navigator.onLine && note) {
+    if (!meta || !note) return;
+    var show = function () {
       note.textContent = say("showing", { time: when(meta.savedAt) });
       note.hidden = false;
-    }
+    };
+    if (!navigator.onLine) show();
+    else if (navigator.serviceWorker.controller)
+      askWorker({ type: "from-kept?", url: location.href }).then(function (answer) {
+        if (answer && answer.fromKept) show();
+      });
   });
 
   if (!urls.length) return;
@@ -125,18 +143,10 @@
 
   function keep() {
     if (keepOut) keepOut.textContent = say("saving");
-    return navigator.serviceWorker.ready.then(function (reg) {
-      return new Promise(function (resolve) {
-        var channel = new MessageChannel();
-        channel.port1.onmessage = function (e) {
-          resolve(e.data);
-        };
-        reg.active.postMessage({ type: "keep", org: org, slug: slug, version: version, urls: urls.concat(assets) }, [channel.port2]);
-      }).then(function (result) {
-        if (keepOut) keepOut.textContent = result.ok ? say("saved", { time: when(result.savedAt) }) : say("failed", { reason: result.reason });
-        document.documentElement.setAttribute("data-kept", result.ok ? "yes" : "no");
-        return result;
-      });
+    return askWorker({ type: "keep", org: org, slug: slug, version: version, urls: urls.concat(assets) }).then(function (result) {
+      if (keepOut) keepOut.textContent = result.ok ? say("saved", { time: when(result.savedAt) }) : say("failed", { reason: result.reason });
+      document.documentElement.setAttribute("data-kept", result.ok ? "yes" : "no");
+      return result;
     });
   }
 
@@ -148,15 +158,15 @@
       }
       var saveData = navigator.connection && navigator.connection.saveData;
       keptMeta().then(function (meta) {
-        // By itself: only online, only when the browser does not ask to save data, and only when
-        // nothing or an older publication is kept (a newer publication replaces the copy).
+        // By itself: only online, and only when nothing or an older publication is kept. A newer
+        // publication always replaces a kept copy; a first copy waits for a tap under Save-Data.
         if (!navigator.onLine) return;
         if (meta && meta.version === version) {
           if (keepOut) keepOut.textContent = say("saved", { time: when(meta.savedAt) });
           document.documentElement.setAttribute("data-kept", "yes");
           return;
         }
-        if (!saveData) keep();
+        if (meta || !saveData) keep();
       });
     });
   });

@@ -90,6 +90,7 @@ export interface MarkerRow {
 
 export function walkText(marker: SnapshotMarker, t: Messages): string | null {
   if (!marker.walking) return null;
+  if (marker.walking.fromStartMetres === 0) return t.walkStart;
   return fill(t.walkBoth, { fast: durationText(marker.walking.seconds, t), slow: durationText(marker.walking.accessibleSeconds, t) });
 }
 
