@@ -52,7 +52,12 @@ export default defineConfig(({ isSsrBuild }) => ({
           globalSetup: ["tests/setup/global-setup.ts", "tests/setup/e2e-server.ts"],
           testTimeout: 120_000,
           hookTimeout: 180_000,
-          fileParallelism: false,
+          // Two files at a time: they share the one app server (each makes its own rows) and mostly wait
+          // on Chromium and the server, so two overlap well on 2 cores (npm test stays under 10 minutes).
+          fileParallelism: true,
+          maxWorkers: 2,
+          // Pages wait on the server and background jobs: poll for up to 20 s, not vitest's 1 s.
+          expect: { poll: { timeout: 20_000 } },
         },
       },
     ],

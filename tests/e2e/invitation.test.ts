@@ -39,7 +39,10 @@ describe("inviting a reviewer", () => {
     await shot(page, "invite-03-bad-address");
 
     await page.getByLabel("E-mail address").fill(email);
-    await page.getByLabel("Role", { exact: true }).selectOption("reviewer");
+    // Roles are a set (checkboxes); the invitation form starts with Designer ticked.
+    const inviteForm = page.locator("form", { has: page.getByRole("button", { name: "Send invitation" }) });
+    await inviteForm.getByLabel("Designer", { exact: true }).uncheck();
+    await inviteForm.getByLabel("Reviewer", { exact: true }).check();
     await page.getByRole("button", { name: "Send invitation" }).click();
     await page.getByText(`Invitation sent to ${email} as reviewer.`).waitFor();
     await page.getByText(email, { exact: false }).first().waitFor();

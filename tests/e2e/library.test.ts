@@ -27,18 +27,18 @@ describe("the event library in the browser", () => {
     await signIn(page, "editor@marrowby.example", "deep-time-demo");
     await page.getByRole("navigation", { name: "Studio" }).getByRole("link", { name: "Event library" }).click();
     await page.waitForURL(`${BASE}/studio/library`);
-    await page.getByRole("link", { name: "Oldest dated mineral grain (Jack Hills zircon)" }).waitFor();
+    await page.getByRole("link", { name: "Oldest dated mineral grain on Earth (Jack Hills zircon)" }).waitFor();
     await shot(page, "library-01-list-editor");
     await page.getByRole("searchbox", { name: "Search" }).fill("extinction");
     await page.waitForURL(/q=extinction/);
     await page.getByRole("link", { name: "End-Permian mass extinction begins" }).waitFor();
-    expect(await page.getByRole("link", { name: "Oldest dated rock (Acasta Gneiss)" }).count()).toBe(0);
+    expect(await page.getByRole("link", { name: "Oldest dated rock on Earth (Acasta Gneiss)" }).count()).toBe(0);
     await shot(page, "library-02-search");
   });
 
   it("opens a shared entry: read-only, with how-we-know figures", async () => {
     await page.goto(`${BASE}/studio/library?q=zircon`);
-    await page.getByRole("link", { name: "Oldest dated mineral grain (Jack Hills zircon)" }).click();
+    await page.getByRole("link", { name: "Oldest dated mineral grain on Earth (Jack Hills zircon)" }).click();
     await page.getByRole("heading", { name: "How we know" }).waitFor();
     await page.getByText("Shared entries are read-only reference data").waitFor();
     expect(await page.getByRole("button", { name: "Save changes" }).count()).toBe(0);
