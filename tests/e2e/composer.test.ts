@@ -106,7 +106,16 @@ describe("the exhibit composer", () => {
 
     // The preview follows the settings as they are typed, before saving, and stays in view above them.
     const span = page.locator("input[name=spanOlderValue]");
-    await span.scrollIntoViewIfNeeded();
+    // The saved acknowledgement re-renders the composer: the field may be replaced while we scroll.
+    for (let attempt = 0; ; attempt++) {
+      try {
+        await page.waitForLoadState("networkidle");
+        await span.scrollIntoViewIfNeeded({ timeout: 5_000 });
+        break;
+      } catch (error) {
+        if (attempt >= 4) throw error;
+      }
+    }
     await span.fill("541");
     await page.getByText("Unsaved settings shown", { exact: false }).waitFor();
     const pane = await page.getByTestId("preview-pane").boundingBox();
