@@ -4,6 +4,7 @@
 import { Op, type Transaction } from "sequelize";
 import { AuditEvent, ChartEdition, Interval as IntervalRow, Organisation, User } from "../../db/models/index.ts";
 import { RANKS, type Correction, type EditionStatus, type Interval, type Rank } from "../../app/lib/timescale/index.ts";
+import { intervalFields } from "../../app/lib/timescale/json.ts";
 import { sequelize } from "../db.server.ts";
 import { isVisible, PUBLIC_SCOPE, visibleWhere, type EditionScope } from "./viewer.server.ts";
 
@@ -166,20 +167,9 @@ export async function loadEdition(slug: string, scope: EditionScope): Promise<Lo
 // The public JSON (shared editions only: an organisation's own editions never leave it).
 // ------------------------------------------------------------------------------------------
 
+/** The public API's interval: the same fields, in the same order, as the JSON download (without names and order). */
 export function apiInterval(iv: Interval) {
-  return {
-    name: iv.name,
-    rank: iv.rank,
-    parent: iv.parent,
-    baseMa: iv.baseMa,
-    baseUncertaintyMa: iv.baseUncertaintyMa,
-    topMa: iv.topMa,
-    color: iv.color,
-    gssp: iv.gssp,
-    // New beside the original keys: "GSSP" / "GSSA" where the base is ratified and the edition says which.
-    boundaryKind: iv.boundaryKind ?? null,
-    approximate: iv.approximate,
-  };
+  return intervalFields(iv);
 }
 
 /** `latest` is new beside the original keys: true for the latest shared edition. */

@@ -7,8 +7,9 @@ import type { ImportOptions } from "./csv";
 import { validateInterval } from "./schema";
 import type { Interval, ParseResult, Problem } from "./types";
 
-export function exportJson(intervals: readonly Interval[]): string {
-  const plain = intervals.map((iv) => ({
+/** An interval's public fields, in the order every JSON the product writes keeps them. */
+export function intervalFields(iv: Interval) {
+  return {
     name: iv.name,
     rank: iv.rank,
     parent: iv.parent,
@@ -19,9 +20,11 @@ export function exportJson(intervals: readonly Interval[]): string {
     gssp: iv.gssp,
     boundaryKind: iv.boundaryKind ?? null,
     approximate: iv.approximate,
-    names: iv.names,
-    order: iv.order,
-  }));
+  };
+}
+
+export function exportJson(intervals: readonly Interval[]): string {
+  const plain = intervals.map((iv) => ({ ...intervalFields(iv), names: iv.names, order: iv.order }));
   return JSON.stringify(plain, null, 2) + "\n";
 }
 
