@@ -39,8 +39,12 @@ declare module "react-router" {
 export const loadServerBuild = (): Promise<ServerBuild> => import("virtual:react-router/server-build");
 
 export interface AppOptions {
-  /** Defaults to the React Router build bundled with this module; tests pass their own. */
-  build?: () => Promise<ServerBuild>;
+  /**
+   * The React Router build: a resolved build (production: start() resolves it once, so the route
+   * table is derived once, not on every request), or a function (development: a fresh build per
+   * request for hot reload; tests pass their own). Defaults to the build bundled with this module.
+   */
+  build?: ServerBuild | (() => Promise<ServerBuild>);
   /** Vite's dev middleware (development only). */
   devMiddleware?: express.RequestHandler;
   /** Handlers mounted first, e.g. the local launcher's /dev/mail inbox (never in production). */
@@ -128,7 +132,7 @@ export function createApp(options: AppOptions = {}) {
   const renderPage = createFetchHandler(build, dev ? "development" : "production");
   app.use(
     visitorPages({
-      buildId: async () => (await build()).assets.version,
+      buildId: async () => (typeof build === "function" ? await build() : build).assets.version,
       render: (request) => renderPage(request, { cspNonce: "" }),
       origin: env().APP_URL,
     }),
@@ -179,7 +183,10 @@ export async function start(options: StartOptions = {}): Promise<Running> {
       );
     }
   }
-  const app = createApp(options);
+  // Production: the build resolved once (React Router derives its route table from a build object
+  // once; given a function it calls it and derives the table again on every request).
+  const build = options.build ?? (options.devMiddleware ? undefined : await loadServerBuild());
+  const app = createApp({ ...options, build });
   if (config.RUN_WORKERS === "true") await startWorkers();
 
   const server = app.listen(options.port ?? config.PORT, config.HOST);

@@ -168,8 +168,22 @@ export interface MemberContext extends Signed {
   organisation: Organisation;
 }
 
+// A page's loaders (layout and page) run on the same Request: a GET reads the signed-in person once
+// for all of them. Writes (actions) always read afresh, as they may change what is read.
+const signedOfRequest = new WeakMap<Request, Promise<Signed | null>>();
+
 /** The signed-in person (member of an organisation or not), or null. Never throws a redirect or an error response. */
-export async function getSigned(request: Request): Promise<Signed | null> {
+export function getSigned(request: Request): Promise<Signed | null> {
+  if (request.method !== "GET" && request.method !== "HEAD") return readSigned(request);
+  let signed = signedOfRequest.get(request);
+  if (!signed) {
+    signed = readSigned(request);
+    signedOfRequest.set(request, signed);
+  }
+  return signed;
+}
+
+async function readSigned(request: Request): Promise<Signed | null> {
   const session = await getSession(request);
   const userId = session.get("userId");
   const user = userId ? await User.findByPk(userId) : null;

@@ -10,7 +10,26 @@ export const meta: Route.MetaFunction = () => [{ title: "Chart editions · Eonsc
 
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await viewerOf(request);
-  const editions = await listEditions(scopeOf(viewer));
+  // The list shows how many corrections an edition has, not the corrections themselves (their
+  // evidence is on the edition's page): the page sends what it shows.
+  const editions = (await listEditions(scopeOf(viewer))).map((e) => ({
+    slug: e.slug,
+    label: e.label,
+    status: e.status,
+    source: e.source,
+    counts: e.counts,
+    total: e.total,
+    createdAt: e.createdAt,
+    createdBy: e.createdBy,
+    madeCurrentAt: e.madeCurrentAt,
+    madeCurrentBy: e.madeCurrentBy,
+    retiredAt: e.retiredAt,
+    organisationId: e.organisationId,
+    ownerName: e.ownerName,
+    latest: e.latest,
+    currentForOrganisation: e.currentForOrganisation,
+    correctionCount: e.corrections.length,
+  }));
   return { editions, canManage: managesEditions(viewer), organisation: viewer?.organisationName ?? null };
 }
 
@@ -57,7 +76,7 @@ export default function EditionsIndex({ loaderData }: Route.ComponentProps) {
             <p className="mt-3 line-clamp-2 text-sm text-ink-soft">{plainWords(e.source)}</p>
             <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 font-sans text-sm">
               <Link to={`/editions/${e.slug}`}>Chart and intervals</Link>
-              {e.corrections.length ? <Link to={`/editions/${e.slug}#corrections`}>{e.corrections.length} correction{e.corrections.length === 1 ? "" : "s"}</Link> : null}
+              {e.correctionCount ? <Link to={`/editions/${e.slug}#corrections`}>{e.correctionCount} correction{e.correctionCount === 1 ? "" : "s"}</Link> : null}
               {current && current.slug !== e.slug ? <Link to={`/editions/compare?from=${e.status === "draft" ? current.slug : e.slug}&to=${e.status === "draft" ? e.slug : current.slug}`}>Compare with {current.label}</Link> : null}
               <a href={`/editions/${e.slug}/intervals.csv`}>CSV</a>
               <a href={`/editions/${e.slug}/intervals.json`}>JSON</a>
