@@ -57,6 +57,16 @@ describe("GeoJSON nesting depth", () => {
     if (!r.ok) expect(r.issues[0]).toEqual({ path: "medium.geometry", message: expect.stringMatching(/nested more than 32 levels/) });
   });
 
+  it("counts a position (a leaf array) as a level: exactly the limit passes, one more is refused", () => {
+    // nested(d) is d arrays around a position [0, 0]: d + 1 levels
+    expect(nestingExceeds(nested(MAX_GEOJSON_DEPTH - 1), MAX_GEOJSON_DEPTH)).toBe(false);
+    expect(nestingExceeds(nested(MAX_GEOJSON_DEPTH), MAX_GEOJSON_DEPTH)).toBe(true);
+    expect(nestingExceeds({ a: nested(MAX_GEOJSON_DEPTH - 2) }, MAX_GEOJSON_DEPTH)).toBe(false);
+    expect(nestingExceeds({ a: nested(MAX_GEOJSON_DEPTH - 1) }, MAX_GEOJSON_DEPTH)).toBe(true);
+    expect(nestingExceeds([[], {}, [1, null, "x"]], 2)).toBe(false);
+    expect(nestingExceeds([[[]]], 2)).toBe(true);
+  });
+
   it("a FeatureCollection of MultiLineStrings is well within the bound", () => {
     const fc = { type: "FeatureCollection", features: [{ type: "Feature", properties: {}, geometry: { type: "MultiLineString", coordinates: [[[0, 0], [0, 0.01]]] } }] };
     expect(nestingExceeds(fc, MAX_GEOJSON_DEPTH)).toBe(false);

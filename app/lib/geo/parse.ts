@@ -110,14 +110,36 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
 
 export const DEPTH_MESSAGE = `The GeoJSON is nested more than ${MAX_GEOJSON_DEPTH} levels deep; a route is a LineString, MultiLineString, Feature or FeatureCollection (a few levels).`;
 
-/** True when arrays/objects nest deeper than `max` levels (counted without recursion, so any depth is safe). */
+/** True when an array holds no array or object (a position: numbers only). */
+function isLeafArray(a: unknown[]): boolean {
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i];
+    if (x !== null && typeof x === "object") return false;
+  }
+  return true;
+}
+
+/**
+ * True when arrays/objects nest deeper than `max` levels (counted without recursion, so any depth
+ * is safe). A leaf array (a position) within the limit is checked in place, not stacked: a route of
+ * 10⁵ positions allocates nothing per position.
+ */
 export function nestingExceeds(value: unknown, max: number): boolean {
-  const stack: [unknown, number][] = [[value, 1]];
-  while (stack.length) {
-    const [v, depth] = stack.pop()!;
+  const values: unknown[] = [value];
+  const depths: number[] = [1];
+  while (values.length) {
+    const v = values.pop();
+    const depth = depths.pop()!;
     if (v === null || typeof v !== "object") continue;
     if (depth > max) return true;
-    for (const child of Array.isArray(v) ? v : Object.values(v)) if (child !== null && typeof child === "object") stack.push([child, depth + 1]);
+    const children = Array.isArray(v) ? (v as unknown[]) : Object.values(v);
+    for (let i = 0; i < children.length; i++) {
+      const child = children[i];
+      if (child === null || typeof child !== "object") continue;
+      if (depth < max && Array.isArray(child) && isLeafArray(child)) continue;
+      values.push(child);
+      depths.push(depth + 1);
+    }
   }
   return false;
 }

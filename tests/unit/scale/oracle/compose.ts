@@ -3,7 +3,7 @@
 // Turning an exhibit into a scale-engine request, and the comparisons every exhibit shows.
 import { parseScaleRequest, type ScaleRequest } from "./schema";
 import { computeScale, type ScaleResult } from "./compute";
-import { prepareRoute, type PreparedRoute } from "../../../../app/lib/geo/route";
+import { prepareRoute, type PreparedRoute } from "./route";
 import { parseGeoJsonRoute } from "./geo-parse";
 import { toMetres, toYears } from "./units";
 import type { DurationSpec, ExhibitSpec, LineStringGeometry, ResolvedMarker } from "../../../../app/lib/exhibit/types";

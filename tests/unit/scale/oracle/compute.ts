@@ -5,7 +5,7 @@
  * insets, legibility warnings and (on routes) coordinates, bearings and walking figures.
  */
 import { parseGeoJsonRoute, parseGpxRoute } from "./geo-parse";
-import { positionsAt, prepareRoute, type PreparedRoute } from "../../../../app/lib/geo/route";
+import { positionsAt, prepareRoute, type PreparedRoute } from "./route";
 import { clean, toMetres, toYears, type LengthUnit } from "./units";
 import { formatDuration, formatFixed, formatLengthSig, formatYears, scaleStatement, type ScaleStatement } from "./format";
 import {

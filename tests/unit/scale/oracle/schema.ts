@@ -6,7 +6,7 @@
  */
 import { z } from "zod";
 import { parseGeoJsonRoute, parseGpxRoute, MAX_ROUTE_VERTICES } from "./geo-parse";
-import { prepareRoute, type PreparedRoute } from "../../../../app/lib/geo/route";
+import { prepareRoute, type PreparedRoute } from "./route";
 import {
   AGE_UNITS,
   LENGTH_UNITS,
