@@ -20,7 +20,7 @@ import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, ty
 import { compareIds } from "./numbering";
 import type { ScaleRequest } from "./schema";
 import { computeWarnings, type ScaleWarning } from "./warnings";
-import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingAt, type Walking } from "./walking";
+import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingAt, type Walking, type WalkingSettings } from "./walking";
 
 export * from "./walking";
 
@@ -223,7 +223,8 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     };
   });
 
-  // points
+  // points: distances first (a route places them all in one pass), then one object per point
+  // with every field it will have (no property added later)
   const n = request.points.length;
   const given = options.pointYears && options.pointYears.ages.length === n ? options.pointYears : null;
   const ages = given ? given.ages : new Float64Array(n);
@@ -233,6 +234,21 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     ids[i] = request.points[i].id;
   }
   const numbers = numbersOf(ages, ids);
+
+  const walkingSpeed = request.walkingSpeedMps ?? DEFAULT_WALKING_SPEED_MPS;
+  const accessibleSpeed = request.accessibleSpeedMps ?? DEFAULT_ACCESSIBLE_SPEED_MPS;
+  const stepLength = request.stepLengthM ?? DEFAULT_STEP_LENGTH_M;
+  const shortStep = request.stepLengthM ?? STEP_LENGTH_RANGE_M[0];
+  const routeStart = request.routeStart ?? "older";
+  let placed: { ds: Float64Array; lon: Float64Array; lat: Float64Array; bearing: Float64Array; speeds: WalkingSettings } | null = null;
+  if (route) {
+    const speedText = system === "us" ? `${formatSig(accessibleSpeed / 0.3048, 2)} ft/s` : `${accessibleSpeed} m/s`;
+    const ds = new Float64Array(n);
+    for (let i = 0; i < n; i++) ds[i] = clean(routeStart === "older" ? (olderYears - ages[i]) * mpy : (ages[i] - youngerYears) * mpy);
+    const pos = positionsInto(route, ds, { lon: new Float64Array(n), lat: new Float64Array(n), bearing: new Float64Array(n) });
+    placed = { ds, lon: pos.lon, lat: pos.lat, bearing: pos.bearing, speeds: { walkingSpeed, accessibleSpeed, stepLength, shortStep, speedText } };
+  }
+
   const points: PointResult[] = new Array(n);
   for (let i = 0; i < n; i++) {
     const p = request.points[i];
@@ -257,39 +273,38 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
         ins.pointIds.push(p.id);
       }
     }
-    const out: PointResult = {
-      id: p.id,
-      number: numbers[i],
-      ageYears: a,
-      uncertaintyYears: uncYears,
-      fromOlderEndMetres: clean(fromOlder),
-      fromYoungerEndMetres: clean(fromYounger),
-      uncertaintyMetres: uncYears !== null ? clean(uncYears * mpy) : null,
-      display: distanceLabel(fromOlder, fromYounger, displayStep(a, uncYears, mpy, resolution), unit, system),
-      insets: placements,
-    };
-    if (p.label !== undefined) out.label = p.label;
-    points[i] = out;
-  }
-
-  // route positions and walking figures
-  const walkingSpeed = request.walkingSpeedMps ?? DEFAULT_WALKING_SPEED_MPS;
-  const accessibleSpeed = request.accessibleSpeedMps ?? DEFAULT_ACCESSIBLE_SPEED_MPS;
-  const stepLength = request.stepLengthM ?? DEFAULT_STEP_LENGTH_M;
-  const shortStep = request.stepLengthM ?? STEP_LENGTH_RANGE_M[0];
-  const routeStart = request.routeStart ?? "older";
-  if (route) {
-    const speedText = system === "us" ? `${formatSig(accessibleSpeed / 0.3048, 2)} ft/s` : `${accessibleSpeed} m/s`;
-    const ds = new Float64Array(n);
-    for (let i = 0; i < n; i++) ds[i] = routeStart === "older" ? points[i].fromOlderEndMetres : points[i].fromYoungerEndMetres;
-    const pos = positionsInto(route, ds, { lon: new Float64Array(n), lat: new Float64Array(n), bearing: new Float64Array(n) });
-    const speeds = { walkingSpeed, accessibleSpeed, stepLength, shortStep, speedText };
-    for (let i = 0; i < n; i++) {
-      const p = points[i];
-      p.position = { lon: pos.lon[i], lat: pos.lat[i] };
-      p.bearing = Math.round(pos.bearing[i] * 1e6) / 1e6;
-      p.walking = walkingAt(ds[i], speeds);
-    }
+    const display = distanceLabel(fromOlder, fromYounger, displayStep(a, uncYears, mpy, resolution), unit, system);
+    const uncertaintyMetres = uncYears !== null ? clean(uncYears * mpy) : null;
+    const label = p.label;
+    points[i] = placed
+      ? {
+          id: p.id,
+          number: numbers[i],
+          ageYears: a,
+          uncertaintyYears: uncYears,
+          fromOlderEndMetres: clean(fromOlder),
+          fromYoungerEndMetres: clean(fromYounger),
+          uncertaintyMetres,
+          display,
+          insets: placements,
+          position: { lon: placed.lon[i], lat: placed.lat[i] },
+          bearing: Math.round(placed.bearing[i] * 1e6) / 1e6,
+          walking: walkingAt(placed.ds[i], placed.speeds),
+          label,
+        }
+      : {
+          id: p.id,
+          number: numbers[i],
+          ageYears: a,
+          uncertaintyYears: uncYears,
+          fromOlderEndMetres: clean(fromOlder),
+          fromYoungerEndMetres: clean(fromYounger),
+          uncertaintyMetres,
+          display,
+          insets: placements,
+          label,
+        };
+    if (label === undefined) delete points[i].label; // the last field: V8 keeps the object fast
   }
 
   // durations: a located span (the last N years) shows only on an inset that contains it; a

@@ -40,17 +40,17 @@ function scaledInteger(a: number, d: number): number {
 
 const ZEROS = ["", "0", "00", "000", "0000", "00000", "000000", "0000000", "00000000", "000000000"];
 
-/** The text of the integer n / 10^d with d decimals and thousands separators (few intermediate strings). */
-function digits(n: number, d: number, negative: boolean): string {
+/** The text of the integer n / 10^d with d decimals and thousands separators, then `suffix` (few intermediate strings). */
+function digits(n: number, d: number, negative: boolean, suffix = ""): string {
   const sign = negative && n !== 0 ? "−" : "";
-  if (d === 0) return n < 1000 ? sign + n : sign + group(String(n));
+  if (d === 0) return (n < 1000 ? sign + n : sign + group(String(n))) + suffix;
   const p = pow10(d);
   const i = Math.floor(n / p);
   const f = n - i * p;
   const int = i < 1000 ? String(i) : group(String(i));
-  if (f >= p / 10) return `${sign}${int}.${f}`;
+  if (f >= p / 10) return `${sign}${int}.${f}${suffix}`;
   const frac = String(f);
-  return `${sign}${int}.${d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)}${frac}`;
+  return `${sign}${int}.${d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)}${frac}${suffix}`;
 }
 
 function formatFixedSlow(x: number, d: number): string {
@@ -118,10 +118,22 @@ export { pow10 };
 
 /** Exponent of the largest power of ten ≤ x (x > 0), a value within 1e-12 below a power counting as that power. */
 function decadeExponent(x: number): number {
+  const y = x * (1 + 1e-12);
+  if (y >= 1e-30 && y < 1e30) {
+    // binary search in the table of powers (a logarithm costs more and needs correcting anyway)
+    let lo = -30;
+    let hi = 29; // invariant: pow10(lo) ≤ y < pow10(hi + 1)
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (pow10(mid) <= y) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo;
+  }
   let k = Math.floor(Math.log10(x));
   // guard against log10 rounding (e.g. log10(1000) = 2.9999999999999996)
-  if (pow10(k) * 10 <= x * (1 + 1e-12)) k++;
-  if (pow10(k) > x * (1 + 1e-12)) k--;
+  if (pow10(k) * 10 <= y) k++;
+  if (pow10(k) > y) k--;
   return k;
 }
 
@@ -224,22 +236,40 @@ export function autoUsUnit(metres: number): LengthUnit {
   return "in";
 }
 
+const METRIC_METRES = METRIC.map((u) => UNIT_METRES[u]);
+const US_METRES = US.map((u) => UNIT_METRES[u]);
+
+/** Index in METRIC (or US) of the unit a label of this size and step is written in (see labelUnit). */
+function labelUnitIndex(size: number, stepMetres: number, us: boolean): number {
+  const f = us ? US_METRES : METRIC_METRES;
+  let k = us ? (size >= 10 * UNIT_METRES.mi ? 2 : size >= UNIT_METRES.ft ? 1 : 0) : size >= 10_000 ? 3 : size >= 1 ? 2 : size >= 0.01 ? 1 : 0;
+  // no more than three decimals: step down a unit while the step needs more (4,567.000000 km → 4,567,000.000 m)
+  while (k > 0 && stepMetres / f[k] < 1e-3 * (1 - 1e-9)) k--;
+  // a step of a centimetre or more is not shown in millimetres
+  if (!us && k === 0 && stepMetres >= 0.01) k = 1;
+  return k;
+}
+
 /** Unit for a label: the requested one, or one of the unit system chosen from the size of the distance. */
 export function labelUnit(metres: number, stepMetres: number, unit?: LengthUnit, system: UnitSystem = "metric"): LengthUnit {
   if (unit) return unit;
-  const order = system === "us" ? US : METRIC;
-  const size = Math.max(Math.abs(metres), stepMetres);
-  let k = order.indexOf(system === "us" ? autoUsUnit(size) : autoMetricUnit(size));
-  // no more than three decimals: step down a unit while the step needs more (4,567.000000 km → 4,567,000.000 m)
-  while (k > 0 && stepMetres / UNIT_METRES[order[k]] < 1e-3 * (1 - 1e-9)) k--;
-  // a step of a centimetre or more is not shown in millimetres
-  if (order[k] === "mm" && stepMetres >= 0.01) k = 1;
-  return order[k];
+  const us = system === "us";
+  const k = labelUnitIndex(Math.max(Math.abs(metres), stepMetres), stepMetres, us);
+  return us ? US[k] : METRIC[k];
 }
 
-/** Decimals that show a step in a unit: 0 when the step is a whole unit or more. */
+/** 10^(1e-9): decimalsFor's tolerance, as a factor. */
+const DECIMALS_TOLERANCE = 10 ** 1e-9;
+
+/**
+ * Decimals that show a step in a unit: 0 when the step is a whole unit or more. The same as
+ * max(0, floor(−log10(step) + 1e-9)) — the largest d ≥ 0 with step ≤ 10^−d·10^(1e-9) — found
+ * by comparison with the table of powers, without a logarithm.
+ */
 function decimalsFor(stepInUnit: number): number {
-  return Math.max(0, Math.floor(-Math.log10(stepInUnit) + 1e-9));
+  let d = 0;
+  while (d < 30 && stepInUnit <= pow10(-(d + 1)) * DECIMALS_TOLERANCE) d++;
+  return d;
 }
 
 /** With no decimals: the multiple a value is rounded to — the step's decade (metric), or the next decade up (inches, feet, yards, miles), never finer. */
@@ -265,13 +295,13 @@ function gridValue(y: number, decimals: number, q: number, up: boolean): number 
   return value === 0 ? 0 : value;
 }
 
-/** The same distance's text, with thousands separators ("4,501.00"). */
-function gridText(y: number, decimals: number, q: number, up: boolean): string {
+/** The same distance's text, with thousands separators ("4,501.00"), then `suffix` (" km"). */
+function gridText(y: number, decimals: number, q: number, up: boolean, suffix = ""): string {
   if (decimals > 0) {
     const n = up ? Math.ceil(Math.abs(y) * pow10(decimals) - 1e-9) : scaledInteger(Math.abs(y), decimals);
-    if (n >= 0) return digits(n, decimals, y < 0);
+    if (n >= 0) return digits(n, decimals, y < 0, suffix);
   }
-  return formatFixed(gridValue(y, decimals, q, up), decimals);
+  return formatFixed(gridValue(y, decimals, q, up), decimals) + suffix;
 }
 
 /** Round a distance at a step and express it in a unit without implying more precision than the step. */
@@ -294,10 +324,23 @@ export interface DistanceLabel {
 
 const IS_METRIC: Readonly<Record<LengthUnit, boolean>> = { mm: true, cm: true, m: true, km: true, in: false, ft: false, yd: false, mi: false };
 
+const UNIT_SUFFIX: Readonly<Record<LengthUnit, string>> = { mm: " mm", cm: " cm", m: " m", km: " km", in: " in", ft: " ft", yd: " yd", mi: " mi" };
+
 /** The labels of a distance from both ends, with its ± — all in one unit, on one grid. */
 export function distanceLabel(fromOlder: number, fromYounger: number, step: DisplayStep, unit?: LengthUnit, system: UnitSystem = "metric"): DistanceLabel {
-  const u = labelUnit(fromOlder > fromYounger ? fromOlder : fromYounger, step.stepMetres, unit, system);
-  const uf = UNIT_METRES[u];
+  let u: LengthUnit;
+  let uf: number;
+  if (unit) {
+    u = unit;
+    uf = UNIT_METRES[u];
+  } else {
+    const us = system === "us";
+    const larger = Math.abs(fromOlder > fromYounger ? fromOlder : fromYounger);
+    const k = labelUnitIndex(larger > step.stepMetres ? larger : step.stepMetres, step.stepMetres, us);
+    u = us ? US[k] : METRIC[k];
+    uf = us ? US_METRES[k] : METRIC_METRES[k];
+  }
+  const suffix = UNIT_SUFFIX[u];
   const stepInUnit = step.stepMetres / uf;
   const decimals = decimalsFor(stepInUnit);
   const q = decimals > 0 ? 1 : wholeStep(stepInUnit);
@@ -308,11 +351,11 @@ export function distanceLabel(fromOlder: number, fromYounger: number, step: Disp
     const place = pow10(uncertaintyPlace(step.uncertaintyMetres));
     const uStep = (place < step.stepMetres ? place : step.stepMetres) / uf;
     const uDecimals = decimalsFor(uStep);
-    unc = `± ${gridText(step.uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u])} ${u}`;
+    unc = "± " + gridText(step.uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix);
   }
   return {
-    fromOlderEnd: `${gridText(fromOlder / uf, decimals, q, false)} ${u}`,
-    fromYoungerEnd: `${gridText(fromYounger / uf, decimals, q, false)} ${u}`,
+    fromOlderEnd: gridText(fromOlder / uf, decimals, q, false, suffix),
+    fromYoungerEnd: gridText(fromYounger / uf, decimals, q, false, suffix),
     uncertainty: unc,
     // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
     stepMetres: step.stepMetres,
