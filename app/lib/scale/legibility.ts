@@ -109,43 +109,62 @@ export interface Cluster {
 }
 
 /**
+ * Runs of neighbours closer than minSpacing in distances sorted ascending (chained: a–b and b–c
+ * close makes one run a, b, c): [start, end) index pairs, flat, runs of two or more only.
+ */
+export function crowdedRuns(sortedMetres: ArrayLike<number>, minSpacingMetres: number): number[] {
+  const runs: number[] = [];
+  let start = 0;
+  for (let i = 1; i <= sortedMetres.length; i++) {
+    if (i < sortedMetres.length && !(sortedMetres[i] - sortedMetres[i - 1] >= minSpacingMetres)) continue;
+    if (i - start >= 2) runs.push(start, i);
+    start = i;
+  }
+  return runs;
+}
+
+/**
  * Groups of neighbouring markers closer than minSpacing (chained: a–b and b–c close makes one
  * group a, b, c). Sorted single pass over the markers ordered by distance.
  */
 export function findCrowded(points: Placed[], minSpacingMetres: number): Cluster[] {
   const sorted = [...points].sort((a, b) => a.metres - b.metres);
+  const runs = crowdedRuns(
+    sorted.map((p) => p.metres),
+    minSpacingMetres,
+  );
   const clusters: Cluster[] = [];
-  let cur: Placed[] = [];
-  const flush = () => {
-    if (cur.length >= 2) {
-      let minGap = Infinity;
-      let minAgeGap = Infinity;
-      const same = new Set<string>();
-      for (let i = 1; i < cur.length; i++) {
-        minGap = Math.min(minGap, cur[i].metres - cur[i - 1].metres);
-        const dy = Math.abs(cur[i].ageYears - cur[i - 1].ageYears);
-        if (dy > 0) minAgeGap = Math.min(minAgeGap, dy);
-        else {
-          same.add(cur[i - 1].id);
-          same.add(cur[i].id);
-        }
+  for (let r = 0; r < runs.length; r += 2) {
+    const cur = sorted.slice(runs[r], runs[r + 1]);
+    let minGap = Infinity;
+    let minAgeGap = Infinity;
+    const same = new Set<string>();
+    for (let i = 1; i < cur.length; i++) {
+      minGap = Math.min(minGap, cur[i].metres - cur[i - 1].metres);
+      const dy = Math.abs(cur[i].ageYears - cur[i - 1].ageYears);
+      if (dy > 0) minAgeGap = Math.min(minAgeGap, dy);
+      else {
+        same.add(cur[i - 1].id);
+        same.add(cur[i].id);
       }
-      clusters.push({
-        ids: cur.map((p) => p.id),
-        ages: cur.map((p) => p.ageYears),
-        minGapMetres: minGap,
-        minAgeGapYears: minAgeGap,
-        sameAge: [...same],
-      });
     }
-    cur = [];
-  };
-  for (const p of sorted) {
-    if (cur.length > 0 && p.metres - cur[cur.length - 1].metres >= minSpacingMetres) flush();
-    cur.push(p);
+    clusters.push({
+      ids: cur.map((p) => p.id),
+      ages: cur.map((p) => p.ageYears),
+      minGapMetres: minGap,
+      minAgeGapYears: minAgeGap,
+      sameAge: [...same],
+    });
   }
-  flush();
   return clusters;
+}
+
+/** A crowded group as a suggestion needs it: its ids, smallest non-zero age gap and age range. */
+export interface CrowdedGroup {
+  ids: string[];
+  minAgeGapYears: number;
+  oldestYears: number;
+  youngestYears: number;
 }
 
 /**
@@ -158,19 +177,33 @@ export function suggestInsetForCluster(
   metresPerYear: number,
   minSpacingMetres: number,
 ): SuggestedInset | null {
-  if (!Number.isFinite(cluster.minAgeGapYears)) return null;
-  const magnification = readableMagnification(minSpacingMetres / (cluster.minAgeGapYears * metresPerYear));
-  const aMax = Math.max(...cluster.ages);
-  const aMin = Math.min(...cluster.ages);
-  const sub = roundSubSpan(aMin, aMax, span);
+  let oldest = -Infinity;
+  let youngest = Infinity;
+  for (const a of cluster.ages) {
+    oldest = Math.max(oldest, a);
+    youngest = Math.min(youngest, a);
+  }
+  return suggestInsetForGroup({ ids: cluster.ids, minAgeGapYears: cluster.minAgeGapYears, oldestYears: oldest, youngestYears: youngest }, span, metresPerYear, minSpacingMetres);
+}
+
+/** suggestInsetForCluster for a group given by its age range; the inset's pointIds is group.ids. */
+export function suggestInsetForGroup(
+  group: CrowdedGroup,
+  span: { olderYears: number; youngerYears: number },
+  metresPerYear: number,
+  minSpacingMetres: number,
+): SuggestedInset | null {
+  if (!Number.isFinite(group.minAgeGapYears)) return null;
+  const magnification = readableMagnification(minSpacingMetres / (group.minAgeGapYears * metresPerYear));
+  const sub = roundSubSpan(group.youngestYears, group.oldestYears, span);
   const lengthMetres = (sub.olderYears - sub.youngerYears) * metresPerYear * magnification;
   return {
     ...sub,
     magnification,
     label: insetLabel(sub.olderYears, sub.youngerYears, magnification),
     lengthMetres,
-    reason: `spreads ${cluster.ids.length} crowded markers to at least ${formatLengthSig(minSpacingMetres)} apart`,
-    pointIds: cluster.ids,
+    reason: `spreads ${group.ids.length} crowded markers to at least ${formatLengthSig(minSpacingMetres)} apart`,
+    pointIds: group.ids,
     durationIds: [],
   };
 }

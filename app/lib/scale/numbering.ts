@@ -35,11 +35,33 @@ export function tableNumbers<T>(items: readonly T[], ageOf: (t: T) => number, id
   return out;
 }
 
+/** Are the ids strictly ascending by compareIds? One pass; each id is looked at once. */
+export function idsAscending(ids: readonly string[]): boolean {
+  if (ids.length < 2) return true;
+  let prev = ids[0];
+  let prevNumeric = isNumericId(prev);
+  for (let i = 1; i < ids.length; i++) {
+    const id = ids[i];
+    const numeric = isNumericId(id);
+    // compareIds(prev, id) < 0
+    if (prevNumeric && numeric) {
+      if (!(prev.length < id.length || (prev.length === id.length && prev < id))) return false;
+    } else if (prevNumeric !== numeric) {
+      if (!prevNumeric) return false;
+    } else if (!(prev < id)) return false;
+    prev = id;
+    prevNumeric = numeric;
+  }
+  return true;
+}
+
 /** Ids sorted for a warning key: "137,140". */
 export function sortedIds(ids: readonly string[]): string[] {
-  let sorted = true;
-  for (let i = 1; i < ids.length && sorted; i++) sorted = compareIds(ids[i - 1], ids[i]) < 0;
-  if (sorted) return [...ids];
+  return idsAscending(ids) ? [...ids] : sortIds(ids);
+}
+
+/** A sorted copy of ids that are not in order. */
+function sortIds(ids: readonly string[]): string[] {
   if (!ids.every(isNumericId)) return [...ids].sort(compareIds);
   const values = ids.map(Number);
   return Array.from(ids, (_, i) => i)
@@ -47,7 +69,27 @@ export function sortedIds(ids: readonly string[]): string[] {
     .map((i) => ids[i]);
 }
 
+/**
+ * The last long key made. The live preview asks for the same crowded group's key on every
+ * keystroke; checking the ids one by one against a private copy is far cheaper than joining them.
+ */
+let lastKey: { code: string; ids: string[]; key: string } | null = null;
+const REMEMBER_FROM = 32;
+
 /** A warning's stable key: its code and the ids it is about, e.g. "markers-too-close:137,140". */
 export function warningKey(code: string, ids: readonly string[]): string {
-  return `${code}:${sortedIds(ids).join(",")}`;
+  if (ids.length < REMEMBER_FROM) return makeKey(code, ids);
+  const last = lastKey;
+  if (last && last.code === code && last.ids.length === ids.length) {
+    let same = true;
+    for (let i = 0; i < ids.length && same; i++) same = last.ids[i] === ids[i];
+    if (same) return last.key;
+  }
+  const key = makeKey(code, ids);
+  lastKey = { code, ids: ids.slice(), key };
+  return key;
+}
+
+function makeKey(code: string, ids: readonly string[]): string {
+  return `${code}:${(idsAscending(ids) ? ids : sortIds(ids)).join(",")}`;
 }

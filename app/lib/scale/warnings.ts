@@ -7,10 +7,10 @@
 import type { DurationResult, InsetResult } from "./compute";
 import { formatYears } from "./format";
 import {
-  findCrowded,
+  crowdedRuns,
   MEDIUM_WORDS,
-  suggestInsetForCluster,
   suggestInsetForDuration,
+  suggestInsetForGroup,
   type Legibility,
   type MediumType,
   type SuggestedInset,
@@ -100,61 +100,94 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
     for (const id of s.durationIds) if (!same.durationIds.includes(id)) same.durationIds.push(id);
     return same;
   };
-  const byId = new Map(points.map((p) => [p.id, p]));
-  const named = (ids: readonly string[]): WarningMarker[] => {
-    const ps = ids.map((id) => byId.get(id)!);
-    let sorted = true;
-    for (let i = 1; i < ps.length && sorted; i++) sorted = ps[i - 1].number < ps[i].number;
-    if (!sorted) ps.sort((a, b) => a.number - b.number || compareIds(a.id, b.id));
-    return ps.map((p) => ({ id: p.id, number: p.number, label: p.label ?? p.id }));
-  };
-  const markerWarning = (code: WarningCode, ms: WarningMarker[], message: string, extra: Partial<ScaleWarning> = {}): ScaleWarning => ({
+  const markerWarning = (code: WarningCode, named: Named, message: string, extra: Partial<ScaleWarning> = {}): ScaleWarning => ({
     code,
-    key: warningKey(code, ms.map((m) => m.id)),
+    key: warningKey(code, named.ids),
     message,
-    pointIds: ms.map((m) => m.id),
-    markers: ms,
+    pointIds: named.ids,
+    markers: named.markers,
     ...extra,
   });
   const spacingText = `${length(legibility.minSpacingMetres)} needed ${words.spacing}`;
+  const n = points.length;
 
-  // Markers of one age: one warning per age, whatever else crowds them (no inset can part them).
-  const inOrder = [...points].sort((a, b) => a.number - b.number);
-  for (let i = 0; i < inOrder.length; ) {
-    let j = i + 1;
-    while (j < inOrder.length && inOrder[j].ageYears === inOrder[i].ageYears) j++;
-    const age = inOrder[i].ageYears;
-    const ids = j - i > 1 ? inOrder.slice(i, j).map((p) => p.id) : null;
-    i = j;
-    if (!ids) continue;
-    const ms = named(ids);
-    warnings.push(
-      markerWarning(
-        "markers-same-age",
-        ms,
-        `Markers ${markerNames(ms)} have the same age (${age === 0 ? "the present" : `${formatYears(age, 6)} ago`}) and fall on the same spot; combine them into one marker labelled with every name, or stack their labels.`,
-      ),
-    );
+  // One pass: are the points in table order (as computeScale usually has them: then nothing is
+  // sorted or copied), in order of distance, and do neighbours share an age; their distances.
+  const metres = new Float64Array(n);
+  let inTableOrder = true;
+  let byDistance = true;
+  let sharedAge = false;
+  for (let i = 0; i < n; i++) {
+    const p = points[i];
+    metres[i] = (span.olderYears - p.ageYears) * mpy;
+    if (p.number !== i + 1) inTableOrder = false;
+    if (i > 0) {
+      if (!(metres[i - 1] <= metres[i])) byDistance = false;
+      if (p.ageYears === points[i - 1].ageYears) sharedAge = true;
+    }
   }
 
-  const placed = points.map((p) => ({ id: p.id, ageYears: p.ageYears, metres: (span.olderYears - p.ageYears) * mpy }));
-  for (const cl of findCrowded(placed, legibility.minSpacingMetres)) {
-    if (!Number.isFinite(cl.minAgeGapYears)) continue; // all of one age: said above
-    const ms = named(cl.ids);
+  // Markers of one age: one warning per age, whatever else crowds them (no inset can part them).
+  if (sharedAge || !inTableOrder) {
+    const inOrder = inTableOrder ? points : [...points].sort((a, b) => a.number - b.number);
+    for (let i = 0; i < n; ) {
+      const age = inOrder[i].ageYears;
+      let j = i + 1;
+      while (j < n && inOrder[j].ageYears === age) j++;
+      if (j - i > 1) {
+        const named = namedMarkers(inOrder, i, j, inTableOrder);
+        warnings.push(
+          markerWarning(
+            "markers-same-age",
+            named,
+            `Markers ${markerNames(named.markers)} have the same age (${age === 0 ? "the present" : `${formatYears(age, 6)} ago`}) and fall on the same spot; combine them into one marker labelled with every name, or stack their labels.`,
+          ),
+        );
+      }
+      i = j;
+    }
+  }
+
+  // Markers too close: runs of neighbours by distance from the older end (a stable sort).
+  let placed: readonly WarnedPoint[] = points;
+  if (!byDistance) {
+    placed = Array.from(points, (_, i) => i)
+      .sort((x, y) => metres[x] - metres[y])
+      .map((i) => points[i]);
+    for (let k = 0; k < n; k++) metres[k] = (span.olderYears - placed[k].ageYears) * mpy;
+  }
+  const runs = crowdedRuns(metres, legibility.minSpacingMetres);
+  for (let r = 0; r < runs.length; r += 2) {
+    const from = runs[r];
+    const to = runs[r + 1];
+    let minAgeGap = Infinity;
+    let oldest = placed[from].ageYears;
+    let youngest = oldest;
+    for (let k = from + 1; k < to; k++) {
+      const a = placed[k].ageYears;
+      const dy = Math.abs(a - placed[k - 1].ageYears);
+      if (dy > 0) minAgeGap = Math.min(minAgeGap, dy);
+      oldest = Math.max(oldest, a);
+      youngest = Math.min(youngest, a);
+    }
+    if (!Number.isFinite(minAgeGap)) continue; // all of one age: said above
     // the most magnified inset that holds the whole group
     let covering: InsetResult | undefined;
     for (const ins of insets) {
-      if (cl.ages.every((a) => a <= ins.olderYears && a >= ins.youngerYears) && (!covering || ins.magnification > covering.magnification)) covering = ins;
+      if (oldest <= ins.olderYears && youngest >= ins.youngerYears && (!covering || ins.magnification > covering.magnification)) covering = ins;
     }
-    const sug = suggestInsetForCluster(cl, span, mpy, legibility.minSpacingMetres);
+    const gap = covering ? minAgeGap * mpy * covering.magnification : 0;
+    if (covering && gap >= legibility.minSpacingMetres) continue;
+    const named = namedMarkers(placed, from, to, inTableOrder && byDistance);
+    // the suggestion keeps its own list of ids, in order of distance (a later suggestion may add to it)
+    const ids = named.reordered ? placed.slice(from, to).map((p) => p.id) : named.ids.slice();
+    const sug = suggestInsetForGroup({ ids, minAgeGapYears: minAgeGap, oldestYears: oldest, youngestYears: youngest }, span, mpy, legibility.minSpacingMetres);
     if (covering) {
-      const gap = cl.minAgeGapYears * mpy * covering.magnification;
-      if (gap >= legibility.minSpacingMetres) continue;
       warnings.push(
         markerWarning(
           "markers-too-close-in-inset",
-          ms,
-          `Even in inset “${covering.label}”, markers ${markerNames(ms)} are as little as ${length(gap)} apart, less than the ${spacingText}.${sug ? ` Suggested inset: ${sug.label}.` : ""}`,
+          named,
+          `Even in inset “${covering.label}”, markers ${markerNames(named.markers)} are as little as ${length(gap)} apart, less than the ${spacingText}.${sug ? ` Suggested inset: ${sug.label}.` : ""}`,
           { insetId: covering.id, insetLabel: covering.label, ...(sug ? { suggestedInset: addSuggestion(sug) } : {}) },
         ),
       );
@@ -163,8 +196,8 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
     warnings.push(
       markerWarning(
         "markers-too-close",
-        ms,
-        `Markers ${markerNames(ms)} are as little as ${length(cl.minAgeGapYears * mpy)} apart, less than the ${spacingText}.${sug ? ` Suggested inset: ${sug.label} (${length(sug.lengthMetres)} long).` : ""}`,
+        named,
+        `Markers ${markerNames(named.markers)} are as little as ${length(minAgeGap * mpy)} apart, less than the ${spacingText}.${sug ? ` Suggested inset: ${sug.label} (${length(sug.lengthMetres)} long).` : ""}`,
         sug ? { suggestedInset: addSuggestion(sug) } : {},
       ),
     );
@@ -192,6 +225,7 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
     });
   }
 
+  let byId: Map<string, WarnedPoint> | undefined; // only an inset's markers are looked up by id
   for (const ins of insets) {
     if (ins.lengthMetres <= input.totalMetres) continue;
     warnings.push({
@@ -199,12 +233,39 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
       key: warningKey("inset-longer-than-medium", [ins.id]),
       message: `Inset “${ins.label}” is ${length(ins.lengthMetres)} long, longer than the whole exhibit (${length(input.totalMetres)}).`,
       pointIds: [...ins.pointIds],
-      markers: named(ins.pointIds),
+      markers: namedMarkers(ins.pointIds.map((id) => (byId ??= new Map(points.map((p) => [p.id, p]))).get(id)!), 0, ins.pointIds.length, false).markers,
       insetId: ins.id,
       insetLabel: ins.label,
     });
   }
   return { warnings, suggestedInsets: suggestions };
+}
+
+/** A group's markers in table order, and their ids (a fresh array). */
+interface Named {
+  markers: WarningMarker[];
+  ids: string[];
+  /** Did the points have to be put in table order? */
+  reordered: boolean;
+}
+
+/**
+ * Markers as warnings name them, in table order (by number, then id): points[from, to), which
+ * `inTableOrder` says are known to be in table order already.
+ */
+function namedMarkers(points: readonly WarnedPoint[], from: number, to: number, inTableOrder: boolean): Named {
+  let sorted = true;
+  if (!inTableOrder) for (let i = from + 1; i < to && sorted; i++) sorted = points[i - 1].number < points[i].number;
+  const ps = sorted ? points : points.slice(from, to).sort((a, b) => a.number - b.number || compareIds(a.id, b.id));
+  const start = sorted ? from : 0;
+  const markers: WarningMarker[] = new Array(to - from);
+  const ids: string[] = new Array(to - from);
+  for (let i = 0; i < to - from; i++) {
+    const p = ps[start + i];
+    ids[i] = p.id;
+    markers[i] = { id: p.id, number: p.number, label: p.label ?? p.id };
+  }
+  return { markers, ids, reordered: !sorted };
 }
 
 /** Where a duration sits on the exhibit: its younger end (years ago) when it is a located span, else null (a comparison). */

@@ -20,7 +20,8 @@ type Output = ReturnType<typeof computeWarnings>;
 /** The input computeScale gave computeWarnings, rebuilt from its result (a fresh copy per call). */
 function inputOf(r: ScaleResult, request: ScaleRequest, route: PreparedRoute | undefined): WarningInput {
   // the medium's length before rounding for display, as computeScale has it
-  const totalMetres = route ? route.totalMetres : toMetres((request.medium as { length: { value: number; unit: never } }).length);
+  const medium = request.medium;
+  const totalMetres = route ? route.totalMetres : medium.kind === "length" ? toMetres(medium.length) : NaN;
   const { points, durations, insets } = structuredClone({ points: r.points, durations: r.durations, insets: r.insets });
   return {
     points,
