@@ -53,17 +53,27 @@ export function readableMagnification(needed: number): number {
   return Math.max(10, m);
 }
 
+const NICE_STEPS = [1, 2, 5] as const;
+
 /** Smallest of 1, 2, 5 × 10^k that is ≥ x (x > 0). */
 export function niceCeil(x: number): number {
   if (!(x > 0)) return 0;
   const e = Math.floor(Math.log10(x));
-  for (const k of [e - 1, e, e + 1]) {
-    for (const m of [1, 2, 5]) {
+  for (let k = e - 1; k <= e + 1; k++) {
+    for (const m of NICE_STEPS) {
       const v = m * 10 ** k;
-      if (v >= x * (1 - 1e-12)) return Number(v.toPrecision(12));
+      if (v >= x * (1 - 1e-12)) return to12Figures(v);
     }
   }
   return 10 ** (e + 1);
+}
+
+/**
+ * Number(v.toPrecision(12)): v tidied to 12 significant figures. A whole number under 10¹² (not
+ * zero, whose sign the string drops) is its own 12-figure form, and is returned without the string.
+ */
+function to12Figures(v: number): number {
+  return v !== 0 && Number.isInteger(v) && Math.abs(v) < 1e12 ? v : Number(v.toPrecision(12));
 }
 
 export interface InsetSpec {
@@ -197,8 +207,10 @@ export function suggestInsetForGroup(
   const magnification = readableMagnification(minSpacingMetres / (group.minAgeGapYears * metresPerYear));
   const sub = roundSubSpan(group.youngestYears, group.oldestYears, span);
   const lengthMetres = (sub.olderYears - sub.youngerYears) * metresPerYear * magnification;
+  // written out, not spread: an object spread and then added to is slow to make (V8)
   return {
-    ...sub,
+    olderYears: sub.olderYears,
+    youngerYears: sub.youngerYears,
     magnification,
     label: insetLabel(sub.olderYears, sub.youngerYears, magnification),
     lengthMetres,
@@ -230,8 +242,8 @@ export function roundSubSpan(
     if (older === aMax) older += g;
     if (older === younger) older += g;
   }
-  older = Math.min(Number(older.toPrecision(12)), span.olderYears);
-  younger = Math.max(Number(younger.toPrecision(12)), young);
+  older = Math.min(to12Figures(older), span.olderYears);
+  younger = Math.max(to12Figures(younger), young);
   return { olderYears: older, youngerYears: younger };
 }
 
@@ -257,8 +269,10 @@ export function suggestInsetForDuration(
     sub = roundSubSpan(end, end + duration.years, span);
   }
   const lengthMetres = (sub.olderYears - sub.youngerYears) * metresPerYear * magnification;
+  // written out, not spread: an object spread and then added to is slow to make (V8)
   return {
-    ...sub,
+    olderYears: sub.olderYears,
+    youngerYears: sub.youngerYears,
     magnification,
     label: insetLabel(sub.olderYears, sub.youngerYears, magnification),
     lengthMetres,

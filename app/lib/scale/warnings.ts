@@ -100,14 +100,16 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
     for (const id of s.durationIds) if (!same.durationIds.includes(id)) same.durationIds.push(id);
     return same;
   };
-  const markerWarning = (code: WarningCode, named: Named, message: string, extra: Partial<ScaleWarning> = {}): ScaleWarning => ({
-    code,
-    key: warningKey(code, named.ids),
-    message,
-    pointIds: named.ids,
-    markers: named.markers,
-    ...extra,
-  });
+  // warnings are written out field by field, not spread: a spread object added to is slow to make (V8)
+  const markerWarning = (code: WarningCode, named: Named, message: string, inset?: InsetResult, suggested?: SuggestedInset): ScaleWarning => {
+    const w: ScaleWarning = { code, key: warningKey(code, named.ids), message, pointIds: named.ids, markers: named.markers };
+    if (inset) {
+      w.insetId = inset.id;
+      w.insetLabel = inset.label;
+    }
+    if (suggested) w.suggestedInset = suggested;
+    return w;
+  };
   const spacingText = `${length(legibility.minSpacingMetres)} needed ${words.spacing}`;
   const n = points.length;
 
@@ -188,7 +190,8 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
           "markers-too-close-in-inset",
           named,
           `Even in inset “${covering.label}”, markers ${markerNames(named.markers)} are as little as ${length(gap)} apart, less than the ${spacingText}.${sug ? ` Suggested inset: ${sug.label}.` : ""}`,
-          { insetId: covering.id, insetLabel: covering.label, ...(sug ? { suggestedInset: addSuggestion(sug) } : {}) },
+          covering,
+          sug ? addSuggestion(sug) : undefined,
         ),
       );
       continue;
@@ -198,7 +201,8 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
         "markers-too-close",
         named,
         `Markers ${markerNames(named.markers)} are as little as ${length(minAgeGap * mpy)} apart, less than the ${spacingText}.${sug ? ` Suggested inset: ${sug.label} (${length(sug.lengthMetres)} long).` : ""}`,
-        sug ? { suggestedInset: addSuggestion(sug) } : {},
+        undefined,
+        sug ? addSuggestion(sug) : undefined,
       ),
     );
   }
@@ -214,15 +218,16 @@ export function computeWarnings(input: WarningInput): { warnings: ScaleWarning[]
     const notCovered = wrongPlace.length
       ? ` ${wrongPlace.map((x) => `Inset “${x.insetLabel}”`).join(" and ")} ${wrongPlace.length === 1 ? "magnifies" : "magnify"} enough but ${wrongPlace.length === 1 ? "does" : "do"} not cover ${place === 0 ? `the last ${formatYears(d.years)}` : "it"}.`
       : "";
-    warnings.push({
+    const w: ScaleWarning = {
       code: "duration-too-small",
       key: warningKey("duration-too-small", [d.id]),
       message: `${d.label ?? d.id}: ${formatYears(d.years)} is ${length(d.metres)} on this scale, smaller than the ${length(legibility.minVisibleMetres)} a visitor can see ${words.on}.${notCovered}${sug ? ` Suggested inset: ${sug.label}.` : ""}`,
       pointIds: [],
       markers: [],
       durationIds: [d.id],
-      ...(sug ? { suggestedInset: addSuggestion(sug) } : {}),
-    });
+    };
+    if (sug) w.suggestedInset = addSuggestion(sug);
+    warnings.push(w);
   }
 
   let byId: Map<string, WarnedPoint> | undefined; // only an inset's markers are looked up by id

@@ -12,7 +12,11 @@ import { formatLengthSig } from "../../../app/lib/scale/format.ts";
 import { computeScale, parseScaleRequest, type PreparedRoute, type ScaleRequest, type ScaleResult } from "../../../app/lib/scale/index.ts";
 import { clean, toMetres } from "../../../app/lib/units/index.ts";
 import { computeWarnings, type WarningInput } from "../../../app/lib/scale/warnings.ts";
+import { niceCeil, roundSubSpan } from "../../../app/lib/scale/legibility.ts";
+import { warningKey } from "../../../app/lib/scale/numbering.ts";
 import { computeWarnings as oracleWarnings } from "./oracle/warnings-warnings.ts";
+import { niceCeil as oracleNiceCeil, roundSubSpan as oracleRoundSubSpan } from "./oracle/warnings-legibility.ts";
+import { warningKey as oracleWarningKey } from "./oracle/warnings-numbering.ts";
 import { demoExhibits } from "./demo-exhibits.ts";
 
 type Output = ReturnType<typeof computeWarnings>;
@@ -201,4 +205,33 @@ describe("computeWarnings against its oracle", () => {
     expect(counts.get("suggestion")).toBeGreaterThan(500);
     expect(counts.get("merged suggestion")).toBeGreaterThan(10);
   }, 120_000);
+
+  it("rounds sub-spans and steps to the same figures (whole numbers no longer go through a string)", () => {
+    const g = generator(7);
+    const span = { olderYears: 4.567e9, youngerYears: 0 };
+    const xs = [1, 2, 5, 10, 0.3, 0.07, 1e-7, 999_999_999_999, 1e12, 3e15, 7e21, 160, 11_700, 4.567e9, 0, -0];
+    for (let i = 0; i < 5000; i++) xs.push(g.pick([1, 1e-3, 1e3, 1e6, 1e9, 1e13]) * g.next() * 10, g.int(1, 1e6) * g.pick([1, 10, 1e4, 1e7]));
+    for (const x of xs) expect(Object.is(niceCeil(x), oracleNiceCeil(x)), `niceCeil(${x})`).toBe(true);
+    for (let i = 0; i + 1 < xs.length; i += 2) {
+      const [a, b] = [Math.min(xs[i], xs[i + 1], span.olderYears), Math.min(Math.max(xs[i], xs[i + 1]), span.olderYears)];
+      for (const s of [span, { olderYears: 4.567e9, youngerYears: -0 }, { olderYears: 66.1e6, youngerYears: Math.min(a, 66e6) }]) {
+        const mine = roundSubSpan(a, b, s);
+        const theirs = oracleRoundSubSpan(a, b, s);
+        expect(Object.is(mine.olderYears, theirs.olderYears) && Object.is(mine.youngerYears, theirs.youngerYears), `roundSubSpan(${a}, ${b})`).toBe(true);
+      }
+    }
+  });
+
+  it("makes the same key again after the ids it was made from change", () => {
+    const ids = Array.from({ length: 100 }, (_, i) => String(i + 1));
+    expect(warningKey("markers-too-close", ids)).toBe(oracleWarningKey("markers-too-close", ids));
+    expect(warningKey("markers-too-close", ids)).toBe(oracleWarningKey("markers-too-close", ids)); // the remembered one
+    expect(warningKey("markers-same-age", ids)).toBe(oracleWarningKey("markers-same-age", ids));
+    ids[50] = "1000"; // a caller changes the array it was given back as pointIds
+    expect(warningKey("markers-same-age", ids)).toBe(oracleWarningKey("markers-same-age", ids));
+    expect(warningKey("markers-same-age", ids)).toMatch(/,49,50,52,.*,99,100,1000$/);
+    const text = ids.map((id, i) => (i % 3 ? `m-${id}` : id)).reverse();
+    expect(warningKey("markers-same-age", text)).toBe(oracleWarningKey("markers-same-age", text));
+    expect(warningKey("markers-same-age", ids.slice(0, 99))).toBe(oracleWarningKey("markers-same-age", ids.slice(0, 99)));
+  });
 });
