@@ -174,6 +174,17 @@ export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteP
     for (let j = 0; j < line.coords.length; j++) {
       const pos = line.coords[j];
       // the path is spelled out only for an issue (10⁵ vertices: no string, no closure per valid vertex)
+      if (Array.isArray(pos) && pos.length >= 2) {
+        const lon = pos[0];
+        const lat = pos[1];
+        // the usual case in one test (NaN and ±Infinity fail the ranges); anything else is looked at below
+        if (typeof lon === "number" && typeof lat === "number" && lon >= -180 && lon <= 180 && lat >= -90 && lat <= 90) {
+          coords[k] = lon;
+          coords[k + 1] = lat;
+          k += 2;
+          continue;
+        }
+      }
       if (!Array.isArray(pos) || pos.length < 2) {
         issues.push({ path: join(line.path, j), message: "A position must be an array [longitude, latitude] (optionally with elevation)." });
       } else {
