@@ -100,24 +100,6 @@ export function insetLabel(olderYears: number, youngerYears: number, magnificati
   return `${formatAgeAgo(olderYears, 6).replace(/ ago$/, "")} to ${formatAgeAgo(youngerYears, 6)} at ${mag}`;
 }
 
-export interface Placed {
-  id: string;
-  ageYears: number;
-  /** Distance from the older end on the scale being checked, metres. */
-  metres: number;
-}
-
-export interface Cluster {
-  ids: string[];
-  ages: number[];
-  /** Smallest gap between neighbours, metres. */
-  minGapMetres: number;
-  /** Smallest non-zero age gap between neighbours, years (Infinity if all ages coincide). */
-  minAgeGapYears: number;
-  /** Ids of markers with exactly the same age as a neighbour. */
-  sameAge: string[];
-}
-
 /**
  * Runs of neighbours closer than minSpacing in distances sorted ascending (chained: a–b and b–c
  * close makes one run a, b, c): [start, end) index pairs, flat, runs of two or more only.
@@ -133,42 +115,6 @@ export function crowdedRuns(sortedMetres: ArrayLike<number>, minSpacingMetres: n
   return runs;
 }
 
-/**
- * Groups of neighbouring markers closer than minSpacing (chained: a–b and b–c close makes one
- * group a, b, c). Sorted single pass over the markers ordered by distance.
- */
-export function findCrowded(points: Placed[], minSpacingMetres: number): Cluster[] {
-  const sorted = [...points].sort((a, b) => a.metres - b.metres);
-  const runs = crowdedRuns(
-    sorted.map((p) => p.metres),
-    minSpacingMetres,
-  );
-  const clusters: Cluster[] = [];
-  for (let r = 0; r < runs.length; r += 2) {
-    const cur = sorted.slice(runs[r], runs[r + 1]);
-    let minGap = Infinity;
-    let minAgeGap = Infinity;
-    const same = new Set<string>();
-    for (let i = 1; i < cur.length; i++) {
-      minGap = Math.min(minGap, cur[i].metres - cur[i - 1].metres);
-      const dy = Math.abs(cur[i].ageYears - cur[i - 1].ageYears);
-      if (dy > 0) minAgeGap = Math.min(minAgeGap, dy);
-      else {
-        same.add(cur[i - 1].id);
-        same.add(cur[i].id);
-      }
-    }
-    clusters.push({
-      ids: cur.map((p) => p.id),
-      ages: cur.map((p) => p.ageYears),
-      minGapMetres: minGap,
-      minAgeGapYears: minAgeGap,
-      sameAge: [...same],
-    });
-  }
-  return clusters;
-}
-
 /** A crowded group as a suggestion needs it: its ids, smallest non-zero age gap and age range. */
 export interface CrowdedGroup {
   ids: string[];
@@ -178,25 +124,9 @@ export interface CrowdedGroup {
 }
 
 /**
- * An inset that spreads a crowded group to at least minSpacing between neighbours.
- * Returns null when the markers share one age (no magnification separates them).
+ * An inset that spreads a crowded group to at least minSpacing between neighbours; its pointIds is
+ * group.ids. Returns null when the markers share one age (no magnification separates them).
  */
-export function suggestInsetForCluster(
-  cluster: Cluster,
-  span: { olderYears: number; youngerYears: number },
-  metresPerYear: number,
-  minSpacingMetres: number,
-): SuggestedInset | null {
-  let oldest = -Infinity;
-  let youngest = Infinity;
-  for (const a of cluster.ages) {
-    oldest = Math.max(oldest, a);
-    youngest = Math.min(youngest, a);
-  }
-  return suggestInsetForGroup({ ids: cluster.ids, minAgeGapYears: cluster.minAgeGapYears, oldestYears: oldest, youngestYears: youngest }, span, metresPerYear, minSpacingMetres);
-}
-
-/** suggestInsetForCluster for a group given by its age range; the inset's pointIds is group.ids. */
 export function suggestInsetForGroup(
   group: CrowdedGroup,
   span: { olderYears: number; youngerYears: number },

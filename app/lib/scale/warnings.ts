@@ -53,7 +53,7 @@ export interface ScaleWarning {
   suggestedInset?: SuggestedInset;
 }
 
-/** What the warnings need of each point. */
+/** What the warnings need of each point. Ids are unique (the request schema checks it). */
 export interface WarnedPoint {
   id: string;
   number: number;
@@ -62,6 +62,7 @@ export interface WarnedPoint {
 }
 
 export interface WarningInput {
+  /** In any order; fastest in table order (numbers 1–N), as computeScale has them for the composer. */
   points: readonly WarnedPoint[];
   durations: readonly DurationResult[];
   insets: readonly InsetResult[];
