@@ -49,15 +49,89 @@ export function walkingAt(d: number, w: WalkingSettings): Walking {
   const accessibleSeconds = d / w.accessibleSpeed;
   const steps = Math.round(d / w.stepLength);
   const stepsUpTo = Math.round(d / w.shortStep);
-  // A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900".
-  const low = formatCountTwoFigures(steps);
-  const stepsText = steps === stepsUpTo ? `about ${low} steps` : `about ${low}–${formatCountTwoFigures(stepsUpTo)} steps`;
   return {
     distanceFromStartMetres: clean(d),
     seconds: clean(seconds),
     accessibleSeconds: clean(accessibleSeconds),
     steps,
     stepsUpTo,
-    text: `${formatDuration(seconds)} walk (${formatDuration(accessibleSeconds)} at ${w.speedText}), ${stepsText}`,
+    // "12 min walk (" + "16 min at 0.9 m/s), " + "about 1,100" + "–1,300 steps"
+    text: walkText(seconds) + slowText(accessibleSeconds, w.speedText) + stepsText(steps, stepsUpTo),
   };
+}
+
+// The preview writes these texts for every marker on every keystroke. Their parts take a few
+// hundred values, so each part is made once (by format.ts's formatDuration and
+// formatCountTwoFigures) and kept; tests/unit/geo/walking-text.test.ts checks the texts against
+// those functions.
+
+const MINUTES_CACHED = 6000; // 100 hours
+/** A duration's cache slot: whole seconds under a minute (0–60), then whole minutes + 61; −1 past 100 hours. */
+function durationKey(seconds: number): number {
+  if (seconds < 60) {
+    const s = Math.round(seconds);
+    return s >= 0 ? s : -1;
+  }
+  const minutes = Math.round(seconds / 60);
+  return minutes < MINUTES_CACHED ? 61 + minutes : -1;
+}
+const DURATION_TEXT = new Array<string | undefined>(61 + MINUTES_CACHED);
+const WALK_TEXT = new Array<string | undefined>(61 + MINUTES_CACHED);
+const SLOW_TEXT = new Array<string | undefined>(61 + MINUTES_CACHED);
+let slowSpeedText = "";
+
+/** formatDuration(seconds) of format.ts, from a cache: "45 s", "12 min", "1 h 05 min". */
+export function formatDurationCached(seconds: number): string {
+  const k = durationKey(seconds);
+  if (k < 0) return formatDuration(seconds);
+  return DURATION_TEXT[k] ?? (DURATION_TEXT[k] = formatDuration(seconds));
+}
+
+function walkText(seconds: number): string {
+  const k = durationKey(seconds);
+  if (k < 0) return formatDuration(seconds) + " walk (";
+  return WALK_TEXT[k] ?? (WALK_TEXT[k] = formatDurationCached(seconds) + " walk (");
+}
+
+function slowText(seconds: number, speedText: string): string {
+  if (speedText !== slowSpeedText) {
+    SLOW_TEXT.fill(undefined);
+    slowSpeedText = speedText;
+  }
+  const k = durationKey(seconds);
+  if (k < 0) return formatDuration(seconds) + " at " + speedText + "), ";
+  return SLOW_TEXT[k] ?? (SLOW_TEXT[k] = formatDurationCached(seconds) + " at " + speedText + "), ");
+}
+
+/** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */
+function countKey(n: number): number {
+  if (n >= 0 && n < 100 && Number.isInteger(n)) return n;
+  if (!(n >= 100 && Number.isSafeInteger(n))) return -1;
+  let p = 1;
+  let k = 0;
+  while (n >= p * 100) {
+    p *= 10;
+    k++;
+  }
+  return 100 + k * 101 + Math.round(n / p);
+}
+const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53
+const COUNT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
+const ABOUT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
+const UP_TO_TEXT = new Array<string | undefined>(COUNTS_CACHED);
+
+/** formatCountTwoFigures(n) of format.ts for a count n ≥ 0, from a cache: 6,009 → "6,000". */
+export function formatCountTwoFiguresCached(n: number): string {
+  const k = countKey(n);
+  if (k < 0) return formatCountTwoFigures(n);
+  return COUNT_TEXT[k] ?? (COUNT_TEXT[k] = formatCountTwoFigures(n));
+}
+
+/** "about 1,100–1,300 steps", or "about 1,100 steps" for one count. A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900". */
+function stepsText(steps: number, stepsUpTo: number): string {
+  const k = countKey(steps);
+  const about = k < 0 ? "about " + formatCountTwoFiguresCached(steps) : (ABOUT_TEXT[k] ?? (ABOUT_TEXT[k] = "about " + formatCountTwoFiguresCached(steps)));
+  if (steps === stepsUpTo) return about + " steps";
+  const j = countKey(stepsUpTo);
+  return about + (j < 0 ? "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps" : (UP_TO_TEXT[j] ?? (UP_TO_TEXT[j] = "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps")));
 }
