@@ -6,11 +6,10 @@ import { parseGeoJsonRoute, parseGpxRoute } from "../geo/parse";
 import { positionsInto, prepareRoute, type PreparedRoute } from "../geo/route";
 import { clean, toMetres, toYears, type UnitSystem } from "../units";
 import {
-  displayStep,
-  distanceLabel,
   formatLengthSig,
   formatSig,
   formatYears,
+  markerLabel,
   mediumResolution,
   scaleStatement,
   type DistanceLabel,
@@ -268,12 +267,12 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
           fromOlderEndMetres: clean(fo),
           fromYoungerEndMetres: clean(fy),
           uncertaintyMetres: uncYears !== null ? clean(uncYears * impy) : null,
-          display: distanceLabel(fo, fy, displayStep(a, uncYears, impy, resolution), unit, system),
+          display: markerLabel(fo, fy, a, uncYears, impy, resolution, unit, system),
         });
         ins.pointIds.push(p.id);
       }
     }
-    const display = distanceLabel(fromOlder, fromYounger, displayStep(a, uncYears, mpy, resolution), unit, system);
+    const display = markerLabel(fromOlder, fromYounger, a, uncYears, mpy, resolution, unit, system);
     const uncertaintyMetres = uncYears !== null ? clean(uncYears * mpy) : null;
     const label = p.label;
     points[i] = placed

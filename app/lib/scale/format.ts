@@ -40,6 +40,26 @@ function scaledInteger(a: number, d: number): number {
 
 const ZEROS = ["", "0", "00", "000", "0000", "00000", "000000", "0000000", "00000000", "000000000"];
 
+/**
+ * The decimal part of a figure with its unit, ".05 m" for (5, 2, " m"): made once per number of
+ * decimals (up to three) and unit, so that a label is one concatenation of whole part and table entry.
+ * Suffixes are the few fixed unit words ("" or " m", " ft", …), so the tables stay small.
+ */
+const FRACTIONS = new Map<string, string[][]>();
+function fractionText(f: number, d: number, suffix: string): string {
+  let byDecimals = FRACTIONS.get(suffix);
+  if (!byDecimals) {
+    byDecimals = [];
+    FRACTIONS.set(suffix, byDecimals);
+  }
+  let table = byDecimals[d];
+  if (!table) {
+    table = Array.from({ length: pow10(d) }, (_, k) => `.${String(k).padStart(d, "0")}${suffix}`);
+    byDecimals[d] = table;
+  }
+  return table[f];
+}
+
 /** The text of the integer n / 10^d with d decimals and thousands separators, then `suffix` (few intermediate strings). */
 function digits(n: number, d: number, negative: boolean, suffix = ""): string {
   const sign = negative && n !== 0 ? "−" : "";
@@ -48,6 +68,7 @@ function digits(n: number, d: number, negative: boolean, suffix = ""): string {
   const i = Math.floor(n / p);
   const f = n - i * p;
   const int = i < 1000 ? String(i) : group(String(i));
+  if (d <= 3) return sign + int + fractionText(f, d, suffix);
   if (f >= p / 10) return `${sign}${int}.${f}${suffix}`;
   const frac = String(f);
   return `${sign}${int}.${d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)}${frac}${suffix}`;
@@ -185,13 +206,28 @@ export function mediumResolution(minVisibleMetres: number): number {
  * @param resolutionMetres the medium's resolution (see mediumResolution)
  */
 export function displayStep(ageYears: number, uncertaintyYears: number | null | undefined, metresPerYear: number, resolutionMetres: number): DisplayStep {
+  const basis = stepRule(ageYears, uncertaintyYears, metresPerYear, resolutionMetres);
+  return { stepMetres: RULE[0], basis, uncertaintyMetres: ruleUncertainty() };
+}
+
+/** stepRule's figures: [step, shown ± or NaN without one] (a typed array: no number is boxed per marker). */
+const RULE = new Float64Array(2);
+
+/** The shown ± stepRule wrote, or null without one. */
+const ruleUncertainty = (): number | null => (Number.isNaN(RULE[1]) ? null : RULE[1]);
+
+/** The rounding rule (see displayStep): writes the step and the shown ± into RULE and returns the basis. */
+function stepRule(ageYears: number, uncertaintyYears: number | null | undefined, metresPerYear: number, resolutionMetres: number): RoundingBasis {
   let step = 0;
   let basis: RoundingBasis = "medium-resolution";
-  let uncertaintyMetres: number | null = null;
+  RULE[1] = NaN;
   if (uncertaintyYears != null && uncertaintyYears > 0) {
-    const [u1, q] = uncertaintyFigures(uncertaintyYears * metresPerYear);
-    uncertaintyMetres = u1;
-    step = q;
+    const x = uncertaintyYears * metresPerYear;
+    const k = uncertaintyPlace(x);
+    step = pow10(k);
+    // as uncertaintyFigures: float noise (0.011 / 0.001 = 10.999999…) must not push a value already on the grid up a step
+    const n = Math.ceil(x / step - 1e-9);
+    RULE[1] = k >= 0 ? n * step : n / pow10(-k);
     basis = "uncertainty";
   } else if (ageYears !== 0) {
     const ageStepYears = decadeFloor(Math.abs(ageYears)) / 100; // a unit in the 3rd significant figure
@@ -202,7 +238,8 @@ export function displayStep(ageYears: number, uncertaintyYears: number | null | 
     step = resolutionMetres;
     basis = "medium-resolution";
   }
-  return { stepMetres: step, basis, uncertaintyMetres };
+  RULE[0] = step;
+  return basis;
 }
 
 export interface DisplayLength {
@@ -328,6 +365,36 @@ const UNIT_SUFFIX: Readonly<Record<LengthUnit, string>> = { mm: " mm", cm: " cm"
 
 /** The labels of a distance from both ends, with its ± — all in one unit, on one grid. */
 export function distanceLabel(fromOlder: number, fromYounger: number, step: DisplayStep, unit?: LengthUnit, system: UnitSystem = "metric"): DistanceLabel {
+  return labelOnGrid(fromOlder, fromYounger, step.stepMetres, step.basis, step.uncertaintyMetres, unit, system);
+}
+
+/**
+ * distanceLabel(fromOlder, fromYounger, displayStep(age, ±, scale, resolution), unit, system) in one
+ * call, without the intermediate step object (the preview labels every marker on every keystroke).
+ */
+export function markerLabel(
+  fromOlder: number,
+  fromYounger: number,
+  ageYears: number,
+  uncertaintyYears: number | null,
+  metresPerYear: number,
+  resolutionMetres: number,
+  unit?: LengthUnit,
+  system: UnitSystem = "metric",
+): DistanceLabel {
+  const basis = stepRule(ageYears, uncertaintyYears, metresPerYear, resolutionMetres);
+  return labelOnGrid(fromOlder, fromYounger, RULE[0], basis, ruleUncertainty(), unit, system);
+}
+
+function labelOnGrid(
+  fromOlder: number,
+  fromYounger: number,
+  stepMetres: number,
+  basis: RoundingBasis,
+  uncertaintyMetres: number | null,
+  unit: LengthUnit | undefined,
+  system: UnitSystem,
+): DistanceLabel {
   let u: LengthUnit;
   let uf: number;
   if (unit) {
@@ -336,30 +403,30 @@ export function distanceLabel(fromOlder: number, fromYounger: number, step: Disp
   } else {
     const us = system === "us";
     const larger = Math.abs(fromOlder > fromYounger ? fromOlder : fromYounger);
-    const k = labelUnitIndex(larger > step.stepMetres ? larger : step.stepMetres, step.stepMetres, us);
+    const k = labelUnitIndex(larger > stepMetres ? larger : stepMetres, stepMetres, us);
     u = us ? US[k] : METRIC[k];
     uf = us ? US_METRES[k] : METRIC_METRES[k];
   }
   const suffix = UNIT_SUFFIX[u];
-  const stepInUnit = step.stepMetres / uf;
+  const stepInUnit = stepMetres / uf;
   const decimals = decimalsFor(stepInUnit);
   const q = decimals > 0 ? 1 : wholeStep(stepInUnit);
   let unc: string | null = null;
-  if (step.uncertaintyMetres !== null) {
+  if (uncertaintyMetres !== null) {
     // the ± keeps its own figures (rounded up) even when the medium's resolution is coarser;
     // converted to inches, feet or miles it is rounded up again, never down
-    const place = pow10(uncertaintyPlace(step.uncertaintyMetres));
-    const uStep = (place < step.stepMetres ? place : step.stepMetres) / uf;
+    const place = pow10(uncertaintyPlace(uncertaintyMetres));
+    const uStep = (place < stepMetres ? place : stepMetres) / uf;
     const uDecimals = decimalsFor(uStep);
-    unc = "± " + gridText(step.uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix);
+    unc = "± " + gridText(uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix);
   }
   return {
     fromOlderEnd: gridText(fromOlder / uf, decimals, q, false, suffix),
     fromYoungerEnd: gridText(fromYounger / uf, decimals, q, false, suffix),
     uncertainty: unc,
     // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
-    stepMetres: step.stepMetres,
-    basis: step.basis,
+    stepMetres,
+    basis,
   };
 }
 
