@@ -65,10 +65,12 @@ export interface PreparedRoute {
  */
 export function prepareRoute(coords: ArrayLike<number>): PreparedRoute {
   const n = coords.length >> 1;
-  const lon = new Float64Array(n);
-  const lat = new Float64Array(n);
-  const cumulative = new Float64Array(n);
-  const ecef = new Float64Array(3 * n);
+  // one allocation for all four arrays (a large typed array costs more to allocate than to fill)
+  const buffer = new Float64Array(6 * n);
+  const lon = buffer.subarray(0, n);
+  const lat = buffer.subarray(n, 2 * n);
+  const cumulative = buffer.subarray(2 * n, 3 * n);
+  const ecef = buffer.subarray(3 * n);
   let longSegments = 0;
   let total = 0;
   let px = 0;
@@ -82,13 +84,16 @@ export function prepareRoute(coords: ArrayLike<number>): PreparedRoute {
     lat[i] = la;
     const phi = la * DEG;
     const lam = lo * DEG;
+    // the four calls first: fewer values live across them
     const sphi = Math.sin(phi);
     const cphi = Math.cos(phi);
+    const clam = Math.cos(lam);
+    const slam = Math.sin(lam);
     const w2 = 1 - E2 * sphi * sphi;
     const nRad = A / Math.sqrt(w2);
     const rc = nRad * cphi;
-    const x = rc * Math.cos(lam);
-    const y = rc * Math.sin(lam);
+    const x = rc * clam;
+    const y = rc * slam;
     const z = nRad * ONE_MINUS_E2 * sphi;
     ecef[3 * i] = x;
     ecef[3 * i + 1] = y;
