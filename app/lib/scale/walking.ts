@@ -55,17 +55,18 @@ export function walkingAt(d: number, w: WalkingSettings): Walking {
     accessibleSeconds: clean(accessibleSeconds),
     steps,
     stepsUpTo,
-    // "12 min walk (" + "16 min at 0.9 m/s), " + "about 1,100" + "–1,300 steps"
-    text: walkText(seconds) + slowText(accessibleSeconds, w.speedText) + stepsText(steps, stepsUpTo),
+    // "12 min walk (16 min at 0.9 m/s), " + "about 1,100–1,300 steps"
+    text: timesText(seconds, accessibleSeconds, w.speedText) + stepsText(steps, stepsUpTo),
   };
 }
 
 // The preview writes these texts for every marker on every keystroke. Their parts take a few
-// hundred values, so each part is made once (by format.ts's formatDuration and
-// formatCountTwoFigures) and kept; tests/unit/geo/walking-text.test.ts checks the texts against
-// those functions.
+// hundred values, so each is made once (by format.ts's formatDuration and formatCountTwoFigures)
+// and kept, and so is the last pair of parts seen for each first part (the second nearly always
+// follows from the first); tests/unit/geo/walking-text.test.ts checks the texts against format.ts.
 
 const MINUTES_CACHED = 6000; // 100 hours
+const DURATIONS_CACHED = 61 + MINUTES_CACHED;
 /** A duration's cache slot: whole seconds under a minute (0–60), then whole minutes + 61; −1 past 100 hours. */
 function durationKey(seconds: number): number {
   if (seconds < 60) {
@@ -75,10 +76,11 @@ function durationKey(seconds: number): number {
   const minutes = Math.round(seconds / 60);
   return minutes < MINUTES_CACHED ? 61 + minutes : -1;
 }
-const DURATION_TEXT = new Array<string | undefined>(61 + MINUTES_CACHED);
-const WALK_TEXT = new Array<string | undefined>(61 + MINUTES_CACHED);
-const SLOW_TEXT = new Array<string | undefined>(61 + MINUTES_CACHED);
-let slowSpeedText = "";
+const DURATION_TEXT = new Array<string | undefined>(DURATIONS_CACHED);
+/** By the walking time's slot: the slow time's slot and the text of both, for the speed text timesSpeedText. */
+const TIMES_PAIR = new Int32Array(DURATIONS_CACHED).fill(-1);
+const TIMES_TEXT = new Array<string | undefined>(DURATIONS_CACHED);
+let timesSpeedText = "";
 
 /** formatDuration(seconds) of format.ts, from a cache: "45 s", "12 min", "1 h 05 min". */
 export function formatDurationCached(seconds: number): string {
@@ -87,20 +89,21 @@ export function formatDurationCached(seconds: number): string {
   return DURATION_TEXT[k] ?? (DURATION_TEXT[k] = formatDuration(seconds));
 }
 
-function walkText(seconds: number): string {
-  const k = durationKey(seconds);
-  if (k < 0) return formatDuration(seconds) + " walk (";
-  return WALK_TEXT[k] ?? (WALK_TEXT[k] = formatDurationCached(seconds) + " walk (");
-}
-
-function slowText(seconds: number, speedText: string): string {
-  if (speedText !== slowSpeedText) {
-    SLOW_TEXT.fill(undefined);
-    slowSpeedText = speedText;
+/** "12 min walk (16 min at 0.9 m/s), " */
+function timesText(seconds: number, slowSeconds: number, speedText: string): string {
+  if (speedText !== timesSpeedText) {
+    TIMES_PAIR.fill(-1);
+    timesSpeedText = speedText;
   }
   const k = durationKey(seconds);
-  if (k < 0) return formatDuration(seconds) + " at " + speedText + "), ";
-  return SLOW_TEXT[k] ?? (SLOW_TEXT[k] = formatDurationCached(seconds) + " at " + speedText + "), ");
+  const j = durationKey(slowSeconds);
+  if (k >= 0 && j >= 0 && TIMES_PAIR[k] === j) return TIMES_TEXT[k]!;
+  const text = formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
+  if (k >= 0 && j >= 0) {
+    TIMES_PAIR[k] = j;
+    TIMES_TEXT[k] = text;
+  }
+  return text;
 }
 
 /** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */
@@ -117,8 +120,8 @@ function countKey(n: number): number {
 }
 const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53
 const COUNT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
-const ABOUT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
-const UP_TO_TEXT = new Array<string | undefined>(COUNTS_CACHED);
+const STEPS_PAIR = new Int32Array(COUNTS_CACHED).fill(-1);
+const STEPS_TEXT = new Array<string | undefined>(COUNTS_CACHED);
 
 /** formatCountTwoFigures(n) of format.ts for a count n ≥ 0, from a cache: 6,009 → "6,000". */
 export function formatCountTwoFiguresCached(n: number): string {
@@ -130,8 +133,13 @@ export function formatCountTwoFiguresCached(n: number): string {
 /** "about 1,100–1,300 steps", or "about 1,100 steps" for one count. A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900". */
 function stepsText(steps: number, stepsUpTo: number): string {
   const k = countKey(steps);
-  const about = k < 0 ? "about " + formatCountTwoFiguresCached(steps) : (ABOUT_TEXT[k] ?? (ABOUT_TEXT[k] = "about " + formatCountTwoFiguresCached(steps)));
-  if (steps === stepsUpTo) return about + " steps";
-  const j = countKey(stepsUpTo);
-  return about + (j < 0 ? "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps" : (UP_TO_TEXT[j] ?? (UP_TO_TEXT[j] = "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps")));
+  const j = steps === stepsUpTo ? COUNTS_CACHED : countKey(stepsUpTo); // COUNTS_CACHED: one count, no range
+  if (k >= 0 && j >= 0 && STEPS_PAIR[k] === j) return STEPS_TEXT[k]!;
+  const low = formatCountTwoFiguresCached(steps);
+  const text = steps === stepsUpTo ? "about " + low + " steps" : "about " + low + "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps";
+  if (k >= 0 && j >= 0) {
+    STEPS_PAIR[k] = j;
+    STEPS_TEXT[k] = text;
+  }
+  return text;
 }

@@ -44,13 +44,23 @@ describe("cached walking texts", () => {
       { walkingSpeed: 1.2, accessibleSpeed: 0.9, stepLength: 0.76, shortStep: 0.66, speedText: "0.9 m/s" },
       { walkingSpeed: 1.2, accessibleSpeed: 0.9, stepLength: 0.76, shortStep: 0.66, speedText: "3 ft/s" },
       { walkingSpeed: 1.4, accessibleSpeed: 0.8, stepLength: 0.7, shortStep: 0.7, speedText: "0.8 m/s" },
+      { walkingSpeed: 1.4, accessibleSpeed: 0.8, stepLength: 0.7, shortStep: 0.695, speedText: "0.8 m/s" },
     ];
     for (let k = 0; k < 30_000; k++) {
-      const w = settings[k % 3];
+      const w = settings[k % settings.length];
       const d = 10 ** (7 * rand()) - 1;
       const got = walkingAt(d, w);
       const want = { distanceFromStartMetres: clean(d), seconds: clean(d / w.walkingSpeed), accessibleSeconds: clean(d / w.accessibleSpeed), steps: Math.round(d / w.stepLength), stepsUpTo: Math.round(d / w.shortStep), text: sentence(d, w) };
-      if (JSON.stringify(got) !== JSON.stringify(want)) expect(got, `${d} m, settings ${k % 3}`).toEqual(want);
+      if (JSON.stringify(got) !== JSON.stringify(want)) expect(got, `${d} m, settings ${k % settings.length}`).toEqual(want);
+    }
+  });
+
+  it("keeps a range whose ends read alike apart from a single count", () => {
+    const range = { walkingSpeed: 1.2, accessibleSpeed: 0.9, stepLength: 0.7, shortStep: 0.69, speedText: "0.9 m/s" };
+    const one = { ...range, shortStep: 0.7 };
+    for (let k = 0; k < 3; k++) {
+      expect(walkingAt(1000, range).text).toBe("14 min walk (19 min at 0.9 m/s), about 1,400–1,400 steps"); // 1,429 and 1,449 steps
+      expect(walkingAt(1000, one).text).toBe("14 min walk (19 min at 0.9 m/s), about 1,400 steps");
     }
   });
 
