@@ -350,9 +350,23 @@ export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>
     if (last <= 0) i = 0;
     else if (d >= cum[last]) i = segmentIndexAt(route, d);
     else {
-      // advance: far jumps by binary search, short ones by stepping
-      if (seg + 8 < last && cum[seg + 8] <= d) seg = segmentIndexAt(route, d);
-      while (seg + 1 < last && cum[seg + 1] <= d) seg++;
+      // advance from the last segment (d only grows): gallop forward, then bisect the window, so
+      // that the search stays near the previous marker in memory (cum[seg] <= d < cum[last] here)
+      let lo = seg;
+      let hi = seg + 1;
+      let step = 1;
+      while (hi < last && cum[hi] <= d) {
+        lo = hi;
+        step *= 2;
+        hi = lo + step;
+      }
+      if (hi > last) hi = last;
+      while (hi - lo > 1) {
+        const mid = (lo + hi) >> 1;
+        if (cum[mid] <= d) lo = mid;
+        else hi = mid;
+      }
+      seg = lo;
       i = seg;
     }
     placeAt(route, d, i);

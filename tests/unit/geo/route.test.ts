@@ -133,6 +133,25 @@ describe("prepared route queries", () => {
     });
   });
 
+  it("finds the same segment for every marker in one forward pass as by binary search, repeated vertices and vertex distances included", () => {
+    const c: number[] = [];
+    for (let i = 0; i < 5000; i++) {
+      const lon = 0.00001 * i + (i % 13 === 0 ? 0 : 0.000001 * i);
+      c.push(lon, 10 + 0.00001 * Math.sin(i));
+      if (i % 11 === 0) c.push(lon, 10 + 0.00001 * Math.sin(i)); // a repeated vertex: a zero-length segment
+    }
+    const r = prepareRoute(c);
+    const ds = [0, r.totalMetres, ...Array.from(r.cumulative.slice(0, 3000)), ...Array.from({ length: 2000 }, () => rand() * r.totalMetres)];
+    const many = positionsAt(r, ds);
+    ds.forEach((d, k) => {
+      // (at distance 0 a batch may name a zero-length first segment; the place is the same)
+      if (d > 0) expect(many[k].segment, `distance ${d}`).toBe(segmentIndexAt(r, Math.min(d, r.totalMetres)));
+      const one = positionAt(r, d);
+      expect(many[k].lon).toBe(one.lon);
+      expect(many[k].lat).toBe(one.lat);
+    });
+  });
+
   it("an eastward equatorial segment has bearing 90°", () => {
     expect(positionAt(route, 50).bearing).toBeCloseTo(90, 9);
   });
