@@ -69,27 +69,7 @@ function sortIds(ids: readonly string[]): string[] {
     .map((i) => ids[i]);
 }
 
-/**
- * The last long key made. The live preview asks for the same crowded group's key on every
- * keystroke; checking the ids one by one against a private copy is far cheaper than joining them.
- */
-let lastKey: { code: string; ids: string[]; key: string } | null = null;
-const REMEMBER_FROM = 32;
-
 /** A warning's stable key: its code and the ids it is about, e.g. "markers-too-close:137,140". */
 export function warningKey(code: string, ids: readonly string[]): string {
-  if (ids.length < REMEMBER_FROM) return makeKey(code, ids);
-  const last = lastKey;
-  if (last && last.code === code && last.ids.length === ids.length) {
-    let same = true;
-    for (let i = 0; i < ids.length && same; i++) same = last.ids[i] === ids[i];
-    if (same) return last.key;
-  }
-  const key = makeKey(code, ids);
-  lastKey = { code, ids: ids.slice(), key };
-  return key;
-}
-
-function makeKey(code: string, ids: readonly string[]): string {
   return `${code}:${(idsAscending(ids) ? ids : sortIds(ids)).join(",")}`;
 }
