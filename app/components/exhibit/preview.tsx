@@ -78,7 +78,12 @@ export function DurationsSection({ result, units, lifeYears, onLifeYears }: { re
             {d.label}: <strong>{formatLength(d.metres, units, d.metres / 1000)}</strong>
             {d.visible ? "" : " — too small to see at this scale"}
             {d.insets.map((ins) => (
-              <span key={ins.insetId} className="text-ink-soft"> · {formatLength(ins.metres, units, ins.metres / 1000)} in the inset “{insetLabel.get(ins.insetId) ?? ins.insetId}”</span>
+              <span key={ins.insetId} className="text-ink-soft">
+                {" · "}
+                {ins.covers
+                  ? `${formatLength(ins.metres, units, ins.metres / 1000)} ${d.located ? "in" : "at the scale of"} the inset “${insetLabel.get(ins.insetId) ?? ins.insetId}”`
+                  : ins.text}
+              </span>
             ))}
           </li>
         ))}

@@ -14,7 +14,7 @@ import type { DurationSpec, ExhibitSpec, LineStringGeometry, ResolvedMarker } fr
  */
 export function standardDurations(lifeYears = 80): DurationSpec[] {
   return [
-    { id: "life", label: `a ${lifeYears}-year life`, years: lifeYears, endsAgoYears: 0 },
+    { id: "life", label: `${articleFor(lifeYears)} ${lifeYears}-year life`, years: lifeYears, endsAgoYears: 0 },
     // Oldest writing, about 5,200 years ago (Sumerian cuneiform; common practice figure).
     { id: "writing", label: "recorded history (about 5,200 years)", years: 5200, endsAgoYears: 0 },
     // Holocene base 11,700 years b2k (ICS chart).
@@ -22,6 +22,17 @@ export function standardDurations(lifeYears = 80): DurationSpec[] {
     // Earliest Homo sapiens fossils, about 300,000 years (common practice round figure).
     { id: "sapiens", label: "our species (about 300,000 years)", years: 300_000, endsAgoYears: 0 },
   ];
+}
+
+/**
+ * "a" or "an" before a number read aloud in English: an 8-, 11-, 18-, 80-, 800-year…, a 7-, 100-year…
+ * (eight, eleven and eighteen begin with a vowel sound; eleven and eighteen only when they lead a
+ * group of thousands: 11, 11,000 but not 110 or 1,100).
+ */
+export function articleFor(n: number): "a" | "an" {
+  const digits = String(Math.trunc(Math.abs(n)));
+  if (digits.startsWith("8")) return "an";
+  return (digits.startsWith("11") || digits.startsWith("18")) && digits.length % 3 === 2 ? "an" : "a";
 }
 
 function pointOf(m: ResolvedMarker) {
