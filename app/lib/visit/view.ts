@@ -107,13 +107,13 @@ export function markerRows(snapshot: PublicationSnapshot, base: string, t: Messa
   }));
 }
 
-/** The scale in plain words: "On this path: 1 m per million years." and the durations ("an 80-year life: 80 years = 0.08 mm"). */
 /** "4,567 Ma" and "0 Ma": the span's ends as the designer gave them. */
 export function spanEnds(snapshot: PublicationSnapshot): { older: string; younger: string } {
   const { older, younger } = snapshot.exhibit.span;
   return { older: `${older.value.toLocaleString("en-GB")} ${older.unit}`, younger: `${younger.value.toLocaleString("en-GB")} ${younger.unit}` };
 }
 
+/** The scale in plain words: "On this path: 1 m per million years." and the durations ("an 80-year life: 80 years = 0.08 mm"). */
 export function scaleWords(snapshot: PublicationSnapshot, t: Messages): { lines: string[]; durations: string[] } {
   const medium = mediumWord(snapshot, t);
   const units = snapshot.exhibit.unitsPreference;
