@@ -1,4 +1,4 @@
-// The one formatting module (app/lib/scale/format.ts) against the test oracle (tests/unit/scale/oracle:
+// The formatting module (app/lib/scale/format.ts and its parts) against the test oracle (tests/unit/scale/oracle:
 // the engine as it was before it, with the figures issue's rounding rules): every label, distance,
 // statement and duration text identical, on the demo exhibits and on 2,000 random exhibits (fixed
 // seed). Deliberate changes are left out and tested in their own files: US customary units (the

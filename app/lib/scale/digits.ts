@@ -1,0 +1,107 @@
+/**
+ * The digits of a figure: fixed decimals with thousands separators, significant figures and
+ * scientific words ("3.1 × 10⁻⁵"), in English (comma separator, "−" for minus).
+ *
+ * Speed: the preview formats every marker on every keystroke, so digits are made from integers
+ * (no toFixed/toPrecision strings, no regular expressions) whenever the rounding is unambiguous;
+ * the few exact ties fall back to the built-ins, so the text is always the same as theirs.
+ */
+import { pow10, roundScaled } from "../units";
+
+function group(int: string): string {
+  const n = int.length;
+  if (n <= 3) return int;
+  const head = n % 3 || 3;
+  let out = int.slice(0, head);
+  for (let k = head; k < n; k += 3) out += "," + int.slice(k, k + 3);
+  return out;
+}
+
+/** |x| × 10^d rounded half up (as toFixed does on the exact value), or −1 when that is an exact tie or too large. */
+export function scaledInteger(a: number, d: number): number {
+  return d > 20 ? -1 : roundScaled(a, d);
+}
+
+const ZEROS = ["", "0", "00", "000", "0000", "00000", "000000", "0000000", "00000000", "000000000"];
+
+/**
+ * The decimal part of a figure with its unit, ".05 m" for (5, 2, " m"): made once per number of
+ * decimals (up to three) and unit, so that a label is one concatenation of whole part and table entry.
+ * Suffixes are the few fixed unit words ("" or " m", " ft", …), so the tables stay small.
+ */
+const FRACTIONS = new Map<string, string[][]>();
+function fractionText(f: number, d: number, suffix: string): string {
+  let byDecimals = FRACTIONS.get(suffix);
+  if (!byDecimals) {
+    byDecimals = [];
+    FRACTIONS.set(suffix, byDecimals);
+  }
+  let table = byDecimals[d];
+  if (!table) {
+    table = Array.from({ length: pow10(d) }, (_, k) => `.${String(k).padStart(d, "0")}${suffix}`);
+    byDecimals[d] = table;
+  }
+  return table[f];
+}
+
+/** The text of the integer n / 10^d with d decimals and thousands separators, then `suffix` (few intermediate strings). */
+export function digits(n: number, d: number, negative: boolean, suffix = ""): string {
+  const sign = negative && n !== 0 ? "−" : "";
+  if (d === 0) return (n < 1000 ? sign + n : sign + group(String(n))) + suffix;
+  const p = pow10(d);
+  const i = Math.floor(n / p);
+  const f = n - i * p;
+  const int = i < 1000 ? String(i) : group(String(i));
+  if (d <= 3) return sign + int + fractionText(f, d, suffix);
+  if (f >= p / 10) return `${sign}${int}.${f}${suffix}`;
+  const frac = String(f);
+  return `${sign}${int}.${d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)}${frac}${suffix}`;
+}
+
+function formatFixedSlow(x: number, d: number): string {
+  const s = Math.abs(x).toFixed(d);
+  const dot = s.indexOf(".");
+  const int = dot < 0 ? s : s.slice(0, dot);
+  const sign = x < 0 && Number(s) !== 0 ? "−" : "";
+  return sign + (/^\d+$/.test(int) ? group(int) : int) + (dot < 0 ? "" : s.slice(dot));
+}
+
+/** Format with a fixed number of decimals and thousands separators: 4501 → "4,501", (0.05, 2) → "0.05". */
+export function formatFixed(x: number, decimals: number): string {
+  const d = Math.max(0, Math.min(20, Math.round(decimals)));
+  const n = scaledInteger(Math.abs(x), d);
+  return n >= 0 ? digits(n, d, x < 0) : formatFixedSlow(x, d);
+}
+
+/** Round to n significant figures. */
+export function roundSig(x: number, n: number): number {
+  if (x === 0 || !Number.isFinite(x)) return x;
+  const e = Math.floor(Math.log10(Math.abs(x)));
+  const f = 10 ** (n - 1 - e);
+  return Math.round(x * f) / f;
+}
+
+/** Format with at most n significant figures, dropping trailing zeros: 3.9400 → "3.94", 1000 → "1,000". */
+export function formatSig(x: number, n = 3): string {
+  if (x === 0) return "0";
+  const r = roundSig(x, n);
+  const e = Math.floor(Math.log10(Math.abs(r)));
+  let s = formatFixed(r, Math.max(0, n - 1 - e));
+  if (s.includes(".")) {
+    let end = s.length;
+    while (s.charCodeAt(end - 1) === 48) end--; // "0"
+    if (s.charCodeAt(end - 1) === 46) end--; // "."
+    s = s.slice(0, end);
+  }
+  return s;
+}
+
+const SUPERSCRIPT = "⁰¹²³⁴⁵⁶⁷⁸⁹";
+
+/** Very small figures in scientific words: 3.1e-5 → "3.1 × 10⁻⁵". */
+export function formatScientific(x: number, n = 2): string {
+  const e = Math.floor(Math.log10(Math.abs(x)));
+  const m = roundSig(x / 10 ** e, n);
+  const exp = String(Math.abs(e)).split("").map((c) => SUPERSCRIPT[Number(c)]).join("");
+  return `${formatSig(m, n)} × 10${e < 0 ? "⁻" : ""}${exp}`;
+}

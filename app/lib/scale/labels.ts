@@ -1,0 +1,196 @@
+/**
+ * Distance labels: a distance from both ends and its ±, on the grid the rounding rule (rounding.ts)
+ * sets, in one unit of the metric or US customary system.
+ */
+import { METRES_PER_LENGTH_UNIT as UNIT_METRES, pow10, type LengthUnit, type UnitSystem } from "../units";
+import { digits, formatFixed, scaledInteger } from "./digits";
+import { ruleStep, ruleUncertainty, stepRule, uncertaintyPlace, decadeFloor, type DisplayStep, type RoundingBasis } from "./rounding";
+
+export interface DisplayLength {
+  /** The rounded value in metres. */
+  metres: number;
+  /** The rounded value in the display unit. */
+  value: number;
+  unit: LengthUnit;
+  decimals: number;
+  /** e.g. "4,501.00 km" */
+  text: string;
+}
+
+/** The units labels are written in, smallest first. */
+export const METRIC: readonly LengthUnit[] = ["mm", "cm", "m", "km"];
+export const US: readonly LengthUnit[] = ["in", "ft", "mi"];
+
+/** A metric unit that reads well for a length (km from 10 km, m from 1 m, cm from 1 cm, else mm). */
+export function autoMetricUnit(metres: number): LengthUnit {
+  return METRIC[autoIndex(Math.abs(metres), false)];
+}
+
+/** A US customary unit that reads well for a length (mi from 10 mi, ft from 1 ft, else in). */
+export function autoUsUnit(metres: number): LengthUnit {
+  return US[autoIndex(Math.abs(metres), true)];
+}
+
+/** Index in METRIC or US of the unit that reads well for a length m ≥ 0 (autoMetricUnit, autoUsUnit). */
+function autoIndex(m: number, us: boolean): number {
+  if (us) return m >= 10 * UNIT_METRES.mi ? 2 : m >= UNIT_METRES.ft ? 1 : 0;
+  return m >= 10_000 ? 3 : m >= 1 ? 2 : m >= 0.01 ? 1 : 0;
+}
+
+const METRIC_METRES = METRIC.map((u) => UNIT_METRES[u]);
+const US_METRES = US.map((u) => UNIT_METRES[u]);
+
+/** Index in METRIC (or US) of the unit a label of this size and step is written in (see labelUnit). */
+function labelUnitIndex(size: number, stepMetres: number, us: boolean): number {
+  const f = us ? US_METRES : METRIC_METRES;
+  let k = autoIndex(size, us);
+  // no more than three decimals: step down a unit while the step needs more (4,567.000000 km → 4,567,000.000 m)
+  while (k > 0 && stepMetres / f[k] < 1e-3 * (1 - 1e-9)) k--;
+  // a step of a centimetre or more is not shown in millimetres
+  if (!us && k === 0 && stepMetres >= 0.01) k = 1;
+  return k;
+}
+
+/** Unit for a label: the requested one, or one of the unit system chosen from the size of the distance. */
+export function labelUnit(metres: number, stepMetres: number, unit?: LengthUnit, system: UnitSystem = "metric"): LengthUnit {
+  if (unit) return unit;
+  const us = system === "us";
+  const k = labelUnitIndex(Math.max(Math.abs(metres), stepMetres), stepMetres, us);
+  return us ? US[k] : METRIC[k];
+}
+
+/** 10^(1e-9): decimalsFor's tolerance, as a factor. */
+const DECIMALS_TOLERANCE = 10 ** 1e-9;
+
+/**
+ * Decimals that show a step in a unit: 0 when the step is a whole unit or more. The same as
+ * max(0, floor(−log10(step) + 1e-9)) — the largest d ≥ 0 with step ≤ 10^−d·10^(1e-9) — found
+ * by comparison with the table of powers, without a logarithm.
+ */
+function decimalsFor(stepInUnit: number): number {
+  let d = 0;
+  while (d < 30 && stepInUnit <= pow10(-(d + 1)) * DECIMALS_TOLERANCE) d++;
+  return d;
+}
+
+/** With no decimals: the multiple a value is rounded to — the step's decade (metric), or the next decade up (inches, feet, yards, miles), never finer. */
+function wholeStep(stepInUnit: number): number {
+  const q = decadeFloor(Math.max(1, stepInUnit));
+  return q < stepInUnit * (1 - 1e-9) ? q * 10 : q;
+}
+
+/**
+ * A distance rounded on a grid of the unit (y = metres in the unit; `decimals`, or the multiple `q`
+ * when there are none): its value in the unit. `up` rounds up instead of to the nearest (a ±
+ * converted to feet is never shown smaller).
+ */
+function gridValue(y: number, decimals: number, q: number, up: boolean): number {
+  let value: number;
+  if (decimals > 0) {
+    const p = pow10(decimals);
+    const n = up ? Math.ceil(Math.abs(y) * p - 1e-9) : scaledInteger(Math.abs(y), decimals);
+    value = n >= 0 ? (y < 0 ? -n : n) / p : Number(y.toFixed(decimals));
+  } else {
+    value = (up ? Math.ceil(y / q - 1e-9) : Math.round(y / q)) * q;
+  }
+  return value === 0 ? 0 : value;
+}
+
+/** The same distance's text, with thousands separators ("4,501.00"), then `suffix` (" km"). */
+function gridText(y: number, decimals: number, q: number, up: boolean, suffix = ""): string {
+  if (decimals > 0) {
+    const n = up ? Math.ceil(Math.abs(y) * pow10(decimals) - 1e-9) : scaledInteger(Math.abs(y), decimals);
+    if (n >= 0) return digits(n, decimals, y < 0, suffix);
+  }
+  return formatFixed(gridValue(y, decimals, q, up), decimals) + suffix;
+}
+
+/** Round a distance at a step and express it in a unit without implying more precision than the step. */
+export function roundAtStep(metres: number, stepMetres: number, unit: LengthUnit): DisplayLength {
+  const uf = UNIT_METRES[unit];
+  const decimals = decimalsFor(stepMetres / uf);
+  const q = decimals > 0 ? 1 : wholeStep(stepMetres / uf);
+  const value = gridValue(metres / uf, decimals, q, false);
+  return { metres: value * uf, value, unit, decimals, text: gridText(metres / uf, decimals, q, false, UNIT_SUFFIX[unit]) };
+}
+
+export interface DistanceLabel {
+  fromOlderEnd: string;
+  fromYoungerEnd: string;
+  /** "± 0.05 km", or null without an uncertainty. */
+  uncertainty: string | null;
+  stepMetres: number;
+  basis: RoundingBasis;
+}
+
+const UNITS = Object.keys(UNIT_METRES) as LengthUnit[];
+const IS_METRIC = Object.fromEntries(UNITS.map((u) => [u, METRIC.includes(u)])) as Readonly<Record<LengthUnit, boolean>>;
+/** " km": a unit as it follows a figure (one string per unit, not one per label). */
+const UNIT_SUFFIX = Object.fromEntries(UNITS.map((u) => [u, ` ${u}`])) as Readonly<Record<LengthUnit, string>>;
+
+/** The labels of a distance from both ends, with its ± — all in one unit, on one grid. */
+export function distanceLabel(fromOlder: number, fromYounger: number, step: DisplayStep, unit?: LengthUnit, system: UnitSystem = "metric"): DistanceLabel {
+  return labelOnGrid(fromOlder, fromYounger, step.stepMetres, step.basis, step.uncertaintyMetres, unit, system);
+}
+
+/**
+ * distanceLabel(fromOlder, fromYounger, displayStep(age, ±, scale, resolution), unit, system) in one
+ * call, without the intermediate step object (the preview labels every marker on every keystroke).
+ */
+export function markerLabel(
+  fromOlder: number,
+  fromYounger: number,
+  ageYears: number,
+  uncertaintyYears: number | null,
+  metresPerYear: number,
+  resolutionMetres: number,
+  unit?: LengthUnit,
+  system: UnitSystem = "metric",
+): DistanceLabel {
+  const basis = stepRule(ageYears, uncertaintyYears, metresPerYear, resolutionMetres);
+  return labelOnGrid(fromOlder, fromYounger, ruleStep(), basis, ruleUncertainty(), unit, system);
+}
+
+function labelOnGrid(
+  fromOlder: number,
+  fromYounger: number,
+  stepMetres: number,
+  basis: RoundingBasis,
+  uncertaintyMetres: number | null,
+  unit: LengthUnit | undefined,
+  system: UnitSystem,
+): DistanceLabel {
+  let u: LengthUnit;
+  let uf: number;
+  if (unit) {
+    u = unit;
+    uf = UNIT_METRES[u];
+  } else {
+    const us = system === "us";
+    const larger = Math.abs(fromOlder > fromYounger ? fromOlder : fromYounger);
+    const k = labelUnitIndex(larger > stepMetres ? larger : stepMetres, stepMetres, us);
+    u = us ? US[k] : METRIC[k];
+    uf = us ? US_METRES[k] : METRIC_METRES[k];
+  }
+  const suffix = UNIT_SUFFIX[u];
+  const stepInUnit = stepMetres / uf;
+  const decimals = decimalsFor(stepInUnit);
+  const q = decimals > 0 ? 1 : wholeStep(stepInUnit);
+  let unc: string | null = null;
+  if (uncertaintyMetres !== null) {
+    // the ± keeps its own figures (rounded up) even when the medium's resolution is coarser;
+    // converted to inches, feet or miles it is rounded up again, never down
+    const place = pow10(uncertaintyPlace(uncertaintyMetres));
+    const uStep = (place < stepMetres ? place : stepMetres) / uf;
+    const uDecimals = decimalsFor(uStep);
+    unc = "± " + gridText(uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix);
+  }
+  return {
+    fromOlderEnd: gridText(fromOlder / uf, decimals, q, false, suffix),
+    fromYoungerEnd: gridText(fromYounger / uf, decimals, q, false, suffix),
+    uncertainty: unc,
+    // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
+    stepMetres,
+    basis,
+  };
+}
