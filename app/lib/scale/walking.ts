@@ -62,8 +62,7 @@ export function walkingAt(d: number, w: WalkingSettings): Walking {
 
 // The preview writes these texts for every marker on every keystroke. Their parts take a few
 // hundred values, so each is made once (by format.ts's formatDuration and formatCountTwoFigures)
-// and kept, and so is the last pair of parts seen for each first part (the second nearly always
-// follows from the first); tests/unit/geo/walking-text.test.ts checks the texts against format.ts.
+// and kept in a table by value; tests/unit/geo/walking-text.test.ts checks them against format.ts.
 
 const MINUTES_CACHED = 6000; // 100 hours
 const DURATIONS_CACHED = 61 + MINUTES_CACHED;
@@ -77,10 +76,6 @@ function durationKey(seconds: number): number {
   return minutes < MINUTES_CACHED ? 61 + minutes : -1;
 }
 const DURATION_TEXT = new Array<string | undefined>(DURATIONS_CACHED);
-/** By the walking time's slot: the slow time's slot and the text of both, for the speed text timesSpeedText. */
-const TIMES_PAIR = new Int32Array(DURATIONS_CACHED).fill(-1);
-const TIMES_TEXT = new Array<string | undefined>(DURATIONS_CACHED);
-let timesSpeedText = "";
 
 /** formatDuration(seconds) of format.ts, from a cache: "45 s", "12 min", "1 h 05 min". */
 export function formatDurationCached(seconds: number): string {
@@ -91,19 +86,7 @@ export function formatDurationCached(seconds: number): string {
 
 /** "12 min walk (16 min at 0.9 m/s), " */
 function timesText(seconds: number, slowSeconds: number, speedText: string): string {
-  if (speedText !== timesSpeedText) {
-    TIMES_PAIR.fill(-1);
-    timesSpeedText = speedText;
-  }
-  const k = durationKey(seconds);
-  const j = durationKey(slowSeconds);
-  if (k >= 0 && j >= 0 && TIMES_PAIR[k] === j) return TIMES_TEXT[k]!;
-  const text = formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
-  if (k >= 0 && j >= 0) {
-    TIMES_PAIR[k] = j;
-    TIMES_TEXT[k] = text;
-  }
-  return text;
+  return formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
 }
 
 /** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */
@@ -120,8 +103,6 @@ function countKey(n: number): number {
 }
 const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53
 const COUNT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
-const STEPS_PAIR = new Int32Array(COUNTS_CACHED).fill(-1);
-const STEPS_TEXT = new Array<string | undefined>(COUNTS_CACHED);
 
 /** formatCountTwoFigures(n) of format.ts for a count n ≥ 0, from a cache: 6,009 → "6,000". */
 export function formatCountTwoFiguresCached(n: number): string {
@@ -132,14 +113,6 @@ export function formatCountTwoFiguresCached(n: number): string {
 
 /** "about 1,100–1,300 steps", or "about 1,100 steps" for one count. A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900". */
 function stepsText(steps: number, stepsUpTo: number): string {
-  const k = countKey(steps);
-  const j = steps === stepsUpTo ? COUNTS_CACHED : countKey(stepsUpTo); // COUNTS_CACHED: one count, no range
-  if (k >= 0 && j >= 0 && STEPS_PAIR[k] === j) return STEPS_TEXT[k]!;
   const low = formatCountTwoFiguresCached(steps);
-  const text = steps === stepsUpTo ? "about " + low + " steps" : "about " + low + "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps";
-  if (k >= 0 && j >= 0) {
-    STEPS_PAIR[k] = j;
-    STEPS_TEXT[k] = text;
-  }
-  return text;
+  return steps === stepsUpTo ? "about " + low + " steps" : "about " + low + "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps";
 }
