@@ -161,12 +161,12 @@ export function computeExhibit(spec: ExhibitSpec, markers: ResolvedMarker[], dur
 
 /**
  * computeExhibit's route cache for a saved route: measured once (10⁴–10⁵ points), then reused on
- * every keystroke of the preview. Undefined for a length medium or a geometry the engine refuses.
+ * every keystroke of the preview (so it keeps what makes placing markers quicker). Undefined for a length medium or a geometry the engine refuses.
  */
 export function routeCacheFor(geometry: LineStringGeometry | null): { route: PreparedRoute; geometry: LineStringGeometry } | undefined {
   if (!geometry) return undefined;
   const parsed = parseGeoJsonRoute(geometry, "medium.geometry");
-  return parsed.ok ? { route: prepareRoute(parsed.coords), geometry } : undefined;
+  return parsed.ok ? { route: prepareRoute(parsed.coords, { repeatedQueries: true }), geometry } : undefined;
 }
 
 /** Metres per year of an exhibit from its stored figures (a route's length was measured on upload). */

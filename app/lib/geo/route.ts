@@ -23,10 +23,12 @@
  * (exact for a sphere, where the chord lies in the plane of the great circle), or the exact
  * geodesic azimuth for long segments.
  *
- * Speed. prepareRoute keeps every vertex's ECEF coordinates (the very numbers its segment lengths
- * were computed from), so placing a marker needs no trigonometry for the segment's ends, and the
- * local frame for the bearing comes from the same terms as the latitude: a marker costs three
- * atan2 and four square roots.
+ * Speed. For a one-off computation prepareRoute keeps only the cumulative distances (fresh memory
+ * costs about as much to touch as the arithmetic on it: 24 bytes more per vertex would add a tenth
+ * to a 10⁵-vertex route's time), and placing a marker recomputes its segment's two ends in ECEF
+ * with the same operations the lengths were measured with. A route prepared for repeated queries
+ * (the composer's preview) keeps every vertex's ECEF, so a marker costs no trigonometry for them.
+ * Either way the local frame for the bearing comes from the same terms as the latitude.
  */
 import { DEG, WGS84_A, WGS84_B, WGS84_E2, WGS84_EP2, normalizeAzimuth, normalizeLon } from "./ellipsoid";
 import { geodesicDirect, geodesicInverse } from "./geodesic";
@@ -43,34 +45,60 @@ const EP2_B = WGS84_EP2 * WGS84_B;
 const E2_A = WGS84_E2 * WGS84_A;
 const ONE_MINUS_E2_SQ = ONE_MINUS_E2 * ONE_MINUS_E2;
 
+// Module scratch in one typed array (a double written to a module variable would be a new heap
+// number each time): geodetic()'s local frame at the point (sin and cos of its latitude and
+// longitude), placeAt's result (longitude, latitude, bearing) and vertexEcef()'s (x, y, z).
+const SCRATCH = new Float64Array(10);
+const SIN_LAT = 0;
+const COS_LAT = 1;
+const SIN_LON = 2;
+const COS_LON = 3;
+const LON = 4;
+const LAT = 5;
+const BEARING = 6;
+const EX = 7;
+const EY = 8;
+const EZ = 9;
+
 /** A route ready for repeated queries: vertices and cumulative geodesic distance. */
 export interface PreparedRoute {
-  /** Vertex longitudes, degrees. */
-  lon: Float64Array;
-  /** Vertex latitudes, degrees. */
-  lat: Float64Array;
+  /** Vertex longitudes and latitudes, degrees, interleaved [lon0, lat0, lon1, lat1, …] (the array prepareRoute was given when it was a Float64Array: not copied). */
+  coords: Float64Array;
+  /** Number of vertices. */
+  vertexCount: number;
   /** cumulative[i] = distance from the first vertex to vertex i, metres (cumulative[0] = 0). */
   cumulative: Float64Array;
   /** Total length in metres. */
   totalMetres: number;
   /** Number of segments solved with the exact inverse problem (longer than CHORD_LIMIT_M). */
   longSegments: number;
-  /** Earth-centred coordinates of every vertex, metres, interleaved [x0, y0, z0, x1, …] (as the segment lengths were computed). */
-  ecef: Float64Array;
+  /**
+   * Earth-centred coordinates of every vertex, metres, interleaved [x0, y0, z0, x1, …], exactly as
+   * the segment lengths were computed: kept only for a route prepared for repeated queries.
+   */
+  ecef?: Float64Array;
+}
+
+export interface PrepareOptions {
+  /**
+   * Keep every vertex's Earth-centred coordinates, so that placing markers needs no trigonometry
+   * for the segments' ends: for a route queried again and again (the composer's preview), not for
+   * a one-off computation, where writing the 3 × 8 bytes per vertex costs more than it saves.
+   */
+  repeatedQueries?: boolean;
 }
 
 /**
  * Build a prepared route from interleaved coordinates [lon0, lat0, lon1, lat1, …] (degrees).
- * The coordinates must already be validated (finite, in range).
+ * The coordinates must already be validated (finite, in range). A Float64Array (what the route
+ * parsers give) is kept as it is, not copied: a large route's arrays are written once (fresh memory
+ * costs about as much to touch as the arithmetic on it), so the caller must not change it afterwards.
  */
-export function prepareRoute(coords: ArrayLike<number>): PreparedRoute {
+export function prepareRoute(input: ArrayLike<number>, options: PrepareOptions = {}): PreparedRoute {
+  const coords = input instanceof Float64Array ? input : Float64Array.from(input);
   const n = coords.length >> 1;
-  // one allocation for all four arrays (a large typed array costs more to allocate than to fill)
-  const buffer = new Float64Array(6 * n);
-  const lon = buffer.subarray(0, n);
-  const lat = buffer.subarray(n, 2 * n);
-  const cumulative = buffer.subarray(2 * n, 3 * n);
-  const ecef = buffer.subarray(3 * n);
+  const cumulative = new Float64Array(n);
+  const ecef = options.repeatedQueries ? new Float64Array(3 * n) : null;
   let longSegments = 0;
   let total = 0;
   let px = 0;
@@ -80,11 +108,9 @@ export function prepareRoute(coords: ArrayLike<number>): PreparedRoute {
   for (let i = 0; i < n; i++) {
     const lo = coords[2 * i];
     const la = coords[2 * i + 1];
-    lon[i] = lo;
-    lat[i] = la;
+    // vertexEcef(lo, la), written out: its results in module variables would each be a new heap number
     const phi = la * DEG;
     const lam = lo * DEG;
-    // the four calls first: fewer values live across them
     const sphi = Math.sin(phi);
     const cphi = Math.cos(phi);
     const clam = Math.cos(lam);
@@ -95,9 +121,11 @@ export function prepareRoute(coords: ArrayLike<number>): PreparedRoute {
     const x = rc * clam;
     const y = rc * slam;
     const z = nRad * ONE_MINUS_E2 * sphi;
-    ecef[3 * i] = x;
-    ecef[3 * i + 1] = y;
-    ecef[3 * i + 2] = z;
+    if (ecef !== null) {
+      ecef[3 * i] = x;
+      ecef[3 * i + 1] = y;
+      ecef[3 * i + 2] = z;
+    }
     // 1/(M·N) = (1 − e² sin²φ)² / (a²(1 − e²))
     const invR2 = w2 * w2 * INV_R2_FACTOR;
     if (i > 0) {
@@ -111,7 +139,7 @@ export function prepareRoute(coords: ArrayLike<number>): PreparedRoute {
         const q = c2 * 0.5 * (invR2 + pInvR2);
         s = c * (1 + q * (1 / 24 + q * (3 / 640)));
       } else {
-        s = geodesicInverse(lat[i - 1], lon[i - 1], la, lo).s12;
+        s = geodesicInverse(coords[2 * i - 1], coords[2 * i - 2], la, lo).s12;
         longSegments++;
       }
       total += s;
@@ -122,7 +150,28 @@ export function prepareRoute(coords: ArrayLike<number>): PreparedRoute {
     pz = z;
     pInvR2 = invR2;
   }
-  return { lon, lat, cumulative, totalMetres: total, longSegments, ecef };
+  return ecef ? { coords, vertexCount: n, cumulative, totalMetres: total, longSegments, ecef } : { coords, vertexCount: n, cumulative, totalMetres: total, longSegments };
+}
+
+/**
+ * A vertex's Earth-centred coordinates into SCRATCH[EX], [EY], [EZ]: placeAt recomputes a marker's two segment
+ * ends with the same operations prepareRoute measured the segment with (written out there), so
+ * both see the very same numbers.
+ */
+function vertexEcef(lon: number, lat: number): void {
+  const phi = lat * DEG;
+  const lam = lon * DEG;
+  // the four calls first: fewer values live across them
+  const sphi = Math.sin(phi);
+  const cphi = Math.cos(phi);
+  const clam = Math.cos(lam);
+  const slam = Math.sin(lam);
+  const w2 = 1 - E2 * sphi * sphi;
+  const nRad = A / Math.sqrt(w2);
+  const rc = nRad * cphi;
+  SCRATCH[EX] = rc * clam;
+  SCRATCH[EY] = rc * slam;
+  SCRATCH[EZ] = nRad * ONE_MINUS_E2 * sphi;
 }
 
 /** Length of one segment by the route's method (chord formula or exact inverse). */
@@ -141,15 +190,10 @@ export interface RoutePosition {
   segment: number;
 }
 
-// geodetic()'s local frame at the point: sin and cos of its latitude and longitude
-let frameSinLat = 0;
-let frameCosLat = 1;
-let frameSinLon = 0;
-let frameCosLon = 1;
 
 /**
  * ECEF → geodetic latitude and longitude (degrees; longitude in [−180°, 180°], not normalised)
- * into outLat/outLon, by Bowring's closed form (1976): the parametric latitude β of the point,
+ * into SCRATCH[LAT]/SCRATCH[LON], by Bowring's closed form (1976): the parametric latitude β of the point,
  * tan β = a·z / (b·p), then tan φ = (z + e′²·b·sin³β) / (p − e²·a·cos³β). Exact on the ellipsoid;
  * a few metres off it (a chord shorter than 10 km dips at most 2 m below the surface) the error is
  * below 1e-15 rad (tests/unit/geo/geodetic.test.ts). Leaves sin/cos of φ and λ in frame*.
@@ -165,23 +209,23 @@ function geodetic(x: number, y: number, z: number): void {
   const num = z + EP2_B * sb * sb * sb;
   const den = p - E2_A * cb * cb * cb;
   const h = Math.sqrt(num * num + den * den);
-  frameSinLat = num / h;
-  frameCosLat = den / h;
+  SCRATCH[SIN_LAT] = num / h;
+  SCRATCH[COS_LAT] = den / h;
   if (p > 0) {
-    frameSinLon = y / p;
-    frameCosLon = x / p;
+    SCRATCH[SIN_LON] = y / p;
+    SCRATCH[COS_LON] = x / p;
   } else {
-    frameSinLon = Math.sin(lam);
-    frameCosLon = Math.cos(lam);
+    SCRATCH[SIN_LON] = Math.sin(lam);
+    SCRATCH[COS_LON] = Math.cos(lam);
   }
-  outLat = Math.atan2(num, den) / DEG;
-  outLon = lam / DEG;
+  SCRATCH[LAT] = Math.atan2(num, den) / DEG;
+  SCRATCH[LON] = lam / DEG;
 }
 
 /** Geodetic latitude and longitude (degrees) of an Earth-centred point within a few metres of the WGS84 surface (Bowring's closed form). */
 export function ecefToGeodetic(x: number, y: number, z: number): { lat: number; lon: number } {
   geodetic(x, y, z);
-  return { lat: outLat, lon: normalizeLon(outLon) };
+  return { lat: SCRATCH[LAT], lon: normalizeLon(SCRATCH[LON]) };
 }
 
 /** Index i of the segment [i, i+1] holding distance d (binary search; cumulative is non-decreasing). */
@@ -216,7 +260,8 @@ function longSegmentAzimuth(route: PreparedRoute, i: number): number {
   }
   let azi = m.get(i);
   if (azi === undefined) {
-    azi = geodesicInverse(route.lat[i], route.lon[i], route.lat[i + 1], route.lon[i + 1]).azi1;
+    const c = route.coords;
+    azi = geodesicInverse(c[2 * i + 1], c[2 * i], c[2 * i + 3], c[2 * i + 2]).azi1;
     m.set(i, azi);
   }
   return azi;
@@ -225,56 +270,67 @@ function longSegmentAzimuth(route: PreparedRoute, i: number): number {
 /** Position and bearing at one distance from the route's start. */
 export function positionAt(route: PreparedRoute, distanceMetres: number, segmentHint?: number): RoutePosition {
   const d = Math.min(Math.max(distanceMetres, 0), route.totalMetres);
-  const i = route.lon.length === 1 ? 0 : (segmentHint ?? segmentIndexAt(route, d));
+  const i = route.vertexCount === 1 ? 0 : (segmentHint ?? segmentIndexAt(route, d));
   placeAt(route, d, i);
-  return { distanceMetres: d, lon: outLon, lat: outLat, bearing: outBearing, segment: i };
+  return { distanceMetres: d, lon: SCRATCH[LON], lat: SCRATCH[LAT], bearing: SCRATCH[BEARING], segment: i };
 }
 
-// placeAt's result (module scratch, so that placing many markers allocates nothing)
-let outLon = 0;
-let outLat = 0;
-let outBearing = 0;
-
-/** Position and bearing at distance d (already clamped) inside segment i, into outLon/outLat/outBearing. */
+/** Position and bearing at distance d (already clamped) inside segment i, into SCRATCH[LON]/SCRATCH[LAT]/SCRATCH[BEARING]. */
 function placeAt(route: PreparedRoute, d: number, i: number): void {
-  if (route.lon.length === 1) {
-    outLon = route.lon[0];
-    outLat = route.lat[0];
-    outBearing = 0;
+  const c = route.coords;
+  if (route.vertexCount === 1) {
+    SCRATCH[LON] = c[0];
+    SCRATCH[LAT] = c[1];
+    SCRATCH[BEARING] = 0;
     return;
   }
   const cum = route.cumulative;
   const segLen = cum[i + 1] - cum[i];
   const along = d - cum[i];
-  // both ends' ECEF, exactly as prepareRoute computed them
+  // both ends' ECEF, exactly as prepareRoute computed them: kept, or computed again
   const e = route.ecef;
-  const k = 3 * i;
-  const x1 = e[k];
-  const y1 = e[k + 1];
-  const z1 = e[k + 2];
-  const dx = e[k + 3] - x1;
-  const dy = e[k + 4] - y1;
-  const dz = e[k + 5] - z1;
+  let x1: number, y1: number, z1: number, dx: number, dy: number, dz: number;
+  if (e !== undefined) {
+    const k = 3 * i;
+    x1 = e[k];
+    y1 = e[k + 1];
+    z1 = e[k + 2];
+    dx = e[k + 3] - x1;
+    dy = e[k + 4] - y1;
+    dz = e[k + 5] - z1;
+  } else {
+    vertexEcef(c[2 * i + 2], c[2 * i + 3]);
+    const x2 = SCRATCH[EX];
+    const y2 = SCRATCH[EY];
+    const z2 = SCRATCH[EZ];
+    vertexEcef(c[2 * i], c[2 * i + 1]);
+    x1 = SCRATCH[EX];
+    y1 = SCRATCH[EY];
+    z1 = SCRATCH[EZ];
+    dx = x2 - x1;
+    dy = y2 - y1;
+    dz = z2 - z1;
+  }
   const c2 = dx * dx + dy * dy + dz * dz;
   if (along <= 0) {
-    outLon = route.lon[i];
-    outLat = route.lat[i];
-    outBearing = vertexBearing(outLat, outLon, dx, dy, dz, c2);
+    SCRATCH[LON] = c[2 * i];
+    SCRATCH[LAT] = c[2 * i + 1];
+    SCRATCH[BEARING] = vertexBearing(SCRATCH[LAT], SCRATCH[LON], dx, dy, dz, c2);
     return;
   }
   if (along >= segLen) {
-    outLon = route.lon[i + 1];
-    outLat = route.lat[i + 1];
-    outBearing = vertexBearing(outLat, outLon, dx, dy, dz, c2);
+    SCRATCH[LON] = c[2 * i + 2];
+    SCRATCH[LAT] = c[2 * i + 3];
+    SCRATCH[BEARING] = vertexBearing(SCRATCH[LAT], SCRATCH[LON], dx, dy, dz, c2);
     return;
   }
   if (Math.sqrt(c2) >= CHORD_LIMIT_M) {
     // the test prepareRoute made on the same numbers: a segment it solved exactly
     const azi1 = longSegmentAzimuth(route, i);
-    const r = geodesicDirect(route.lat[i], route.lon[i], azi1, along);
-    outLon = r.lon2;
-    outLat = r.lat2;
-    outBearing = r.azi2;
+    const r = geodesicDirect(c[2 * i + 1], c[2 * i], azi1, along);
+    SCRATCH[LON] = r.lon2;
+    SCRATCH[LAT] = r.lat2;
+    SCRATCH[BEARING] = r.azi2;
     return;
   }
   // chord fraction corresponding to arc fraction t on a curve of radius R, R² = M·N at the chord's
@@ -290,14 +346,14 @@ function placeAt(route: PreparedRoute, d: number, i: number): void {
   const v = u * u - 1;
   const t = (u * (1 + v * th2 * (1 / 3 + ((6 * u * u + 1) * th2) / 45)) + 1) / 2;
   geodetic(x1 + t * dx, y1 + t * dy, z1 + t * dz);
-  if (outLon > 180 || outLon <= -180) outLon = normalizeLon(outLon);
-  outBearing = frameBearing(dx, dy, dz);
+  if (SCRATCH[LON] > 180 || SCRATCH[LON] <= -180) SCRATCH[LON] = normalizeLon(SCRATCH[LON]);
+  SCRATCH[BEARING] = frameBearing(dx, dy, dz);
 }
 
 /** Direction of the chord (dx, dy, dz) in the local east/north frame held in frame*, degrees from north. */
 function frameBearing(dx: number, dy: number, dz: number): number {
-  const east = -frameSinLon * dx + frameCosLon * dy;
-  const north = -frameSinLat * (frameCosLon * dx + frameSinLon * dy) + frameCosLat * dz;
+  const east = -SCRATCH[SIN_LON] * dx + SCRATCH[COS_LON] * dy;
+  const north = -SCRATCH[SIN_LAT] * (SCRATCH[COS_LON] * dx + SCRATCH[SIN_LON] * dy) + SCRATCH[COS_LAT] * dz;
   const b = Math.atan2(east, north) / DEG;
   return b < 0 || b >= 360 ? normalizeAzimuth(b) : b;
 }
@@ -305,10 +361,10 @@ function frameBearing(dx: number, dy: number, dz: number): number {
 /** Direction of the chord (dx, dy, dz; squared length c2) at a vertex (lat, lon), degrees from north. */
 function vertexBearing(lat: number, lon: number, dx: number, dy: number, dz: number, c2: number): number {
   if (!(c2 > 0)) return 0;
-  frameSinLat = Math.sin(lat * DEG);
-  frameCosLat = Math.cos(lat * DEG);
-  frameSinLon = Math.sin(lon * DEG);
-  frameCosLon = Math.cos(lon * DEG);
+  SCRATCH[SIN_LAT] = Math.sin(lat * DEG);
+  SCRATCH[COS_LAT] = Math.cos(lat * DEG);
+  SCRATCH[SIN_LON] = Math.sin(lon * DEG);
+  SCRATCH[COS_LON] = Math.cos(lon * DEG);
   return frameBearing(dx, dy, dz);
 }
 
@@ -370,9 +426,9 @@ export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>
       i = seg;
     }
     placeAt(route, d, i);
-    out.lon[k] = outLon;
-    out.lat[k] = outLat;
-    out.bearing[k] = outBearing;
+    out.lon[k] = SCRATCH[LON];
+    out.lat[k] = SCRATCH[LAT];
+    out.bearing[k] = SCRATCH[BEARING];
     if (out.segment) out.segment[k] = i;
   }
   return out;

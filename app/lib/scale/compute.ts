@@ -49,7 +49,8 @@ export interface PointResult {
   /** Direction of travel along the route at the marker, degrees clockwise from true north. */
   bearing?: number;
   walking?: Walking;
-  insets: InsetPlacement[];
+  /** The marker on each inset that shows it (one shared empty list when none does). */
+  insets: readonly InsetPlacement[];
 }
 
 /** A duration on one inset's scale. */
@@ -147,6 +148,9 @@ export interface ComputeOptions {
   /** The points' ages and ± already converted to years (the composer converts its markers once, not on every keystroke). */
   pointYears?: PointYears;
 }
+
+/** A point on no inset: one list for all of them (most markers lie outside every inset). */
+const NO_INSETS: readonly InsetPlacement[] = Object.freeze([]);
 
 const ROUTE_CAUTION =
   "Planning figures, not a survey: walk the route first for hazards and accessibility, get the landowner's and authority's permission, and follow local codes for sign installation.";
@@ -256,9 +260,10 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     const uncYears = uy !== null && uy > 0 ? uy : null;
     const fromOlder = (olderYears - a) * mpy;
     const fromYounger = (a - youngerYears) * mpy;
-    const placements: InsetPlacement[] = [];
+    let placements: InsetPlacement[] | null = null;
     for (const ins of insets) {
       if (a <= ins.olderYears && a >= ins.youngerYears) {
+        placements ??= [];
         const impy = mpy * ins.magnification;
         const fo = (ins.olderYears - a) * impy;
         const fy = (a - ins.youngerYears) * impy;
@@ -287,7 +292,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
           fromYoungerEndMetres: clean(fromYounger),
           uncertaintyMetres,
           display,
-          insets: placements,
+          insets: placements ?? NO_INSETS,
           position: { lon: placed.lon[i], lat: placed.lat[i] },
           bearing: Math.round(placed.bearing[i] * 1e6) / 1e6,
           walking: walkingAt(placed.ds[i], placed.speeds),
@@ -302,7 +307,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
           fromYoungerEndMetres: clean(fromYounger),
           uncertaintyMetres,
           display,
-          insets: placements,
+          insets: placements ?? NO_INSETS,
           label,
         };
     if (label === undefined) delete points[i].label; // the last field: V8 keeps the object fast
@@ -375,7 +380,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
   };
   if (route) {
     result.scale.route = {
-      vertexCount: route.lon.length,
+      vertexCount: route.vertexCount,
       lengthMetres: clean(route.totalMetres),
       start: routeStart,
       walkingSpeedMps: walkingSpeed,

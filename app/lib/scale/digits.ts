@@ -44,18 +44,47 @@ function fractionText(f: number, d: number, suffix: string): string {
   return table[f];
 }
 
-/** The text of the integer n / 10^d with d decimals and thousands separators, then `suffix` (few intermediate strings). */
-export function digits(n: number, d: number, negative: boolean, suffix = ""): string {
+/**
+ * The whole part of a figure with its thousands separators, "4,501" (or "± 4,501"), for
+ * 0 ≤ i < WHOLE_CACHED: made once per value and kept (the labels on one medium share a few hundred
+ * whole parts, so a label is one concatenation of two kept strings).
+ */
+const WHOLE_CACHED = 100_000;
+const WHOLE_TEXT: (string | undefined)[] = [];
+const PLUS_MINUS_WHOLE_TEXT: (string | undefined)[] = [];
+function wholeText(i: number, plusMinus: boolean): string {
+  if (i >= WHOLE_CACHED) return plusMinus ? "± " + group(String(i)) : group(String(i));
+  const table = plusMinus ? PLUS_MINUS_WHOLE_TEXT : WHOLE_TEXT;
+  const known = table[i];
+  if (known !== undefined) return known;
+  while (table.length < i) table.push(undefined); // filled in order: the array stays dense
+  const text = i < 1000 ? String(i) : group(String(i));
+  return (table[i] = plusMinus ? "± " + text : text);
+}
+
+/**
+ * The text of the integer n / 10^d with d decimals and thousands separators, then `suffix` (few
+ * intermediate strings); `plusMinus` puts "± " before it (an uncertainty, never negative).
+ */
+export function digits(n: number, d: number, negative: boolean, suffix = "", plusMinus = false): string {
   const sign = negative && n !== 0 ? "−" : "";
-  if (d === 0) return (n < 1000 ? sign + n : sign + group(String(n))) + suffix;
+  if (d === 0) return (plusMinus ? "± " : "") + (n < 1000 ? sign + n : sign + group(String(n))) + suffix;
   const p = pow10(d);
   const i = Math.floor(n / p);
   const f = n - i * p;
-  const int = i < 1000 ? String(i) : group(String(i));
-  if (d <= 3) return sign + int + fractionText(f, d, suffix);
-  if (f >= p / 10) return `${sign}${int}.${f}${suffix}`;
+  if (plusMinus && sign === "") {
+    const pm = wholeText(i, true);
+    return d <= 3 ? pm + fractionText(f, d, suffix) : pm + fractionTail(f, d, suffix);
+  }
+  const int = wholeText(i, false);
+  if (plusMinus) return "± " + sign + int + (d <= 3 ? fractionText(f, d, suffix) : fractionTail(f, d, suffix));
+  return sign + int + (d <= 3 ? fractionText(f, d, suffix) : fractionTail(f, d, suffix));
+}
+
+/** ".000123 m": the decimal part f of d > 3 decimals, with its leading zeros, then the suffix. */
+function fractionTail(f: number, d: number, suffix: string): string {
   const frac = String(f);
-  return `${sign}${int}.${d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)}${frac}${suffix}`;
+  return "." + (d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)) + frac + suffix;
 }
 
 function formatFixedSlow(x: number, d: number): string {

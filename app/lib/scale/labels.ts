@@ -96,13 +96,13 @@ function gridValue(y: number, decimals: number, q: number, up: boolean): number 
   return value === 0 ? 0 : value;
 }
 
-/** The same distance's text, with thousands separators ("4,501.00"), then `suffix` (" km"). */
-function gridText(y: number, decimals: number, q: number, up: boolean, suffix = ""): string {
+/** The same distance's text, with thousands separators ("4,501.00"), then `suffix` (" km"); `plusMinus`: "± " first. */
+function gridText(y: number, decimals: number, q: number, up: boolean, suffix = "", plusMinus = false): string {
   if (decimals > 0) {
     const n = up ? Math.ceil(Math.abs(y) * pow10(decimals) - 1e-9) : scaledInteger(Math.abs(y), decimals);
-    if (n >= 0) return digits(n, decimals, y < 0, suffix);
+    if (n >= 0) return digits(n, decimals, y < 0, suffix, plusMinus);
   }
-  return formatFixed(gridValue(y, decimals, q, up), decimals) + suffix;
+  return (plusMinus ? "± " : "") + formatFixed(gridValue(y, decimals, q, up), decimals) + suffix;
 }
 
 /** Round a distance at a step and express it in a unit without implying more precision than the step. */
@@ -183,7 +183,7 @@ function labelOnGrid(
     const place = pow10(uncertaintyPlace(uncertaintyMetres));
     const uStep = (place < stepMetres ? place : stepMetres) / uf;
     const uDecimals = decimalsFor(uStep);
-    unc = "± " + gridText(uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix);
+    unc = gridText(uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix, true);
   }
   return {
     fromOlderEnd: gridText(fromOlder / uf, decimals, q, false, suffix),

@@ -61,12 +61,13 @@ export function walkingAt(d: number, w: WalkingSettings): Walking {
 }
 
 // The preview writes these texts for every marker on every keystroke. Their parts take a few
-// hundred values, so each is made once (by format.ts's formatDuration and formatCountTwoFigures)
-// and kept in a table by value; tests/unit/geo/walking-text.test.ts checks them against format.ts.
+// thousand values, so each is made once (by format.ts's formatDuration and formatCountTwoFigures)
+// and kept in a table by value, and so are the sentence's two halves (the times, the steps), keyed
+// by their parts' slots; tests/unit/geo/walking-text.test.ts checks them against format.ts.
 
-const MINUTES_CACHED = 6000; // 100 hours
-const DURATIONS_CACHED = 61 + MINUTES_CACHED;
-/** A duration's cache slot: whole seconds under a minute (0–60), then whole minutes + 61; −1 past 100 hours. */
+const MINUTES_CACHED = 30_000; // 500 hours
+const DURATIONS_CACHED = 61 + MINUTES_CACHED; // < 2^15: two slots make one small-integer key
+/** A duration's cache slot: whole seconds under a minute (0–60), then whole minutes + 61; −1 from 500 hours. */
 function durationKey(seconds: number): number {
   if (seconds < 60) {
     const s = Math.round(seconds);
@@ -84,9 +85,29 @@ export function formatDurationCached(seconds: number): string {
   return DURATION_TEXT[k] ?? (DURATION_TEXT[k] = formatDuration(seconds));
 }
 
+/** Texts kept by small-integer key: a table is emptied when it reaches this size (an exhibit meets far fewer keys). */
+const TABLE_LIMIT = 1 << 16;
+
+/** The times half of the sentence for each slow-speed wording ("0.9 m/s"), by the two durations' slots. */
+const TIMES_TEXT = new Map<string, Map<number, string>>();
+
 /** "12 min walk (16 min at 0.9 m/s), " */
 function timesText(seconds: number, slowSeconds: number, speedText: string): string {
-  return formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
+  const a = durationKey(seconds);
+  const b = durationKey(slowSeconds);
+  let table: Map<number, string> | undefined;
+  if (a >= 0 && b >= 0) {
+    table = TIMES_TEXT.get(speedText);
+    if (table === undefined) TIMES_TEXT.set(speedText, (table = new Map()));
+    const known = table.get(a * 32_768 + b);
+    if (known !== undefined) return known;
+  }
+  const text = formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
+  if (table !== undefined) {
+    if (table.size >= TABLE_LIMIT) table.clear();
+    table.set(a * 32_768 + b, text);
+  }
+  return text;
 }
 
 /** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */
@@ -101,7 +122,7 @@ function countKey(n: number): number {
   }
   return 100 + k * 101 + Math.round(n / p);
 }
-const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53
+const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53; < 2^11
 const COUNT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
 
 /** formatCountTwoFigures(n) of format.ts for a count n ≥ 0, from a cache: 6,009 → "6,000". */
@@ -111,8 +132,23 @@ export function formatCountTwoFiguresCached(n: number): string {
   return COUNT_TEXT[k] ?? (COUNT_TEXT[k] = formatCountTwoFigures(n));
 }
 
+/** The steps half of the sentence, by the two counts' slots (a single count and a range are keyed apart). */
+const STEPS_TEXT = new Map<number, string>();
+
 /** "about 1,100–1,300 steps", or "about 1,100 steps" for one count. A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900". */
 function stepsText(steps: number, stepsUpTo: number): string {
+  const a = countKey(steps);
+  const b = countKey(stepsUpTo);
+  const key = a < 0 || b < 0 ? -1 : steps === stepsUpTo ? a : (a + 1) * 2048 + b;
+  if (key >= 0) {
+    const known = STEPS_TEXT.get(key);
+    if (known !== undefined) return known;
+  }
   const low = formatCountTwoFiguresCached(steps);
-  return steps === stepsUpTo ? "about " + low + " steps" : "about " + low + "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps";
+  const text = steps === stepsUpTo ? "about " + low + " steps" : "about " + low + "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps";
+  if (key >= 0) {
+    if (STEPS_TEXT.size >= TABLE_LIMIT) STEPS_TEXT.clear();
+    STEPS_TEXT.set(key, text);
+  }
+  return text;
 }

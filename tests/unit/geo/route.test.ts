@@ -162,3 +162,29 @@ describe("prepared route queries", () => {
     expect(prepareRoute([0, 45, 0.1, 45]).longSegments).toBe(0); // about 7.9 km
   });
 });
+
+describe("a route prepared for repeated queries", () => {
+  it("places every marker exactly where a one-off route does (kept ECEF = recomputed ECEF), with the same lengths", async () => {
+    const { prepareRoute, positionsAt } = await import("../../../app/lib/geo/route");
+    let s = 11;
+    const rand = () => (s = (s * 16807) % 2147483647) / 2147483647;
+    for (const [lon0, lat0] of [[-2.9, 54.2], [179.9995, -33.1], [12.5, 89.9], [-70, 0]]) {
+      const coords: number[] = [];
+      let lon = lon0;
+      let lat = lat0;
+      for (let i = 0; i < 2000; i++) {
+        coords.push(lon, lat);
+        lon += (rand() - 0.5) * (i % 97 === 0 ? 0.3 : 1e-4); // a few segments longer than 10 km
+        lat = Math.max(-90, Math.min(90, lat + (rand() - 0.5) * 1e-4));
+        if (lon > 180) lon -= 360;
+      }
+      const once = prepareRoute(coords);
+      const kept = prepareRoute(coords, { repeatedQueries: true });
+      expect(kept.ecef).toBeInstanceOf(Float64Array);
+      expect(once.ecef).toBeUndefined();
+      expect(Array.from(kept.cumulative)).toEqual(Array.from(once.cumulative));
+      const ds = Array.from({ length: 500 }, () => rand() * once.totalMetres).concat([0, once.totalMetres, once.cumulative[7]]);
+      expect(positionsAt(kept, ds)).toEqual(positionsAt(once, ds));
+    }
+  });
+});
