@@ -17,13 +17,16 @@ function sentence(d: number, w: WalkingSettings): string {
 }
 
 describe("cached walking texts", () => {
-  it("formatDurationCached is formatDuration for every second up to 110 hours, around each rounding edge and far beyond", () => {
+  it("formatDurationCached is formatDuration for every second up to 110 hours, every 7 s to 510 hours, around each rounding edge and far beyond", () => {
     const wrong: number[] = [];
     for (let s = 0; s < 110 * 3600; s += 1) {
       for (const x of [s, s + 0.5, s + 0.4999999]) if (formatDurationCached(x) !== formatDuration(x)) wrong.push(x);
     }
     expect(wrong).toEqual([]);
-    for (const s of [29.5, 59.49, 59.5, 59.99, 60, 89.99, 90, 3569.99, 3570, 359_970, 359_969.9, 1e9, -0.3, -0, NaN, Infinity]) {
+    // the table reaches 500 hours: every 7 s up to 510 h, and each side of its end
+    for (let s = 110 * 3600; s < 510 * 3600; s += 7) if (formatDurationCached(s) !== formatDuration(s)) wrong.push(s);
+    expect(wrong).toEqual([]);
+    for (const s of [29.5, 59.49, 59.5, 59.99, 60, 89.99, 90, 3569.99, 3570, 359_970, 359_969.9, 1_799_969.9, 1_799_970, 1_800_000, 1e9, -0.3, -0, NaN, Infinity]) {
       expect(formatDurationCached(s), String(s)).toBe(formatDuration(s));
     }
   }, 30_000);

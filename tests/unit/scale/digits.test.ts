@@ -1,0 +1,39 @@
+// digits.ts keeps the whole parts of figures it has written (and "± " wholes): every figure must
+// still read as toFixed writes it, with thousands separators, whichever was asked first.
+import { describe, expect, it } from "vitest";
+import { digits, formatFixed } from "../../../app/lib/scale/digits";
+
+/** The reference: toFixed's digits, the whole part grouped by threes, "−" for minus. */
+function reference(x: number, d: number): string {
+  const s = Math.abs(x).toFixed(d);
+  const [whole, frac] = s.split(".");
+  const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ",");
+  return (x < 0 && Number(s) !== 0 ? "−" : "") + grouped + (frac === undefined ? "" : "." + frac);
+}
+
+describe("figures from kept whole parts", () => {
+  it("formatFixed reads as toFixed around the end of the kept range (99,999 → 100,000) and far from it", () => {
+    const wrong: string[] = [];
+    for (const base of [0, 7, 999, 1000, 99_990, 99_999, 100_000, 100_001, 4_501_000, 123_456_789]) {
+      for (let k = -3; k < 30; k++) {
+        for (const d of [1, 2, 3, 5]) {
+          const x = base + k * 0.37;
+          for (const v of [x, -x]) if (formatFixed(v, d) !== reference(v, d)) wrong.push(`${v} ${d}`);
+        }
+      }
+    }
+    expect(wrong).toEqual([]);
+  });
+
+  it("a ± and a plain figure with the same whole part do not share text", () => {
+    // asked in both orders, so neither table can answer for the other
+    expect(digits(4_501_25, 2, false, " km", true)).toBe("± 4,501.25 km");
+    expect(digits(4_501_25, 2, false, " km")).toBe("4,501.25 km");
+    expect(digits(7_05, 2, false, " m")).toBe("7.05 m");
+    expect(digits(7_05, 2, false, " m", true)).toBe("± 7.05 m");
+    expect(digits(123_456_789_0, 1, false, " ft", true)).toBe("± 123,456,789.0 ft");
+    expect(digits(12_345_678, 4, false, " m", true)).toBe("± 1,234.5678 m");
+    expect(digits(12_0, 1, true, " m", true)).toBe("± −12.0 m");
+    expect(digits(5, 0, false, " cm", true)).toBe("± 5 cm");
+  });
+});
