@@ -1,7 +1,7 @@
 // Pure parts of the input limits: control characters, slugs from any script, GeoJSON depth.
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { nestingExceeds, parseGeoJsonRoute } from "../../app/lib/geo/parse";
+import { DEPTH_MESSAGE, nestingExceeds, parseGeoJsonRoute } from "../../app/lib/geo/parse";
 import { MAX_GEOJSON_DEPTH } from "../../app/lib/limits";
 import { slugify } from "../../app/lib/slug";
 import { controlCharacterPath, parseForm } from "../../app/lib/validation";
@@ -65,6 +65,39 @@ describe("GeoJSON nesting depth", () => {
     expect(nestingExceeds({ a: nested(MAX_GEOJSON_DEPTH - 1) }, MAX_GEOJSON_DEPTH)).toBe(true);
     expect(nestingExceeds([[], {}, [1, null, "x"]], 2)).toBe(false);
     expect(nestingExceeds([[[]]], 2)).toBe(true);
+  });
+
+  it("the route's positions are checked as they are read, with the same answer as the whole-input check", () => {
+    const line = (extra: unknown, at = 1) => ({ type: "LineString", coordinates: [[0, 0], at === 1 ? [0, 0.01, extra] : [0, 0.01], [0, 0.02, ...(at === 2 ? [extra] : [])]] });
+    const wrap = (g: unknown, levels: number): unknown => (levels === 0 ? g : { type: "Feature", properties: null, geometry: wrap(g, levels - 1) });
+    const cases: unknown[] = [];
+    // a LineString's position is level 3: its third element may hold 32 − 3 more levels, not one more
+    for (const d of [MAX_GEOJSON_DEPTH - 5, MAX_GEOJSON_DEPTH - 4, MAX_GEOJSON_DEPTH - 3, MAX_GEOJSON_DEPTH - 2]) cases.push(line(nested(d)), line(nested(d), 2));
+    // the same inside Features, a FeatureCollection and a MultiLineString
+    for (const levels of [0, 1, 5, 13, 14, 15]) {
+      cases.push(wrap(line(nested(4)), levels), wrap({ type: "MultiLineString", coordinates: [[[0, 0], [1, 1, nested(MAX_GEOJSON_DEPTH - 6 - levels)]]] }, levels));
+      cases.push({ type: "FeatureCollection", features: [wrap(line(nested(MAX_GEOJSON_DEPTH - 6 - 2 * levels)), levels)] });
+    }
+    // deep properties beside a good line; a deep position after 25 bad ones; a too-long route with a deep position
+    cases.push({ type: "Feature", properties: { a: nested(MAX_GEOJSON_DEPTH - 3) }, geometry: line(1) }, { type: "Feature", properties: { a: nested(MAX_GEOJSON_DEPTH - 2) }, geometry: line(1) });
+    cases.push({ type: "LineString", coordinates: [...Array.from({ length: 25 }, () => [500, 0]), [0, 0, nested(40)]] });
+    cases.push({ type: "LineString", coordinates: [...Array.from({ length: 25 }, () => [500, 0]), [0, 0, nested(20)]] });
+    let deep = 0;
+    for (const c of cases) {
+      const r = parseGeoJsonRoute(c, "g", { maxVertices: 20 });
+      const refused = !r.ok && r.issues.length === 1 && r.issues[0].message === DEPTH_MESSAGE;
+      expect(refused, JSON.stringify(c).slice(0, 200)).toBe(nestingExceeds(c, MAX_GEOJSON_DEPTH));
+      if (refused) deep++;
+    }
+    expect(deep).toBeGreaterThanOrEqual(6);
+    expect(cases.length - deep).toBeGreaterThan(8);
+  });
+
+  it("20,000 levels of Features are refused without recursion", () => {
+    let g: unknown = { type: "LineString", coordinates: [[0, 0], [0, 1]] };
+    for (let i = 0; i < 20_000; i++) g = { type: "Feature", properties: null, geometry: g };
+    const r = parseGeoJsonRoute(g, "g");
+    expect(r).toEqual({ ok: false, issues: [{ path: "g", message: DEPTH_MESSAGE }] });
   });
 
   it("a FeatureCollection of MultiLineStrings is well within the bound", () => {

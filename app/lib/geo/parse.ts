@@ -40,6 +40,8 @@ interface Collector {
   lines: { path: string; coords: unknown[] }[];
   issues: RouteIssue[];
   skippedPoints: number;
+  /** A geometry nested deeper than MAX_GEOJSON_DEPTH was met (and not followed). */
+  tooDeep: boolean;
 }
 
 const LINE_TYPES = new Set<unknown>(["LineString", "MultiLineString"]);
@@ -49,7 +51,12 @@ const geometryTypeOf = (f: unknown): unknown => (isObject(f) ? (f.type === "Feat
 /** "1 track", "3 routes". */
 const count = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
 
-function collectGeometry(geom: unknown, path: string, out: Collector): void {
+/** Collect the lines of a geometry at nesting level `depth` (the input is level 1); not below MAX_GEOJSON_DEPTH. */
+function collectGeometry(geom: unknown, path: string, out: Collector, depth: number): void {
+  if (depth > MAX_GEOJSON_DEPTH) {
+    out.tooDeep = true;
+    return;
+  }
   if (!isObject(geom)) {
     out.issues.push({ path, message: "Expected a GeoJSON geometry object (LineString or MultiLineString)." });
     return;
@@ -75,7 +82,7 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
       else out.lines.push({ path: p, coords: part });
     });
   } else if (type === "Feature") {
-    collectGeometry(geom.geometry, join(path, "geometry"), out);
+    collectGeometry(geom.geometry, join(path, "geometry"), out, depth + 1);
   } else if (type === "FeatureCollection") {
     if (!Array.isArray(geom.features)) {
       out.issues.push({ path: join(path, "features"), message: "FeatureCollection features must be an array." });
@@ -89,14 +96,14 @@ function collectGeometry(geom: unknown, path: string, out: Collector): void {
     const hasLine = geom.features.some((f) => LINE_TYPES.has(geometryTypeOf(f)));
     geom.features.forEach((f, j) => {
       if (hasLine && POINT_TYPES.has(geometryTypeOf(f))) out.skippedPoints++;
-      else collectGeometry(f, join(join(path, "features"), j), out);
+      else collectGeometry(f, join(join(path, "features"), j), out, depth + 2);
     });
   } else if (type === "GeometryCollection") {
     if (!Array.isArray(geom.geometries)) {
       out.issues.push({ path: join(path, "geometries"), message: "GeometryCollection geometries must be an array." });
       return;
     }
-    geom.geometries.forEach((g, j) => collectGeometry(g, join(join(path, "geometries"), j), out));
+    geom.geometries.forEach((g, j) => collectGeometry(g, join(join(path, "geometries"), j), out, depth + 2));
   } else {
     out.issues.push({
       path: join(path, "type"),
@@ -122,9 +129,12 @@ function isLeafArray(a: unknown[]): boolean {
 /**
  * True when arrays/objects nest deeper than `max` levels (counted without recursion, so any depth
  * is safe). A leaf array (a position) within the limit is checked in place, not stacked: a route of
- * 10⁵ positions allocates nothing per position.
+ * 10⁵ positions allocates nothing per position. The arrays given as keys of `deferred` (a route's
+ * lists of positions) are not looked into: the level each is found at is written into the map, and
+ * the caller checks their positions as it reads them (positionExceeds), so that 10⁵ positions are
+ * read once, not twice.
  */
-export function nestingExceeds(value: unknown, max: number): boolean {
+export function nestingExceeds(value: unknown, max: number, deferred?: Map<unknown, number>): boolean {
   const values: unknown[] = [value];
   const depths: number[] = [1];
   while (values.length) {
@@ -132,6 +142,13 @@ export function nestingExceeds(value: unknown, max: number): boolean {
     const depth = depths.pop()!;
     if (v === null || typeof v !== "object") continue;
     if (depth > max) return true;
+    if (deferred !== undefined) {
+      const seen = deferred.get(v);
+      if (seen !== undefined) {
+        if (depth > seen) deferred.set(v, depth);
+        continue;
+      }
+    }
     const children = Array.isArray(v) ? (v as unknown[]) : Object.values(v);
     for (let i = 0; i < children.length; i++) {
       const child = children[i];
@@ -144,18 +161,32 @@ export function nestingExceeds(value: unknown, max: number): boolean {
   return false;
 }
 
+/** Does one position of a deferred list found at level `listDepth` nest deeper than `max` (as nestingExceeds would find it)? */
+function positionExceeds(pos: unknown, listDepth: number, max: number): boolean {
+  if (pos === null || typeof pos !== "object") return false;
+  if (listDepth < max && Array.isArray(pos) && isLeafArray(pos)) return false;
+  return nestingExceeds(pos, max - listDepth);
+}
+
 /**
  * Validate a GeoJSON route and flatten it to interleaved lon/lat coordinates.
  * `basePath` prefixes every issue path (e.g. "medium.geometry").
  */
 export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteParseOptions = {}): RouteParseResult {
-  if (nestingExceeds(input, MAX_GEOJSON_DEPTH)) return { ok: false, issues: [{ path: basePath, message: DEPTH_MESSAGE }] };
   const maxVertices = options.maxVertices ?? MAX_ROUTE_VERTICES;
-  const out: Collector = { lines: [], issues: [], skippedPoints: 0 };
-  collectGeometry(input, basePath, out);
-  if (out.issues.length > 0) return { ok: false, issues: out.issues.slice(0, MAX_ISSUES) };
+  const out: Collector = { lines: [], issues: [], skippedPoints: 0, tooDeep: false };
+  collectGeometry(input, basePath, out, 1);
+  // the nesting of everything but the positions, which the loop below checks as it reads them
+  const listDepth = new Map<unknown, number>(out.lines.map((l) => [l.coords, 0]));
+  const tooDeep = (): RouteParseResult => ({ ok: false, issues: [{ path: basePath, message: DEPTH_MESSAGE }] });
+  if (out.tooDeep || nestingExceeds(input, MAX_GEOJSON_DEPTH, listDepth)) return tooDeep();
   let total = 0;
   for (const l of out.lines) total += l.coords.length;
+  if (out.issues.length > 0 || total > maxVertices) {
+    // a position nested too deep is the first thing to say
+    for (const l of out.lines) for (const pos of l.coords) if (positionExceeds(pos, listDepth.get(l.coords)!, MAX_GEOJSON_DEPTH)) return tooDeep();
+  }
+  if (out.issues.length > 0) return { ok: false, issues: out.issues.slice(0, MAX_ISSUES) };
   if (total > maxVertices) {
     return {
       ok: false,
@@ -171,20 +202,27 @@ export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteP
   let k = 0;
   const issues: RouteIssue[] = [];
   for (const line of out.lines) {
+    const depth = listDepth.get(line.coords)!;
     for (let j = 0; j < line.coords.length; j++) {
       const pos = line.coords[j];
       // the path is spelled out only for an issue (10⁵ vertices: no string, no closure per valid vertex)
       if (Array.isArray(pos) && pos.length >= 2) {
         const lon = pos[0];
         const lat = pos[1];
-        // the usual case in one test (NaN and ±Infinity fail the ranges); anything else is looked at below
-        if (typeof lon === "number" && typeof lat === "number" && lon >= -180 && lon <= 180 && lat >= -90 && lat <= 90) {
+        // the usual case in one test (NaN and ±Infinity fail the ranges; a third number is an
+        // elevation); anything else is looked at below
+        if (
+          typeof lon === "number" && typeof lat === "number" && lon >= -180 && lon <= 180 && lat >= -90 && lat <= 90 &&
+          (pos.length === 2 || (pos.length === 3 && typeof pos[2] !== "object")) && depth < MAX_GEOJSON_DEPTH
+        ) {
           coords[k] = lon;
           coords[k + 1] = lat;
           k += 2;
           continue;
         }
       }
+      if (positionExceeds(pos, depth, MAX_GEOJSON_DEPTH)) return tooDeep();
+      if (issues.length >= MAX_ISSUES) continue; // enough to report: only the nesting is still looked at
       if (!Array.isArray(pos) || pos.length < 2) {
         issues.push({ path: join(line.path, j), message: "A position must be an array [longitude, latitude] (optionally with elevation)." });
       } else {
@@ -204,9 +242,9 @@ export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteP
         coords[k + 1] = lat as number;
       }
       k += 2;
-      if (issues.length >= MAX_ISSUES) return { ok: false, issues };
     }
   }
+  if (issues.length > MAX_ISSUES) issues.length = MAX_ISSUES;
   if (issues.length > 0) return { ok: false, issues };
   // at least two distinct points
   let distinct = false;
