@@ -44,18 +44,25 @@ function markers(n: number): ResolvedMarker[] {
  * Each function runs in its own block (warm-up, then `runs` timed calls) so that one function's
  * garbage is not collected during another's; the blocks go round `rounds` times (a, b, c, a, b, c …)
  * so that a busy machine slows every figure alike. The figure is the median over all timed calls.
+ *
+ * Each block starts after a full collection, which leaves V8's young generation small: for the next
+ * few dozen calls, a function that allocates a megabyte per call (a 1,000-marker result) runs 1.5–3×
+ * slower while the young generation grows back (tests/bench/README.md). A designer's typing meets
+ * the steady state, so each block warms up for at least 60 calls and 100 ms before it is timed.
  */
 function blocks(fs: Record<string, () => unknown>, runs: number, rounds = 5): Record<string, number> {
   const times: Record<string, number[]> = Object.fromEntries(Object.keys(fs).map((k) => [k, []]));
   for (let r = 0; r < rounds; r++) {
     for (const [k, f] of Object.entries(fs)) {
       (globalThis as { gc?: () => void }).gc?.();
-      for (let w = 0; w < Math.min(5, runs); w++) f();
+      const warm = performance.now();
+      for (let w = 0; w < 60 || performance.now() - warm < 100; w++) f();
       for (let i = 0; i < runs; i++) {
         const s = performance.now();
         f();
         times[k].push(performance.now() - s);
       }
+      if (process.env.BENCH_ROUNDS) console.log(r, k, times[k].slice(-runs).sort((a, b) => a - b)[runs >> 1].toFixed(3));
     }
   }
   return Object.fromEntries(Object.entries(times).map(([k, t]) => [k, t.sort((a, b) => a - b)[Math.floor(t.length / 2)]]));
