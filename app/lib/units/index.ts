@@ -119,6 +119,11 @@ export function roundScaled(a: number, k: number): number {
   const b = POW10[k + 30];
   const p = a * b;
   if (!(p < 4e15) || k < 0 || k > 22) return -1;
+  const fl = Math.floor(p);
+  const d = p - fl - 0.5; // exact
+  // fl + ½ is a double (p < 2⁵²) and rounding to nearest is monotonic: when p lies above it (below
+  // it) the exact product does too. Only p landing on the half itself needs the exact product.
+  if (d !== 0) return d > 0 ? fl + 1 : fl;
   let t = SPLIT * a;
   const ah = t - (t - a);
   const al = a - ah;
@@ -126,8 +131,6 @@ export function roundScaled(a: number, k: number): number {
   const bh = t - (t - b);
   const bl = b - bh;
   const err = ah * bh - p + ah * bl + al * bh + al * bl; // exact product = p + err
-  const fl = Math.floor(p);
-  const d = p - fl - 0.5; // exact
   if (d > -err) return fl + 1;
   if (d < -err) return fl;
   return -1;
