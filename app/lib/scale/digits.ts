@@ -27,15 +27,21 @@ const ZEROS = ["", "0", "00", "000", "0000", "00000", "000000", "0000000", "0000
 /**
  * The decimal part of a figure with its unit, ".05 m" for (5, 2, " m"): made once per number of
  * decimals (up to three) and unit, so that a label is one concatenation of whole part and table entry.
- * Suffixes are the few fixed unit words ("" or " m", " ft", …), so the tables stay small.
+ * Suffixes are the few fixed unit words ("" or " m", " ft", …), found by a short scan (they are the
+ * same string objects every time, so each comparison is one check), not a hash lookup.
  */
-const FRACTIONS = new Map<string, string[][]>();
+const FRACTION_SUFFIXES: string[] = [];
+const FRACTION_TABLES: string[][][] = [];
+const MAX_SUFFIXES = 16;
 function fractionText(f: number, d: number, suffix: string): string {
-  let byDecimals = FRACTIONS.get(suffix);
-  if (!byDecimals) {
-    byDecimals = [];
-    FRACTIONS.set(suffix, byDecimals);
+  let s = 0;
+  while (s < FRACTION_SUFFIXES.length && FRACTION_SUFFIXES[s] !== suffix) s++;
+  if (s === FRACTION_SUFFIXES.length) {
+    if (s >= MAX_SUFFIXES) return "." + String(f).padStart(d, "0") + suffix; // not one of the unit words
+    FRACTION_SUFFIXES.push(suffix);
+    FRACTION_TABLES.push([]);
   }
+  const byDecimals = FRACTION_TABLES[s];
   let table = byDecimals[d];
   if (!table) {
     table = Array.from({ length: pow10(d) }, (_, k) => `.${String(k).padStart(d, "0")}${suffix}`);

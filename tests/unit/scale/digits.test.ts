@@ -36,4 +36,10 @@ describe("figures from kept whole parts", () => {
     expect(digits(12_0, 1, true, " m", true)).toBe("± −12.0 m");
     expect(digits(5, 0, false, " cm", true)).toBe("± 5 cm");
   });
+
+  it("any suffix reads right, the unit words kept and others (past 16) written afresh", () => {
+    for (let i = 0; i < 24; i++) expect(digits(1_234_05, 2, false, ` unit${i}`)).toBe(`1,234.05 unit${i}`);
+    expect(digits(7, 3, false, " m")).toBe("0.007 m");
+    expect(digits(7, 3, false, "")).toBe("0.007");
+  });
 });
