@@ -85,8 +85,14 @@ export function formatDurationCached(seconds: number): string {
   return DURATION_TEXT[k] ?? (DURATION_TEXT[k] = formatDuration(seconds));
 }
 
-/** Texts kept by small-integer key: a table is emptied when it reaches this size (an exhibit meets far fewer keys). */
-const TABLE_LIMIT = 1 << 16;
+/**
+ * Texts kept by small-integer key: a table is emptied when it reaches this size (an exhibit meets a
+ * few thousand keys), and at most SPEEDS_KEPT slow-speed wordings keep a table (the speed comes with
+ * the request, so a server would otherwise keep a table for every speed it was ever sent): at most
+ * about 8 × 16,384 + 16,384 short texts, a few megabytes.
+ */
+const TABLE_LIMIT = 1 << 14;
+const SPEEDS_KEPT = 8;
 
 /** The times half of the sentence for each slow-speed wording ("0.9 m/s"), by the two durations' slots. */
 const TIMES_TEXT = new Map<string, Map<number, string>>();
@@ -98,7 +104,10 @@ function timesText(seconds: number, slowSeconds: number, speedText: string): str
   let table: Map<number, string> | undefined;
   if (a >= 0 && b >= 0) {
     table = TIMES_TEXT.get(speedText);
-    if (table === undefined) TIMES_TEXT.set(speedText, (table = new Map()));
+    if (table === undefined) {
+      if (TIMES_TEXT.size >= SPEEDS_KEPT) TIMES_TEXT.clear();
+      TIMES_TEXT.set(speedText, (table = new Map()));
+    }
     const known = table.get(a * 32_768 + b);
     if (known !== undefined) return known;
   }

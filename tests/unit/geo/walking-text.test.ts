@@ -75,3 +75,21 @@ describe("cached walking texts", () => {
     expect(walkingAt(10_000, { ...w, stepLength: 0.7, shortStep: 0.7 }).text).toBe("2 h 19 min walk (3 h 05 min at 0.9 m/s), about 14,000 steps");
   });
 });
+
+describe("the walking sentence's kept halves", () => {
+  it("stay right for many speeds and many distances (the tables are emptied and refilled on the way)", async () => {
+    const { walkingAt: at } = await import("../../../app/lib/scale/walking");
+    const { formatCountTwoFigures: count, formatDuration: dur } = await import("../../../app/lib/scale/format");
+    for (let s = 0; s < 20; s++) {
+      const w = { walkingSpeed: 1 + s / 10, accessibleSpeed: 0.5 + s / 20, stepLength: 0.76, shortStep: 0.66, speedText: `${0.5 + s / 20} m/s` };
+      for (let k = 0; k < 3000; k++) {
+        const d = k * 37.3 + s;
+        const steps = Math.round(d / w.stepLength);
+        const upTo = Math.round(d / w.shortStep);
+        const range = steps === upTo ? count(steps) : `${count(steps)}–${count(upTo)}`;
+        const want = `${dur(d / w.walkingSpeed)} walk (${dur(d / w.accessibleSpeed)} at ${w.speedText}), about ${range} steps`;
+        if (at(d, w).text !== want) expect(at(d, w).text, `${d} m at speed set ${s}`).toBe(want);
+      }
+    }
+  });
+});
