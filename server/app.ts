@@ -190,6 +190,12 @@ export async function start(options: StartOptions = {}): Promise<Running> {
   if (config.RUN_WORKERS === "true") await startWorkers();
 
   const server = app.listen(options.port ?? config.PORT, config.HOST);
+  // An idle keep-alive connection stays open 65 s, longer than a load balancer's usual 60 s idle
+  // timeout (Node's own default is 5 s), so a balancer or client never reuses a connection the server
+  // is just closing — that race answers a request with a reset (common practice for Node behind a
+  // balancer). The headers of a request must arrive sooner than that.
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
   await new Promise<void>((resolve, reject) => {
     server.once("listening", resolve);
     server.once("error", reject);

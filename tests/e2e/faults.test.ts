@@ -155,7 +155,10 @@ describe("faults under a running app", () => {
   it("Postgres stopped: health 503 and clear errors, no crash; after it is back, sign-in, pages and the job queue work without a restart", async () => {
     await pg.cut();
     try {
-      const health = await fetch(`${app.url}/healthz`);
+      // a failure here says whether the server went away (its exit code and last log lines) or only the connection did
+      const health = await fetch(`${app.url}/healthz`).catch((error: Error) => {
+        throw new Error(`GET /healthz failed (${error.message}; ${String((error.cause as Error | undefined)?.message)}); server exit code ${app.child.exitCode}, signal ${app.child.signalCode}; its last output:\n${app.output().slice(-4000)}`);
+      });
       expect(health.status).toBe(503);
       const r = await ready();
       expect([r.status, r.body.checks.database.ok]).toEqual([503, false]);
