@@ -10,8 +10,9 @@ export const meta: Route.MetaFunction = () => [{ title: "Chart editions · Eonsc
 
 export async function loader({ request }: Route.LoaderArgs) {
   const viewer = await viewerOf(request);
-  // The list shows how many corrections an edition has, not the corrections themselves (their
-  // evidence is on the edition's page): the page sends what it shows.
+  // The page sends what it shows, field by field: how many corrections an edition has, not the
+  // corrections themselves (their evidence is on the edition's page), and no internal file path
+  // (sourceFile) or database id.
   const editions = (await listEditions(scopeOf(viewer))).map((e) => ({
     slug: e.slug,
     label: e.label,

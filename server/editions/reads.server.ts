@@ -168,9 +168,7 @@ export async function loadEdition(slug: string, scope: EditionScope): Promise<Lo
 // ------------------------------------------------------------------------------------------
 
 /** The public API's interval: the same fields, in the same order, as the JSON download (without names and order). */
-export function apiInterval(iv: Interval) {
-  return intervalFields(iv);
-}
+export const apiInterval = intervalFields;
 
 /** `latest` is new beside the original keys: true for the latest shared edition. */
 export function apiEditionMeta(e: EditionSummary) {

@@ -168,6 +168,19 @@ function positionExceeds(pos: unknown, listDepth: number, max: number): boolean 
   return nestingExceeds(pos, max - listDepth);
 }
 
+/** What is wrong with one position (none: a valid one the usual-case test did not take, e.g. with extra members). */
+function positionIssues(pos: unknown, path: string, issues: RouteIssue[]): void {
+  if (!Array.isArray(pos) || pos.length < 2) {
+    issues.push({ path, message: "A position must be an array [longitude, latitude] (optionally with elevation)." });
+    return;
+  }
+  const [lon, lat] = pos;
+  if (typeof lon !== "number" || !Number.isFinite(lon)) issues.push({ path: join(path, 0), message: "Longitude must be a finite number." });
+  else if (lon < -180 || lon > 180) issues.push({ path: join(path, 0), message: `Longitude ${lon} is outside −180…180 degrees.` });
+  if (typeof lat !== "number" || !Number.isFinite(lat)) issues.push({ path: join(path, 1), message: "Latitude must be a finite number." });
+  else if (lat < -90 || lat > 90) issues.push({ path: join(path, 1), message: `Latitude ${lat} is outside −90…90 degrees.` });
+}
+
 /**
  * Validate a GeoJSON route and flatten it to interleaved lon/lat coordinates.
  * `basePath` prefixes every issue path (e.g. "medium.geometry").
@@ -222,24 +235,11 @@ export function parseGeoJsonRoute(input: unknown, basePath = "", options: RouteP
         }
       }
       if (positionExceeds(pos, depth, MAX_GEOJSON_DEPTH)) return tooDeep();
-      if (issues.length >= MAX_ISSUES) continue; // enough to report: only the nesting is still looked at
-      if (!Array.isArray(pos) || pos.length < 2) {
-        issues.push({ path: join(line.path, j), message: "A position must be an array [longitude, latitude] (optionally with elevation)." });
-      } else {
-        const lon = pos[0];
-        const lat = pos[1];
-        if (typeof lon !== "number" || !Number.isFinite(lon)) {
-          issues.push({ path: join(join(line.path, j), 0), message: "Longitude must be a finite number." });
-        } else if (lon < -180 || lon > 180) {
-          issues.push({ path: join(join(line.path, j), 0), message: `Longitude ${lon} is outside −180…180 degrees.` });
-        }
-        if (typeof lat !== "number" || !Number.isFinite(lat)) {
-          issues.push({ path: join(join(line.path, j), 1), message: "Latitude must be a finite number." });
-        } else if (lat < -90 || lat > 90) {
-          issues.push({ path: join(join(line.path, j), 1), message: `Latitude ${lat} is outside −90…90 degrees.` });
-        }
-        coords[k] = lon as number;
-        coords[k + 1] = lat as number;
+      // enough issues to report: only the nesting is still looked at
+      if (issues.length < MAX_ISSUES) positionIssues(pos, join(line.path, j), issues);
+      if (Array.isArray(pos)) {
+        coords[k] = pos[0] as number;
+        coords[k + 1] = pos[1] as number;
       }
       k += 2;
     }

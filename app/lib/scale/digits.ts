@@ -22,31 +22,31 @@ export function scaledInteger(a: number, d: number): number {
   return d > 20 ? -1 : roundScaled(a, d);
 }
 
-const ZEROS = ["", "0", "00", "000", "0000", "00000", "000000", "0000000", "00000000", "000000000"];
+/** ".05 m": the decimal part f of a figure with d decimals, its leading zeros, then the suffix. */
+function decimalText(f: number, d: number, suffix: string): string {
+  return "." + String(f).padStart(d, "0") + suffix;
+}
 
 /**
- * The decimal part of a figure with its unit, ".05 m" for (5, 2, " m"): made once per number of
- * decimals (up to three) and unit, so that a label is one concatenation of whole part and table entry.
- * Suffixes are the few fixed unit words ("" or " m", " ft", …), found by a short scan (they are the
- * same string objects every time, so each comparison is one check), not a hash lookup.
+ * decimalText, kept: up to three decimals, each number of decimals and unit word has its table, so
+ * that a label is one concatenation of whole part and table entry. Suffixes are the few fixed unit
+ * words ("" or " m", " ft", …), found by a short scan (they are the same string objects every time,
+ * so each comparison is one check), not a hash lookup; past 16 of them, the text is written afresh.
  */
 const FRACTION_SUFFIXES: string[] = [];
 const FRACTION_TABLES: string[][][] = [];
 const MAX_SUFFIXES = 16;
 function fractionText(f: number, d: number, suffix: string): string {
+  if (d > 3) return decimalText(f, d, suffix);
   let s = 0;
   while (s < FRACTION_SUFFIXES.length && FRACTION_SUFFIXES[s] !== suffix) s++;
   if (s === FRACTION_SUFFIXES.length) {
-    if (s >= MAX_SUFFIXES) return "." + String(f).padStart(d, "0") + suffix; // not one of the unit words
+    if (s >= MAX_SUFFIXES) return decimalText(f, d, suffix);
     FRACTION_SUFFIXES.push(suffix);
     FRACTION_TABLES.push([]);
   }
   const byDecimals = FRACTION_TABLES[s];
-  let table = byDecimals[d];
-  if (!table) {
-    table = Array.from({ length: pow10(d) }, (_, k) => `.${String(k).padStart(d, "0")}${suffix}`);
-    byDecimals[d] = table;
-  }
+  const table = (byDecimals[d] ??= Array.from({ length: pow10(d) }, (_, k) => decimalText(k, d, suffix)));
   return table[f];
 }
 
@@ -64,7 +64,7 @@ function wholeText(i: number, plusMinus: boolean): string {
   const known = table[i];
   if (known !== undefined) return known;
   while (table.length < i) table.push(undefined); // filled in order: the array stays dense
-  const text = i < 1000 ? String(i) : group(String(i));
+  const text = group(String(i));
   return (table[i] = plusMinus ? "± " + text : text);
 }
 
@@ -74,23 +74,12 @@ function wholeText(i: number, plusMinus: boolean): string {
  */
 export function digits(n: number, d: number, negative: boolean, suffix = "", plusMinus = false): string {
   const sign = negative && n !== 0 ? "−" : "";
-  if (d === 0) return (plusMinus ? "± " : "") + (n < 1000 ? sign + n : sign + group(String(n))) + suffix;
+  if (d === 0) return (plusMinus ? "± " : "") + sign + group(String(n)) + suffix;
   const p = pow10(d);
   const i = Math.floor(n / p);
-  const f = n - i * p;
-  if (plusMinus && sign === "") {
-    const pm = wholeText(i, true);
-    return d <= 3 ? pm + fractionText(f, d, suffix) : pm + fractionTail(f, d, suffix);
-  }
-  const int = wholeText(i, false);
-  if (plusMinus) return "± " + sign + int + (d <= 3 ? fractionText(f, d, suffix) : fractionTail(f, d, suffix));
-  return sign + int + (d <= 3 ? fractionText(f, d, suffix) : fractionTail(f, d, suffix));
-}
-
-/** ".000123 m": the decimal part f of d > 3 decimals, with its leading zeros, then the suffix. */
-function fractionTail(f: number, d: number, suffix: string): string {
-  const frac = String(f);
-  return "." + (d - frac.length < ZEROS.length ? ZEROS[d - frac.length] : "0".repeat(d - frac.length)) + frac + suffix;
+  const tail = fractionText(n - i * p, d, suffix);
+  if (!plusMinus) return sign + wholeText(i, false) + tail;
+  return sign === "" ? wholeText(i, true) + tail : "± " + sign + wholeText(i, false) + tail;
 }
 
 function formatFixedSlow(x: number, d: number): string {

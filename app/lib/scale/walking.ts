@@ -66,7 +66,9 @@ export function walkingAt(d: number, w: WalkingSettings): Walking {
 // by their parts' slots; tests/unit/geo/walking-text.test.ts checks them against format.ts.
 
 const MINUTES_CACHED = 30_000; // 500 hours
-const DURATIONS_CACHED = 61 + MINUTES_CACHED; // < 2^15: two slots make one small-integer key
+const DURATIONS_CACHED = 61 + MINUTES_CACHED;
+/** Above every duration slot (2^15): two slots a, b make the one small-integer key a × DURATION_KEYS + b. */
+const DURATION_KEYS = 32_768;
 /** A duration's cache slot: whole seconds under a minute (0–60), then whole minutes + 61; −1 from 500 hours. */
 function durationKey(seconds: number): number {
   if (seconds < 60) {
@@ -94,29 +96,36 @@ export function formatDurationCached(seconds: number): string {
 const TABLE_LIMIT = 1 << 14;
 const SPEEDS_KEPT = 8;
 
+/** Keep `text` under `key` in a table, emptied first when full; returns the text. */
+function keep(table: Map<number, string>, key: number, text: string): string {
+  if (table.size >= TABLE_LIMIT) table.clear();
+  table.set(key, text);
+  return text;
+}
+
 /** The times half of the sentence for each slow-speed wording ("0.9 m/s"), by the two durations' slots. */
 const TIMES_TEXT = new Map<string, Map<number, string>>();
+
+/** The table of times halves for one slow-speed wording (at most SPEEDS_KEPT kept). */
+function timesTable(speedText: string): Map<number, string> {
+  let table = TIMES_TEXT.get(speedText);
+  if (table === undefined) {
+    if (TIMES_TEXT.size >= SPEEDS_KEPT) TIMES_TEXT.clear();
+    TIMES_TEXT.set(speedText, (table = new Map()));
+  }
+  return table;
+}
 
 /** "12 min walk (16 min at 0.9 m/s), " */
 function timesText(seconds: number, slowSeconds: number, speedText: string): string {
   const a = durationKey(seconds);
   const b = durationKey(slowSeconds);
-  let table: Map<number, string> | undefined;
-  if (a >= 0 && b >= 0) {
-    table = TIMES_TEXT.get(speedText);
-    if (table === undefined) {
-      if (TIMES_TEXT.size >= SPEEDS_KEPT) TIMES_TEXT.clear();
-      TIMES_TEXT.set(speedText, (table = new Map()));
-    }
-    const known = table.get(a * 32_768 + b);
-    if (known !== undefined) return known;
-  }
+  const table = a >= 0 && b >= 0 ? timesTable(speedText) : undefined;
+  const key = a * DURATION_KEYS + b;
+  const known = table?.get(key);
+  if (known !== undefined) return known;
   const text = formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
-  if (table !== undefined) {
-    if (table.size >= TABLE_LIMIT) table.clear();
-    table.set(a * 32_768 + b, text);
-  }
-  return text;
+  return table ? keep(table, key, text) : text;
 }
 
 /** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */
@@ -131,7 +140,9 @@ function countKey(n: number): number {
   }
   return 100 + k * 101 + Math.round(n / p);
 }
-const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53; < 2^11
+const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53
+/** Above every count slot (2^11): a range's key is (low slot + 1) × COUNT_KEYS + high slot, apart from any single slot. */
+const COUNT_KEYS = 2048;
 const COUNT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
 
 /** formatCountTwoFigures(n) of format.ts for a count n ≥ 0, from a cache: 6,009 → "6,000". */
@@ -148,16 +159,10 @@ const STEPS_TEXT = new Map<number, string>();
 function stepsText(steps: number, stepsUpTo: number): string {
   const a = countKey(steps);
   const b = countKey(stepsUpTo);
-  const key = a < 0 || b < 0 ? -1 : steps === stepsUpTo ? a : (a + 1) * 2048 + b;
-  if (key >= 0) {
-    const known = STEPS_TEXT.get(key);
-    if (known !== undefined) return known;
-  }
+  const key = a < 0 || b < 0 ? -1 : steps === stepsUpTo ? a : (a + 1) * COUNT_KEYS + b;
+  const known = key >= 0 ? STEPS_TEXT.get(key) : undefined;
+  if (known !== undefined) return known;
   const low = formatCountTwoFiguresCached(steps);
   const text = steps === stepsUpTo ? "about " + low + " steps" : "about " + low + "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps";
-  if (key >= 0) {
-    if (STEPS_TEXT.size >= TABLE_LIMIT) STEPS_TEXT.clear();
-    STEPS_TEXT.set(key, text);
-  }
-  return text;
+  return key >= 0 ? keep(STEPS_TEXT, key, text) : text;
 }
