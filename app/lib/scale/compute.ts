@@ -19,7 +19,7 @@ import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, ty
 import { compareIds } from "./numbering";
 import type { ScaleRequest } from "./schema";
 import { computeWarnings, type ScaleWarning } from "./warnings";
-import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingAt, type Walking, type WalkingSettings } from "./walking";
+import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingFor, type Walking, type WalkingSettings } from "./walking";
 
 export * from "./walking";
 
@@ -243,13 +243,14 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
   const stepLength = request.stepLengthM ?? DEFAULT_STEP_LENGTH_M;
   const shortStep = request.stepLengthM ?? STEP_LENGTH_RANGE_M[0];
   const routeStart = request.routeStart ?? "older";
-  let placed: { ds: Float64Array; lon: Float64Array; lat: Float64Array; bearing: Float64Array; speeds: WalkingSettings } | null = null;
+  let placed: { lon: Float64Array; lat: Float64Array; bearing: Float64Array; walking: Walking[] } | null = null;
   if (route) {
     const speedText = system === "us" ? `${formatSig(accessibleSpeed / 0.3048, 2)} ft/s` : `${accessibleSpeed} m/s`;
     const ds = new Float64Array(n);
     for (let i = 0; i < n; i++) ds[i] = clean(routeStart === "older" ? (olderYears - ages[i]) * mpy : (ages[i] - youngerYears) * mpy);
     const pos = positionsInto(route, ds, { lon: new Float64Array(n), lat: new Float64Array(n), bearing: new Float64Array(n) });
-    placed = { ds, lon: pos.lon, lat: pos.lat, bearing: pos.bearing, speeds: { walkingSpeed, accessibleSpeed, stepLength, shortStep, speedText } };
+    const speeds: WalkingSettings = { walkingSpeed, accessibleSpeed, stepLength, shortStep, speedText };
+    placed = { lon: pos.lon, lat: pos.lat, bearing: pos.bearing, walking: walkingFor(ds, speeds) };
   }
 
   const points: PointResult[] = new Array(n);
@@ -295,7 +296,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
           insets: placements ?? NO_INSETS,
           position: { lon: placed.lon[i], lat: placed.lat[i] },
           bearing: Math.round(placed.bearing[i] * 1e6) / 1e6,
-          walking: walkingAt(placed.ds[i], placed.speeds),
+          walking: placed.walking[i],
           label,
         }
       : {

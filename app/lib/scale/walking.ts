@@ -45,19 +45,34 @@ export interface WalkingSettings {
 
 /** Walking figures for a distance from the start of the route, metres. */
 export function walkingAt(d: number, w: WalkingSettings): Walking {
-  const seconds = d / w.walkingSpeed;
-  const accessibleSeconds = d / w.accessibleSpeed;
-  const steps = Math.round(d / w.stepLength);
-  const stepsUpTo = Math.round(d / w.shortStep);
-  return {
-    distanceFromStartMetres: clean(d),
-    seconds: clean(seconds),
-    accessibleSeconds: clean(accessibleSeconds),
-    steps,
-    stepsUpTo,
-    // "12 min walk (16 min at 0.9 m/s), " + "about 1,100–1,300 steps"
-    text: timesText(seconds, accessibleSeconds, w.speedText) + stepsText(steps, stepsUpTo),
-  };
+  return walkingFor(Float64Array.of(d), w)[0];
+}
+
+/**
+ * Walking figures for each distance from the start of the route, metres. One loop for all the
+ * markers: their distances stay in the typed array, and the slow-speed wording's table of texts is
+ * looked up once.
+ */
+export function walkingFor(distances: Float64Array, w: WalkingSettings): Walking[] {
+  const out = new Array<Walking>(distances.length);
+  const times = timesTable(w.speedText);
+  for (let i = 0; i < distances.length; i++) {
+    const d = distances[i];
+    const seconds = d / w.walkingSpeed;
+    const accessibleSeconds = d / w.accessibleSpeed;
+    const steps = Math.round(d / w.stepLength);
+    const stepsUpTo = Math.round(d / w.shortStep);
+    out[i] = {
+      distanceFromStartMetres: clean(d),
+      seconds: clean(seconds),
+      accessibleSeconds: clean(accessibleSeconds),
+      steps,
+      stepsUpTo,
+      // "12 min walk (16 min at 0.9 m/s), " + "about 1,100–1,300 steps"
+      text: timesText(seconds, accessibleSeconds, w.speedText, times) + stepsText(steps, stepsUpTo),
+    };
+  }
+  return out;
 }
 
 // The preview writes these texts for every marker on every keystroke. Their parts take a few
@@ -116,16 +131,16 @@ function timesTable(speedText: string): Map<number, string> {
   return table;
 }
 
-/** "12 min walk (16 min at 0.9 m/s), " */
-function timesText(seconds: number, slowSeconds: number, speedText: string): string {
+/** "12 min walk (16 min at 0.9 m/s), " (`table`: timesTable(speedText)) */
+function timesText(seconds: number, slowSeconds: number, speedText: string, table: Map<number, string>): string {
   const a = durationKey(seconds);
   const b = durationKey(slowSeconds);
-  const table = a >= 0 && b >= 0 ? timesTable(speedText) : undefined;
+  const cached = a >= 0 && b >= 0;
   const key = a * DURATION_KEYS + b;
-  const known = table?.get(key);
+  const known = cached ? table.get(key) : undefined;
   if (known !== undefined) return known;
   const text = formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
-  return table ? keep(table, key, text) : text;
+  return cached ? keep(table, key, text) : text;
 }
 
 /** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */

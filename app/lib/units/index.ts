@@ -103,6 +103,12 @@ export function fromMetres(metres: number, unit: LengthUnit): number {
 /** 10^k for k = −30…30, each the double nearest the decimal power (1/10⁴ is exact; 10 ** −4 may not be). */
 const POW10 = Array.from({ length: 61 }, (_, i) => (i >= 30 ? 10 ** (i - 30) : 1 / 10 ** (30 - i)));
 
+/** clean()'s view of a double's bits: EXPONENT[1] >>> 20 is the biased binary exponent of BITS[0] ≥ 0 (little-endian, as every platform Node runs on). */
+const BITS = new Float64Array(1);
+const EXPONENT = new Uint32Array(BITS.buffer);
+/** ⌊(e − 1023)·log10 2⌋ for each biased exponent e: the decade of 2^(e − 1023), so the decade of a number with that exponent or one below it. */
+const DECADE_OF_EXPONENT = Int32Array.from({ length: 2048 }, (_, e) => Math.floor((e - 1023) * Math.LOG10E * Math.LN2));
+
 /** 10^k as the double nearest the decimal power. */
 export function pow10(k: number): number {
   return k >= -30 && k <= 30 ? POW10[k + 30] : k >= 0 ? 10 ** k : 1 / 10 ** -k;
@@ -143,23 +149,22 @@ export function roundScaled(a: number, k: number): number {
  * exact power of ten, so the double nearest the 15-digit decimal.
  */
 export function clean(x: number): number {
-  if (!Number.isFinite(x) || x === 0) return x;
   const a = x < 0 ? -x : x;
   if (a >= 1e-7 && a < 1e15) {
-    // the decade of a by a few comparisons (log10 costs more); an off-by-one is caught by the n range below
-    let lo = -7;
-    let hi = 14;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (a >= POW10[mid + 30]) lo = mid;
-      else hi = mid - 1;
-    }
+    // the decade of a from its binary exponent (⌊e·log10 2⌋ is the decade or one below it)
+    BITS[0] = a;
+    let lo = DECADE_OF_EXPONENT[EXPONENT[1] >>> 20];
+    if (a >= POW10[lo + 31]) lo++;
     const k = 14 - lo; // 0 ≤ k ≤ 21 here, so 10^k is exact
-    const n = roundScaled(a, k);
+    const b = POW10[k + 30];
+    const p = a * b;
+    const fl = Math.floor(p);
+    const d = p - fl - 0.5; // exact; roundScaled's quick case, written out (an exact landing on the half goes to roundScaled)
+    const n = d > 0 ? fl + 1 : d < 0 ? fl : roundScaled(a, k);
     if (n >= 1e14 && n < 1e15) {
-      const r = n / POW10[k + 30];
+      const r = n / b;
       return x < 0 ? -r : r;
     }
   }
-  return Number(x.toPrecision(15));
+  return x === 0 || !Number.isFinite(x) ? x : Number(x.toPrecision(15));
 }

@@ -54,6 +54,28 @@ describe("roundScaled", () => {
     }
     expect(wrong.slice(0, 10)).toEqual([]);
   });
+
+  it("clean finds the decade right at every power of ten and at the ends of its fast range", () => {
+    // clean takes the decade from the binary exponent and corrects it by one comparison: the
+    // powers of ten and the doubles just beside them are where an off-by-one would show
+    const wrong: number[] = [];
+    for (let e = -9; e <= 16; e++) {
+      for (const p of [10 ** e, Number(`1e${e}`), 2 ** Math.floor(e * Math.log2(10)), 2 ** Math.ceil(e * Math.log2(10))]) {
+        let a = p;
+        let b = p;
+        for (let s = 0; s < 4; s++) {
+          for (const x of [a, b, -a, -b, a * (1 + 5e-15), b * (1 - 5e-16)]) if (!Object.is(clean(x), Number(x.toPrecision(15)))) wrong.push(x);
+          a = nextUp(a);
+          b = nextDown(b);
+        }
+      }
+    }
+    // decimal halves at the 15th figure (the exact product decides), and the values clean leaves alone
+    for (const x of ["1.000000000000005", "123456789012345.5", "0.1234567890123455", "9.999999999999995", "99999999999999.95"].map(Number)) if (!Object.is(clean(x), Number(x.toPrecision(15)))) wrong.push(x);
+    expect(wrong.slice(0, 10)).toEqual([]);
+    expect([clean(0), clean(-0), clean(NaN), clean(Infinity), clean(-Infinity)]).toEqual([0, -0, NaN, Infinity, -Infinity]);
+    expect(Object.is(clean(-0), -0)).toBe(true);
+  });
 });
 
 function nextUp(x: number): number {
