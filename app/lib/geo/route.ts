@@ -73,11 +73,23 @@ export interface PreparedRoute {
   /** Number of segments solved with the exact inverse problem (longer than CHORD_LIMIT_M). */
   longSegments: number;
   /**
-   * Earth-centred coordinates of every vertex, metres, interleaved [x0, y0, z0, x1, …], exactly as
-   * the segment lengths were computed: kept only for a route prepared for repeated queries.
+   * Kept only for a route prepared for repeated queries: one record of VERTEX_RECORD numbers per
+   * vertex, [cumulative distance, x, y, z, lon, lat] — its Earth-centred coordinates (metres, exactly
+   * as the segment lengths were computed) beside its distance and degrees, so that a marker's search
+   * ends in the memory its placing reads.
    */
-  ecef?: Float64Array;
+  vertices?: Float64Array;
+  /**
+   * cumulative[k · SEARCH_BLOCK] for each k (kept with vertices): a marker's search first finds its
+   * block here, in a few kilobytes that stay in cache, then bisects only inside the block.
+   */
+  blockStarts?: Float64Array;
 }
+
+/** Numbers per vertex in PreparedRoute.vertices: cumulative distance, x, y, z, lon, lat. */
+export const VERTEX_RECORD = 6;
+/** Vertices per entry of blockStarts. */
+export const SEARCH_BLOCK = 64;
 
 export interface PrepareOptions {
   /**
@@ -98,7 +110,7 @@ export function prepareRoute(input: ArrayLike<number>, options: PrepareOptions =
   const coords = input instanceof Float64Array ? input : Float64Array.from(input);
   const n = coords.length >> 1;
   const cumulative = new Float64Array(n);
-  const ecef = options.repeatedQueries ? new Float64Array(3 * n) : null;
+  const vertices = options.repeatedQueries ? new Float64Array(VERTEX_RECORD * n) : null;
   let longSegments = 0;
   let total = 0;
   let px = 0;
@@ -121,10 +133,13 @@ export function prepareRoute(input: ArrayLike<number>, options: PrepareOptions =
     const x = rc * clam;
     const y = rc * slam;
     const z = nRad * ONE_MINUS_E2 * sphi;
-    if (ecef !== null) {
-      ecef[3 * i] = x;
-      ecef[3 * i + 1] = y;
-      ecef[3 * i + 2] = z;
+    if (vertices !== null) {
+      const k = VERTEX_RECORD * i;
+      vertices[k + 1] = x;
+      vertices[k + 2] = y;
+      vertices[k + 3] = z;
+      vertices[k + 4] = lo;
+      vertices[k + 5] = la;
     }
     // 1/(M·N) = (1 − e² sin²φ)² / (a²(1 − e²))
     const invR2 = w2 * w2 * INV_R2_FACTOR;
@@ -145,12 +160,18 @@ export function prepareRoute(input: ArrayLike<number>, options: PrepareOptions =
       total += s;
     }
     cumulative[i] = total;
+    if (vertices !== null) vertices[VERTEX_RECORD * i] = total;
     px = x;
     py = y;
     pz = z;
     pInvR2 = invR2;
   }
-  return { coords, vertexCount: n, cumulative, totalMetres: total, longSegments, ecef: ecef ?? undefined };
+  let blockStarts: Float64Array | undefined;
+  if (vertices !== null) {
+    blockStarts = new Float64Array(Math.ceil(n / SEARCH_BLOCK));
+    for (let k = 0; k < blockStarts.length; k++) blockStarts[k] = cumulative[k * SEARCH_BLOCK];
+  }
+  return { coords, vertexCount: n, cumulative, totalMetres: total, longSegments, vertices: vertices ?? undefined, blockStarts };
 }
 
 /**
@@ -221,9 +242,61 @@ function geodetic(x: number, y: number, z: number): void {
   SCRATCH[LON] = lam / DEG;
 }
 
+/** |tan| below which atanSmall's series is exact to a double: t⁹/9 < 6e-17 (and a 10 km chord spans at most 0.0016 rad of latitude). */
+const SMALL_TAN = 0.02;
+
+/** atan(t) for |t| < SMALL_TAN, by its series t − t³/3 + t⁵/5 − t⁷/7 (the next term is below 6e-17 rad). */
+function atanSmall(t: number): number {
+  const t2 = t * t;
+  return t * (1 - t2 * (1 / 3 - t2 * (1 / 5 - t2 / 7)));
+}
+
+/**
+ * geodetic(x, y, z) for a point near a vertex (x1, y1, z1) on the surface at (lon1, lat1) degrees —
+ * a point of the vertex's segment: its longitude and latitude as the vertex's plus the small angles
+ * between the two, whose tangents come from the same ECEF terms (the vertex's tan φ1 = z1 / ((1 − e²)·p1)
+ * on the surface), by atanSmall instead of atan2. Falls back to geodetic when an angle is not small
+ * (near a pole). Agrees with geodetic to about 1e-15 rad (tests/unit/geo/geodetic.test.ts).
+ */
+function geodeticNear(x: number, y: number, z: number, x1: number, y1: number, z1: number, lon1: number, lat1: number): void {
+  const p = Math.sqrt(x * x + y * y);
+  const az = A * z;
+  const bp = B * p;
+  const r = Math.sqrt(az * az + bp * bp);
+  const sb = az / r;
+  const cb = bp / r;
+  const num = z + EP2_B * sb * sb * sb;
+  const den = p - E2_A * cb * cb * cb;
+  // tan(Δλ) and tan(Δφ) from the two points' terms
+  const lonCos = x1 * x + y1 * y;
+  const tLon = (x1 * y - y1 * x) / lonCos;
+  const num1 = z1;
+  const den1 = ONE_MINUS_E2 * Math.sqrt(x1 * x1 + y1 * y1);
+  const latCos = den * den1 + num * num1;
+  const tLat = (num * den1 - den * num1) / latCos;
+  if (!(p > 0 && lonCos > 0 && latCos > 0 && tLon < SMALL_TAN && tLon > -SMALL_TAN && tLat < SMALL_TAN && tLat > -SMALL_TAN)) {
+    geodetic(x, y, z);
+    return;
+  }
+  const h = Math.sqrt(num * num + den * den);
+  SCRATCH[SIN_LAT] = num / h;
+  SCRATCH[COS_LAT] = den / h;
+  SCRATCH[SIN_LON] = y / p;
+  SCRATCH[COS_LON] = x / p;
+  SCRATCH[LAT] = lat1 + atanSmall(tLat) / DEG;
+  SCRATCH[LON] = lon1 + atanSmall(tLon) / DEG;
+}
+
 /** Geodetic latitude and longitude (degrees) of an Earth-centred point within a few metres of the WGS84 surface (Bowring's closed form). */
 export function ecefToGeodetic(x: number, y: number, z: number): { lat: number; lon: number } {
   geodetic(x, y, z);
+  return { lat: SCRATCH[LAT], lon: normalizeLon(SCRATCH[LON]) };
+}
+
+/** geodeticNear for a point near the surface vertex (lon1, lat1) degrees: what placeAt uses inside a short segment (exported for its tests). */
+export function ecefToGeodeticNear(x: number, y: number, z: number, lon1: number, lat1: number): { lat: number; lon: number } {
+  vertexEcef(lon1, lat1);
+  geodeticNear(x, y, z, SCRATCH[EX], SCRATCH[EY], SCRATCH[EZ], lon1, lat1);
   return { lat: SCRATCH[LAT], lon: normalizeLon(SCRATCH[LON]) };
 }
 
@@ -283,21 +356,29 @@ function placeAt(route: PreparedRoute, d: number, i: number): void {
     SCRATCH[BEARING] = 0;
     return;
   }
-  const cum = route.cumulative;
-  const segLen = cum[i + 1] - cum[i];
-  const along = d - cum[i];
-  // both ends' ECEF, exactly as prepareRoute computed them: kept, or computed again
-  const e = route.ecef;
+  // the segment's start and end distances, the first vertex's degrees and both ends' ECEF, exactly
+  // as prepareRoute computed them: kept in the vertex records, or computed again
+  const v = route.vertices;
+  let segStart: number, segEnd: number, lon1: number, lat1: number;
   let x1: number, y1: number, z1: number, dx: number, dy: number, dz: number;
-  if (e !== undefined) {
-    const k = 3 * i;
-    x1 = e[k];
-    y1 = e[k + 1];
-    z1 = e[k + 2];
-    dx = e[k + 3] - x1;
-    dy = e[k + 4] - y1;
-    dz = e[k + 5] - z1;
+  if (v !== undefined) {
+    const k = VERTEX_RECORD * i;
+    const k2 = k + VERTEX_RECORD;
+    segStart = v[k];
+    segEnd = v[k2];
+    x1 = v[k + 1];
+    y1 = v[k + 2];
+    z1 = v[k + 3];
+    lon1 = v[k + 4];
+    lat1 = v[k + 5];
+    dx = v[k2 + 1] - x1;
+    dy = v[k2 + 2] - y1;
+    dz = v[k2 + 3] - z1;
   } else {
+    segStart = route.cumulative[i];
+    segEnd = route.cumulative[i + 1];
+    lon1 = c[2 * i];
+    lat1 = c[2 * i + 1];
     vertexEcef(c[2 * i + 2], c[2 * i + 3]);
     const x2 = SCRATCH[EX];
     const y2 = SCRATCH[EY];
@@ -310,10 +391,12 @@ function placeAt(route: PreparedRoute, d: number, i: number): void {
     dy = y2 - y1;
     dz = z2 - z1;
   }
+  const segLen = segEnd - segStart;
+  const along = d - segStart;
   const c2 = dx * dx + dy * dy + dz * dz;
   if (along <= 0) {
-    SCRATCH[LON] = c[2 * i];
-    SCRATCH[LAT] = c[2 * i + 1];
+    SCRATCH[LON] = lon1;
+    SCRATCH[LAT] = lat1;
     SCRATCH[BEARING] = vertexBearing(SCRATCH[LAT], SCRATCH[LON], dx, dy, dz, c2);
     return;
   }
@@ -326,7 +409,7 @@ function placeAt(route: PreparedRoute, d: number, i: number): void {
   if (Math.sqrt(c2) >= CHORD_LIMIT_M) {
     // the test prepareRoute made on the same numbers: a segment it solved exactly
     const azi1 = longSegmentAzimuth(route, i);
-    const r = geodesicDirect(c[2 * i + 1], c[2 * i], azi1, along);
+    const r = geodesicDirect(lat1, lon1, azi1, along);
     SCRATCH[LON] = r.lon2;
     SCRATCH[LAT] = r.lat2;
     SCRATCH[BEARING] = r.azi2;
@@ -342,9 +425,9 @@ function placeAt(route: PreparedRoute, d: number, i: number): void {
   const w2 = 1 - (E2 * zz) / (zz + (xm * xm + ym * ym) * ONE_MINUS_E2_SQ);
   const th2 = segLen * segLen * 0.25 * w2 * w2 * INV_R2_FACTOR;
   const u = (2 * along) / segLen - 1;
-  const v = u * u - 1;
-  const t = (u * (1 + v * th2 * (1 / 3 + ((6 * u * u + 1) * th2) / 45)) + 1) / 2;
-  geodetic(x1 + t * dx, y1 + t * dy, z1 + t * dz);
+  const u2m1 = u * u - 1;
+  const t = (u * (1 + u2m1 * th2 * (1 / 3 + ((6 * u * u + 1) * th2) / 45)) + 1) / 2;
+  geodeticNear(x1 + t * dx, y1 + t * dy, z1 + t * dz, x1, y1, z1, lon1, lat1);
   if (SCRATCH[LON] > 180 || SCRATCH[LON] <= -180) SCRATCH[LON] = normalizeLon(SCRATCH[LON]);
   SCRATCH[BEARING] = frameBearing(dx, dy, dz);
 }
@@ -397,7 +480,12 @@ export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>
   const cum = route.cumulative;
   const last = cum.length - 1;
   const total = route.totalMetres;
+  const blocks = route.blockStarts;
+  // with vertex records the search reads their distances: it ends where placing the marker reads
+  const keys = route.vertices !== undefined ? route.vertices : cum;
+  const stride = route.vertices !== undefined ? VERTEX_RECORD : 1;
   let seg = 0;
+  let block = 0;
   for (let j = 0; j < m; j++) {
     const k = order ? order[j] : up ? j : m - 1 - j;
     const d = Math.min(Math.max(distances[k], 0), total);
@@ -405,21 +493,41 @@ export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>
     if (last <= 0) i = 0;
     else if (d >= cum[last]) i = segmentIndexAt(route, d);
     else {
-      // advance from the last segment (d only grows): gallop forward, then bisect the window, so
-      // that the search stays near the previous marker in memory (cum[seg] <= d < cum[last] here)
+      // advance from the last segment (d only grows; cum[seg] <= d < cum[last] here) to the last
+      // vertex lo with cum[lo] <= d
       let lo = seg;
-      let hi = seg + 1;
-      let step = 1;
-      while (hi < last && cum[hi] <= d) {
-        lo = hi;
-        step *= 2;
-        hi = lo + step;
-      }
-      if (hi > last) hi = last;
-      while (hi - lo > 1) {
-        const mid = (lo + hi) >> 1;
-        if (cum[mid] <= d) lo = mid;
-        else hi = mid;
+      if (blocks !== undefined) {
+        // the block holding d, from the small table; inside it a guess in proportion to distance,
+        // then a step or two to the segment: the vertex records read are next to each other, where a
+        // bisection would read one record in each of several places (each one a cache miss)
+        while (block + 1 < blocks.length && blocks[block + 1] <= d) block++;
+        const start = block * SEARCH_BLOCK;
+        const end = start + SEARCH_BLOCK < last ? start + SEARCH_BLOCK : last; // cum[end] > d
+        const from = blocks[block];
+        let g = start + Math.floor(((d - from) / (keys[stride * end] - from)) * (end - start));
+        if (g < lo) g = lo;
+        if (g >= end) g = end - 1;
+        if (keys[stride * g] <= d) {
+          while (keys[stride * (g + 1)] <= d) g++;
+        } else {
+          while (keys[stride * g] > d) g--;
+        }
+        lo = g;
+      } else {
+        // gallop forward, so that the search stays near the previous marker in memory
+        let hi = seg + 1;
+        let step = 1;
+        while (hi < last && cum[hi] <= d) {
+          lo = hi;
+          step *= 2;
+          hi = lo + step;
+        }
+        if (hi > last) hi = last;
+        while (hi - lo > 1) {
+          const mid = (lo + hi) >> 1;
+          if (cum[mid] <= d) lo = mid;
+          else hi = mid;
+        }
       }
       seg = lo;
       i = seg;

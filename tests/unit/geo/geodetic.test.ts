@@ -1,7 +1,7 @@
 import geodesic from "geographiclib-geodesic";
 import { describe, expect, it } from "vitest";
 import { DEG, WGS84_A, WGS84_E2 } from "../../../app/lib/geo/ellipsoid";
-import { ecefToGeodetic } from "../../../app/lib/geo/route";
+import { ecefToGeodetic, ecefToGeodeticNear } from "../../../app/lib/geo/route";
 
 // Reference: GeographicLib (geographiclib-geodesic 2.2.0) places the test points and measures the
 // error on the ellipsoid; the iterative conversion below (the route code's former method, iterated
@@ -74,5 +74,25 @@ describe("ecefToGeodetic (Bowring's closed form)", () => {
     expect(anti.lat).toBe(0);
     expect(anti.lon).toBe(180);
     expect(ecefToGeodetic(...toEcef(-33.5, -179.9999999, 1)).lon).toBeCloseTo(-179.9999999, 11);
+  });
+});
+
+describe("ecefToGeodeticNear (a point of a short segment, from its first vertex)", () => {
+  it("agrees with the closed form to 1e-13 degree within 10 km of the vertex, anywhere, poles and antimeridian included", () => {
+    let worst = 0;
+    for (let k = 0; k < 5000; k++) {
+      const lat1 = k % 10 === 0 ? (rand() < 0.5 ? -1 : 1) * (89.9 + 0.1 * rand()) : -90 + 180 * rand();
+      const lon1 = k % 7 === 0 ? (rand() < 0.5 ? -1 : 1) * (179.99 + 0.01 * rand()) : -180 + 360 * rand();
+      const pt = g.Direct(lat1, lon1, 360 * rand(), 10_000 * rand() ** 2); // GeographicLib
+      const xyz = toEcef(pt.lat2!, pt.lon2!, -2 * rand()); // a chord point lies up to 2 m below the surface
+      const near = ecefToGeodeticNear(...xyz, lon1, lat1);
+      const full = ecefToGeodetic(...xyz);
+      worst = Math.max(worst, Math.abs(near.lat - full.lat));
+      expect(Math.abs(near.lat - full.lat), `${lat1} ${lon1}`).toBeLessThan(1e-13);
+      if (Math.abs(full.lat) < 89.99) expect(lonDiff(near.lon, full.lon), `${lat1} ${lon1}`).toBeLessThan(1e-13);
+      expect(near.lon).toBeGreaterThan(-180);
+      expect(near.lon).toBeLessThanOrEqual(180);
+    }
+    expect(worst).toBeLessThan(1e-13);
   });
 });

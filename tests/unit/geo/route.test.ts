@@ -1,6 +1,6 @@
 import geodesic from "geographiclib-geodesic";
 import { describe, expect, it } from "vitest";
-import { CHORD_LIMIT_M, positionAt, positionsAt, prepareRoute, segmentIndexAt } from "../../../app/lib/geo/route";
+import { CHORD_LIMIT_M, SEARCH_BLOCK, positionAt, positionsAt, prepareRoute, segmentIndexAt } from "../../../app/lib/geo/route";
 
 // Reference for every accuracy check here: GeographicLib (geographiclib-geodesic 2.2.0).
 const g = geodesic.Geodesic.WGS84;
@@ -140,16 +140,21 @@ describe("prepared route queries", () => {
       c.push(lon, 10 + 0.00001 * Math.sin(i));
       if (i % 11 === 0) c.push(lon, 10 + 0.00001 * Math.sin(i)); // a repeated vertex: a zero-length segment
     }
-    const r = prepareRoute(c);
-    const ds = [0, r.totalMetres, ...Array.from(r.cumulative.slice(0, 3000)), ...Array.from({ length: 2000 }, () => rand() * r.totalMetres)];
-    const many = positionsAt(r, ds);
-    ds.forEach((d, k) => {
-      // (at distance 0 a batch may name a zero-length first segment; the place is the same)
-      if (d > 0) expect(many[k].segment, `distance ${d}`).toBe(segmentIndexAt(r, Math.min(d, r.totalMetres)));
-      const one = positionAt(r, d);
-      expect(many[k].lon).toBe(one.lon);
-      expect(many[k].lat).toBe(one.lat);
-    });
+    // a one-off route gallops from marker to marker; one kept for repeated queries searches its blocks first
+    for (const r of [prepareRoute(c), prepareRoute(c, { repeatedQueries: true })]) {
+      const ds = [0, r.totalMetres, ...Array.from(r.cumulative.slice(0, 3000)), ...Array.from({ length: 2000 }, () => rand() * r.totalMetres)];
+      const many = positionsAt(r, ds);
+      ds.forEach((d, k) => {
+        // (at distance 0 a batch may name a zero-length first segment; the place is the same)
+        if (d > 0) expect(many[k].segment, `distance ${d}`).toBe(segmentIndexAt(r, Math.min(d, r.totalMetres)));
+        const one = positionAt(r, d);
+        expect(many[k].lon).toBe(one.lon);
+        expect(many[k].lat).toBe(one.lat);
+      });
+    }
+    const kept = prepareRoute(c, { repeatedQueries: true });
+    expect(kept.blockStarts!.length).toBe(Math.ceil(kept.vertexCount / SEARCH_BLOCK));
+    kept.blockStarts!.forEach((v, b) => expect(v).toBe(kept.cumulative[b * SEARCH_BLOCK]));
   });
 
   it("an eastward equatorial segment has bearing 90°", () => {
@@ -180,8 +185,8 @@ describe("a route prepared for repeated queries", () => {
       }
       const once = prepareRoute(coords);
       const kept = prepareRoute(coords, { repeatedQueries: true });
-      expect(kept.ecef).toBeInstanceOf(Float64Array);
-      expect(once.ecef).toBeUndefined();
+      expect(kept.vertices).toBeInstanceOf(Float64Array);
+      expect(once.vertices).toBeUndefined();
       expect(Array.from(kept.cumulative)).toEqual(Array.from(once.cumulative));
       const ds = Array.from({ length: 500 }, () => rand() * once.totalMetres).concat([0, once.totalMetres, once.cumulative[7]]);
       expect(positionsAt(kept, ds)).toEqual(positionsAt(once, ds));
