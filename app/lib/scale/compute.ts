@@ -18,6 +18,7 @@ import {
 import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, type MediumType, type SuggestedInset } from "./legibility";
 import { compareIds } from "./numbering";
 import type { ScaleRequest } from "./schema";
+import { plainRecord } from "./records";
 import { computeWarnings, type ScaleWarning } from "./warnings";
 import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingFor, type Walking, type WalkingSettings } from "./walking";
 
@@ -149,6 +150,80 @@ export interface ComputeOptions {
   pointYears?: PointYears;
 }
 
+// The per-marker results, made by `new` (records.ts: plain objects the engine does not pretenure),
+// one constructor per shape: every point of a result has the same fields in the same order.
+
+/** A point on a length medium (label last, and only when the request has one). */
+const LengthPoint = plainRecord(function (
+  this: PointResult,
+  id: string,
+  number: number,
+  ageYears: number,
+  uncertaintyYears: number | null,
+  fromOlderEndMetres: number,
+  fromYoungerEndMetres: number,
+  uncertaintyMetres: number | null,
+  display: DistanceLabel,
+  insets: readonly InsetPlacement[],
+  label: string | undefined,
+) {
+  this.id = id;
+  this.number = number;
+  this.ageYears = ageYears;
+  this.uncertaintyYears = uncertaintyYears;
+  this.fromOlderEndMetres = fromOlderEndMetres;
+  this.fromYoungerEndMetres = fromYoungerEndMetres;
+  this.uncertaintyMetres = uncertaintyMetres;
+  this.display = display;
+  this.insets = insets;
+  if (label !== undefined) this.label = label;
+});
+
+/** A point on a route: a LengthPoint's fields, then its place, bearing and walking figures. */
+const RoutePoint = plainRecord(function (
+  this: PointResult,
+  id: string,
+  number: number,
+  ageYears: number,
+  uncertaintyYears: number | null,
+  fromOlderEndMetres: number,
+  fromYoungerEndMetres: number,
+  uncertaintyMetres: number | null,
+  display: DistanceLabel,
+  insets: readonly InsetPlacement[],
+  position: { lon: number; lat: number },
+  bearing: number,
+  walking: Walking,
+  label: string | undefined,
+) {
+  this.id = id;
+  this.number = number;
+  this.ageYears = ageYears;
+  this.uncertaintyYears = uncertaintyYears;
+  this.fromOlderEndMetres = fromOlderEndMetres;
+  this.fromYoungerEndMetres = fromYoungerEndMetres;
+  this.uncertaintyMetres = uncertaintyMetres;
+  this.display = display;
+  this.insets = insets;
+  this.position = position;
+  this.bearing = bearing;
+  this.walking = walking;
+  if (label !== undefined) this.label = label;
+});
+
+const LonLat = plainRecord(function (this: { lon: number; lat: number }, lon: number, lat: number) {
+  this.lon = lon;
+  this.lat = lat;
+});
+
+const Placement = plainRecord(function (this: InsetPlacement, insetId: string, fromOlderEndMetres: number, fromYoungerEndMetres: number, uncertaintyMetres: number | null, display: DistanceLabel) {
+  this.insetId = insetId;
+  this.fromOlderEndMetres = fromOlderEndMetres;
+  this.fromYoungerEndMetres = fromYoungerEndMetres;
+  this.uncertaintyMetres = uncertaintyMetres;
+  this.display = display;
+});
+
 /** A point on no inset: one list for all of them (most markers lie outside every inset). */
 const NO_INSETS: readonly InsetPlacement[] = Object.freeze([]);
 
@@ -268,50 +343,15 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
         const impy = mpy * ins.magnification;
         const fo = (ins.olderYears - a) * impy;
         const fy = (a - ins.youngerYears) * impy;
-        placements.push({
-          insetId: ins.id,
-          fromOlderEndMetres: clean(fo),
-          fromYoungerEndMetres: clean(fy),
-          uncertaintyMetres: uncYears !== null ? clean(uncYears * impy) : null,
-          display: markerLabel(fo, fy, a, uncYears, impy, resolution, unit, system),
-        });
+        placements.push(new Placement(ins.id, clean(fo), clean(fy), uncYears !== null ? clean(uncYears * impy) : null, markerLabel(fo, fy, a, uncYears, impy, resolution, unit, system)));
         ins.pointIds.push(p.id);
       }
     }
     const display = markerLabel(fromOlder, fromYounger, a, uncYears, mpy, resolution, unit, system);
     const uncertaintyMetres = uncYears !== null ? clean(uncYears * mpy) : null;
-    const label = p.label;
-    // two literals, one per shape: a field added after creation would give every point a
-    // separate property store (the preview builds 10³ of these per keystroke)
     points[i] = placed
-      ? {
-          id: p.id,
-          number: numbers[i],
-          ageYears: a,
-          uncertaintyYears: uncYears,
-          fromOlderEndMetres: clean(fromOlder),
-          fromYoungerEndMetres: clean(fromYounger),
-          uncertaintyMetres,
-          display,
-          insets: placements ?? NO_INSETS,
-          position: { lon: placed.lon[i], lat: placed.lat[i] },
-          bearing: Math.round(placed.bearing[i] * 1e6) / 1e6,
-          walking: placed.walking[i],
-          label,
-        }
-      : {
-          id: p.id,
-          number: numbers[i],
-          ageYears: a,
-          uncertaintyYears: uncYears,
-          fromOlderEndMetres: clean(fromOlder),
-          fromYoungerEndMetres: clean(fromYounger),
-          uncertaintyMetres,
-          display,
-          insets: placements ?? NO_INSETS,
-          label,
-        };
-    if (label === undefined) delete points[i].label; // the last field: V8 keeps the object fast
+      ? new RoutePoint(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, new LonLat(placed.lon[i], placed.lat[i]), Math.round(placed.bearing[i] * 1e6) / 1e6, placed.walking[i], p.label)
+      : new LengthPoint(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, p.label);
   }
 
   // durations: a located span (the last N years) shows only on an inset that contains it; a

@@ -4,6 +4,7 @@
  */
 import { METRES_PER_LENGTH_UNIT as UNIT_METRES, pow10, type LengthUnit, type UnitSystem } from "../units";
 import { digits, formatFixed, scaledInteger } from "./digits";
+import { plainRecord } from "./records";
 import { ruleStep, ruleUncertainty, stepRule, uncertaintyPlace, decadeFloor, type DisplayStep, type RoundingBasis } from "./rounding";
 
 export interface DisplayLength {
@@ -123,6 +124,15 @@ export interface DistanceLabel {
   basis: RoundingBasis;
 }
 
+/** A DistanceLabel, made by `new` (records.ts: a plain object the engine does not pretenure). */
+const DistanceLabelRecord = plainRecord(function (this: DistanceLabel, fromOlderEnd: string, fromYoungerEnd: string, uncertainty: string | null, stepMetres: number, basis: RoundingBasis) {
+  this.fromOlderEnd = fromOlderEnd;
+  this.fromYoungerEnd = fromYoungerEnd;
+  this.uncertainty = uncertainty;
+  this.stepMetres = stepMetres;
+  this.basis = basis;
+});
+
 const UNITS = Object.keys(UNIT_METRES) as LengthUnit[];
 const IS_METRIC = Object.fromEntries(UNITS.map((u) => [u, METRIC.includes(u)])) as Readonly<Record<LengthUnit, boolean>>;
 /** " km": a unit as it follows a figure (one string per unit, not one per label). */
@@ -185,12 +195,6 @@ function labelOnGrid(
     const uDecimals = decimalsFor(uStep);
     unc = gridText(uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix, true);
   }
-  return {
-    fromOlderEnd: gridText(fromOlder / uf, decimals, q, false, suffix),
-    fromYoungerEnd: gridText(fromYounger / uf, decimals, q, false, suffix),
-    uncertainty: unc,
-    // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
-    stepMetres,
-    basis,
-  };
+  // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
+  return new DistanceLabelRecord(gridText(fromOlder / uf, decimals, q, false, suffix), gridText(fromYounger / uf, decimals, q, false, suffix), unc, stepMetres, basis);
 }

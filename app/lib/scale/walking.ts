@@ -4,6 +4,7 @@
  */
 import { clean } from "../units";
 import { formatCountTwoFigures, formatDuration } from "./format";
+import { plainRecord } from "./records";
 
 /** FHWA-RD-98-107: 1.2 m/s walking design speed. */
 export const DEFAULT_WALKING_SPEED_MPS = 1.2;
@@ -43,6 +44,16 @@ export interface WalkingSettings {
   speedText: string;
 }
 
+/** A Walking, made by `new` (records.ts: a plain object the engine does not pretenure). */
+const WalkingRecord = plainRecord(function (this: Walking, distanceFromStartMetres: number, seconds: number, accessibleSeconds: number, steps: number, stepsUpTo: number, text: string) {
+  this.distanceFromStartMetres = distanceFromStartMetres;
+  this.seconds = seconds;
+  this.accessibleSeconds = accessibleSeconds;
+  this.steps = steps;
+  this.stepsUpTo = stepsUpTo;
+  this.text = text;
+});
+
 /** Walking figures for a distance from the start of the route, metres. */
 export function walkingAt(d: number, w: WalkingSettings): Walking {
   return walkingFor(Float64Array.of(d), w)[0];
@@ -62,15 +73,9 @@ export function walkingFor(distances: Float64Array, w: WalkingSettings): Walking
     const accessibleSeconds = d / w.accessibleSpeed;
     const steps = Math.round(d / w.stepLength);
     const stepsUpTo = Math.round(d / w.shortStep);
-    out[i] = {
-      distanceFromStartMetres: clean(d),
-      seconds: clean(seconds),
-      accessibleSeconds: clean(accessibleSeconds),
-      steps,
-      stepsUpTo,
-      // "12 min walk (16 min at 0.9 m/s), " + "about 1,100–1,300 steps"
-      text: timesText(seconds, accessibleSeconds, w.speedText, times) + stepsText(steps, stepsUpTo),
-    };
+    // "12 min walk (16 min at 0.9 m/s), " + "about 1,100–1,300 steps"
+    const text = timesText(seconds, accessibleSeconds, w.speedText, times) + stepsText(steps, stepsUpTo);
+    out[i] = new WalkingRecord(clean(d), clean(seconds), clean(accessibleSeconds), steps, stepsUpTo, text);
   }
   return out;
 }
