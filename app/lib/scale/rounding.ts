@@ -12,7 +12,7 @@
  *     (trail 0.05 m → 0.01 m; wall 3 mm → 1 mm).
  * The step actually used is the coarsest of these.
  */
-import { pow10 } from "../units";
+import { decadeOf, pow10 } from "../units";
 
 export type RoundingBasis = "uncertainty" | "age-significant-figures" | "medium-resolution";
 
@@ -30,17 +30,7 @@ export { pow10 };
 /** Exponent of the largest power of ten ≤ x (x > 0), a value within 1e-12 below a power counting as that power. */
 function decadeExponent(x: number): number {
   const y = x * (1 + 1e-12);
-  if (y >= 1e-30 && y < 1e30) {
-    // binary search in the table of powers (a logarithm costs more and needs correcting anyway)
-    let lo = -30;
-    let hi = 29; // invariant: pow10(lo) ≤ y < pow10(hi + 1)
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (pow10(mid) <= y) lo = mid;
-      else hi = mid - 1;
-    }
-    return lo;
-  }
+  if (y >= 1e-30 && y < 1e30) return decadeOf(y); // from the binary exponent (a logarithm costs more and needs correcting anyway)
   let k = Math.floor(Math.log10(x));
   // guard against log10 rounding (e.g. log10(1000) = 2.9999999999999996)
   if (pow10(k) * 10 <= y) k++;

@@ -87,8 +87,6 @@ export function walkingFor(distances: Float64Array, w: WalkingSettings): Walking
 
 const MINUTES_CACHED = 30_000; // 500 hours
 const DURATIONS_CACHED = 61 + MINUTES_CACHED;
-/** Above every duration slot (2^15): two slots a, b make the one small-integer key a × DURATION_KEYS + b. */
-const DURATION_KEYS = 32_768;
 /** A duration's cache slot: whole seconds under a minute (0–60), then whole minutes + 61; −1 from 500 hours. */
 function durationKey(seconds: number): number {
   if (seconds < 60) {
@@ -108,44 +106,58 @@ export function formatDurationCached(seconds: number): string {
 }
 
 /**
- * Texts kept by small-integer key: a table is emptied when it reaches this size (an exhibit meets a
- * few thousand keys), and at most SPEEDS_KEPT slow-speed wordings keep a table (the speed comes with
- * the request, so a server would otherwise keep a table for every speed it was ever sent): at most
- * about 8 × 16,384 + 16,384 short texts, a few megabytes.
+ * Sentence halves kept by their two parts' slots (a, b): for each first slot, the second slot last
+ * seen with it and the text. A half's second slot nearly always follows from its first (the slow
+ * time is the walking time at a fixed ratio, the upper step count the lower at a fixed ratio), so
+ * one entry per first slot is almost always a hit — read from two arrays, not hashed; a miss writes
+ * the text afresh and takes the entry. A table's size is its number of first slots.
  */
-const TABLE_LIMIT = 1 << 14;
-const SPEEDS_KEPT = 8;
-
-/** Keep `text` under `key` in a table, emptied first when full; returns the text. */
-function keep(table: Map<number, string>, key: number, text: string): string {
-  if (table.size >= TABLE_LIMIT) table.clear();
-  table.set(key, text);
-  return text;
+class PairTable {
+  private readonly second: Int32Array;
+  private readonly text: (string | undefined)[];
+  constructor(slots: number) {
+    this.second = new Int32Array(slots).fill(-1);
+    this.text = new Array<string | undefined>(slots);
+  }
+  /** The text kept for (a, b), a in range and b ≥ 0. */
+  get(a: number, b: number): string | undefined {
+    return this.second[a] === b ? this.text[a] : undefined;
+  }
+  /** Keep `text` for (a, b) in a's entry; returns the text. */
+  keep(a: number, b: number, text: string): string {
+    this.second[a] = b;
+    this.text[a] = text;
+    return text;
+  }
 }
 
-/** The times half of the sentence for each slow-speed wording ("0.9 m/s"), by the two durations' slots. */
-const TIMES_TEXT = new Map<string, Map<number, string>>();
+/**
+ * The times half of the sentence for each slow-speed wording ("0.9 m/s"). At most SPEEDS_KEPT
+ * wordings keep a table (the speed comes with an /api/scale request, so a server would otherwise
+ * keep one for every speed it was ever sent): at most 8 × 30,061 short texts, a few megabytes.
+ */
+const TIMES_TEXT = new Map<string, PairTable>();
+const SPEEDS_KEPT = 8;
 
 /** The table of times halves for one slow-speed wording (at most SPEEDS_KEPT kept). */
-function timesTable(speedText: string): Map<number, string> {
+function timesTable(speedText: string): PairTable {
   let table = TIMES_TEXT.get(speedText);
   if (table === undefined) {
     if (TIMES_TEXT.size >= SPEEDS_KEPT) TIMES_TEXT.clear();
-    TIMES_TEXT.set(speedText, (table = new Map()));
+    TIMES_TEXT.set(speedText, (table = new PairTable(DURATIONS_CACHED)));
   }
   return table;
 }
 
 /** "12 min walk (16 min at 0.9 m/s), " (`table`: timesTable(speedText)) */
-function timesText(seconds: number, slowSeconds: number, speedText: string, table: Map<number, string>): string {
+function timesText(seconds: number, slowSeconds: number, speedText: string, table: PairTable): string {
   const a = durationKey(seconds);
   const b = durationKey(slowSeconds);
   const cached = a >= 0 && b >= 0;
-  const key = a * DURATION_KEYS + b;
-  const known = cached ? table.get(key) : undefined;
+  const known = cached ? table.get(a, b) : undefined;
   if (known !== undefined) return known;
   const text = formatDurationCached(seconds) + " walk (" + formatDurationCached(slowSeconds) + " at " + speedText + "), ";
-  return cached ? keep(table, key, text) : text;
+  return cached ? table.keep(a, b, text) : text;
 }
 
 /** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */
@@ -161,8 +173,8 @@ function countKey(n: number): number {
   return 100 + k * 101 + Math.round(n / p);
 }
 const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53
-/** Above every count slot (2^11): a range's key is (low slot + 1) × COUNT_KEYS + high slot, apart from any single slot. */
-const COUNT_KEYS = 2048;
+/** Above every count slot: the second slot of a single count ("about 1,100 steps"), apart from any range's. */
+const SINGLE_COUNT = COUNTS_CACHED;
 const COUNT_TEXT = new Array<string | undefined>(COUNTS_CACHED);
 
 /** formatCountTwoFigures(n) of format.ts for a count n ≥ 0, from a cache: 6,009 → "6,000". */
@@ -172,17 +184,17 @@ export function formatCountTwoFiguresCached(n: number): string {
   return COUNT_TEXT[k] ?? (COUNT_TEXT[k] = formatCountTwoFigures(n));
 }
 
-/** The steps half of the sentence, by the two counts' slots (a single count and a range are keyed apart). */
-const STEPS_TEXT = new Map<number, string>();
+/** The steps half of the sentence, by the two counts' slots (a single count and a range are kept apart). */
+const STEPS_TEXT = new PairTable(COUNTS_CACHED);
 
 /** "about 1,100–1,300 steps", or "about 1,100 steps" for one count. A range is not more precise than two figures: 6,009–6,919 steps reads "6,000–6,900". */
 function stepsText(steps: number, stepsUpTo: number): string {
   const a = countKey(steps);
-  const b = countKey(stepsUpTo);
-  const key = a < 0 || b < 0 ? -1 : steps === stepsUpTo ? a : (a + 1) * COUNT_KEYS + b;
-  const known = key >= 0 ? STEPS_TEXT.get(key) : undefined;
+  const b = steps === stepsUpTo ? SINGLE_COUNT : countKey(stepsUpTo);
+  const cached = a >= 0 && b >= 0;
+  const known = cached ? STEPS_TEXT.get(a, b) : undefined;
   if (known !== undefined) return known;
   const low = formatCountTwoFiguresCached(steps);
   const text = steps === stepsUpTo ? "about " + low + " steps" : "about " + low + "–" + formatCountTwoFiguresCached(stepsUpTo) + " steps";
-  return key >= 0 ? keep(STEPS_TEXT, key, text) : text;
+  return cached ? STEPS_TEXT.keep(a, b, text) : text;
 }

@@ -103,11 +103,21 @@ export function fromMetres(metres: number, unit: LengthUnit): number {
 /** 10^k for k = −30…30, each the double nearest the decimal power (1/10⁴ is exact; 10 ** −4 may not be). */
 const POW10 = Array.from({ length: 61 }, (_, i) => (i >= 30 ? 10 ** (i - 30) : 1 / 10 ** (30 - i)));
 
-/** clean()'s view of a double's bits: EXPONENT[1] >>> 20 is the biased binary exponent of BITS[0] ≥ 0 (little-endian, as every platform Node runs on). */
+/** decadeOf's view of a double's bits: EXPONENT[1] >>> 20 is the biased binary exponent of BITS[0] > 0 (little-endian, as every platform Node runs on). */
 const BITS = new Float64Array(1);
 const EXPONENT = new Uint32Array(BITS.buffer);
 /** ⌊(e − 1023)·log10 2⌋ for each biased exponent e: the decade of 2^(e − 1023), so the decade of a number with that exponent or one below it. */
 const DECADE_OF_EXPONENT = Int32Array.from({ length: 2048 }, (_, e) => Math.floor((e - 1023) * Math.LOG10E * Math.LN2));
+
+/**
+ * The decade of y: the largest k with pow10(k) ≤ y, for 1e-30 ≤ y < 1e30. From y's binary exponent
+ * e (2^e ≤ y < 2^(e+1)): ⌊e·log10 2⌋ is the decade or one below it, so one comparison settles it.
+ */
+export function decadeOf(y: number): number {
+  BITS[0] = y;
+  const k = DECADE_OF_EXPONENT[EXPONENT[1] >>> 20];
+  return y >= POW10[k + 31] ? k + 1 : k;
+}
 
 /** 10^k as the double nearest the decimal power. */
 export function pow10(k: number): number {
@@ -151,11 +161,7 @@ export function roundScaled(a: number, k: number): number {
 export function clean(x: number): number {
   const a = x < 0 ? -x : x;
   if (a >= 1e-7 && a < 1e15) {
-    // the decade of a from its binary exponent (⌊e·log10 2⌋ is the decade or one below it)
-    BITS[0] = a;
-    let lo = DECADE_OF_EXPONENT[EXPONENT[1] >>> 20];
-    if (a >= POW10[lo + 31]) lo++;
-    const k = 14 - lo; // 0 ≤ k ≤ 21 here, so 10^k is exact
+    const k = 14 - decadeOf(a); // 0 ≤ k ≤ 21 here, so 10^k is exact
     const b = POW10[k + 30];
     const p = a * b;
     const fl = Math.floor(p);

@@ -3,7 +3,7 @@
 // here against exact rational arithmetic (BigInt), on random values and on values built to sit
 // within a few ulps of a half, where only the exact product can decide.
 import { describe, expect, it } from "vitest";
-import { clean, roundScaled } from "../../../app/lib/units";
+import { clean, decadeOf, pow10, roundScaled } from "../../../app/lib/units";
 
 /** a·10^k rounded half up, exactly (a ≥ 0 finite), −1 for an exact tie or a product ≥ 4e15. */
 function exact(a: number, k: number): number {
@@ -90,3 +90,28 @@ function nextDown(x: number): number {
   v.setBigUint64(0, v.getBigUint64(0) - 1n);
   return v.getFloat64(0);
 }
+
+describe("decadeOf", () => {
+  it("is the largest k with pow10(k) ≤ y over its whole range, at every power of ten and the doubles beside it", () => {
+    const byTable = (y: number) => {
+      let k = -30;
+      while (k < 29 && pow10(k + 1) <= y) k++;
+      return k;
+    };
+    const wrong: string[] = [];
+    for (let e = -30; e <= 29; e++) {
+      let a = pow10(e);
+      let b = pow10(e);
+      for (let s = 0; s < 3; s++) {
+        for (const y of [a, b]) if (y >= 1e-30 && y < 1e30 && decadeOf(y) !== byTable(y)) wrong.push(`${y}`);
+        a = nextUp(a);
+        b = nextDown(b);
+      }
+    }
+    for (let i = 0; i < 100_000; i++) {
+      const y = 10 ** (rand() * 59.9 - 30);
+      if (decadeOf(y) !== byTable(y)) wrong.push(`${y}`);
+    }
+    expect(wrong.slice(0, 10)).toEqual([]);
+  });
+});
