@@ -47,7 +47,7 @@ function markers(n: number): ResolvedMarker[] {
  *
  * Each block starts after a full collection, which leaves V8's young generation small: for the next
  * few dozen calls, a function that allocates a megabyte per call (a 1,000-marker result) runs 1.5–3×
- * slower while the young generation grows back (tests/bench/README.md). A designer's typing meets
+ * slower while the young generation grows back (app/lib/scale/README.md). A designer's typing meets
  * the steady state, so each block warms up for at least 60 calls and 100 ms before it is timed.
  */
 function blocks(fs: Record<string, () => unknown>, runs: number, rounds = 5): Record<string, number> {
@@ -79,19 +79,20 @@ const durations = standardDurations(80);
 const oldDurations = todayDurations(80);
 const ms = markers(1000);
 
-const first = computeExhibit(route, ms, durations);
-if (!first.ok) throw new Error(first.message);
+// The setup keeps no whole result, only what it needs (a kept result teaches V8 to allocate the
+// results' objects in the old generation: app/lib/scale/README.md, "Allocation sites").
+const check = <T extends { ok: boolean }>(r: T): T & { ok: true } => {
+  if (!r.ok) throw new Error((r as unknown as { message: string }).message);
+  return r as T & { ok: true };
+};
+check(computeExhibit(route, ms, durations));
 // the composer's route cache (composer.tsx): the route measured once, for repeated queries
 const cache: { route?: PreparedRoute; geometry?: unknown } | undefined = routeCacheFor(geometry);
 if (!cache) throw new Error("the bench route did not parse");
 // today's code reuses a route prepared by today's code
-const todayFirst = todayExhibit(route, ms, oldDurations);
-if (!todayFirst.ok) throw new Error(todayFirst.message);
-const todayCache = { route: todayFirst.route, geometry };
-const ropeResult = computeExhibit(rope, ms, durations);
-if (!ropeResult.ok) throw new Error(ropeResult.message);
+const todayCache = { route: check(todayExhibit(route, ms, oldDurations)).route, geometry };
 // the baseline's distances: the rope's 1,000 marker distances, each formatted once
-const distances = ropeResult.result.points.map((p) => p.fromOlderEndMetres);
+const distances = Float64Array.from(check(computeExhibit(rope, ms, durations)).result.points, (p) => p.fromOlderEndMetres);
 const nf = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 3 });
 let sink = 0;
 const baseline = () => {
