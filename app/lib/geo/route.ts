@@ -47,8 +47,9 @@ const ONE_MINUS_E2_SQ = ONE_MINUS_E2 * ONE_MINUS_E2;
 
 // Module scratch in one typed array (a double written to a module variable would be a new heap
 // number each time): geodetic()'s local frame at the point (sin and cos of its latitude and
-// longitude), placeAt's result (longitude, latitude, bearing) and vertexEcef()'s (x, y, z).
-const SCRATCH = new Float64Array(10);
+// longitude), placeAt's result (longitude, latitude, bearing), vertexEcef()'s (x, y, z) and
+// bowring()'s terms (p, and tan φ as num / den).
+const SCRATCH = new Float64Array(13);
 const SIN_LAT = 0;
 const COS_LAT = 1;
 const SIN_LON = 2;
@@ -59,6 +60,9 @@ const BEARING = 6;
 const EX = 7;
 const EY = 8;
 const EZ = 9;
+const P = 10;
+const NUM = 11;
+const DEN = 12;
 
 /** A route ready for repeated queries: vertices and cumulative geodesic distance. */
 export interface PreparedRoute {
@@ -219,8 +223,17 @@ export interface RoutePosition {
  * below 1e-15 rad (tests/unit/geo/geodetic.test.ts). Leaves sin/cos of φ and λ in SCRATCH[SIN_LAT…COS_LON].
  */
 function geodetic(x: number, y: number, z: number): void {
+  bowring(x, y, z);
+  SCRATCH[LAT] = Math.atan2(SCRATCH[NUM], SCRATCH[DEN]) / DEG;
+  SCRATCH[LON] = Math.atan2(y, x) / DEG;
+}
+
+/**
+ * Bowring's terms of an ECEF point into SCRATCH: P = √(x² + y²), NUM and DEN with tan φ = NUM / DEN
+ * (see geodetic), and the local frame at the point (sin and cos of φ and λ).
+ */
+function bowring(x: number, y: number, z: number): void {
   const p = Math.sqrt(x * x + y * y);
-  const lam = Math.atan2(y, x);
   const az = A * z;
   const bp = B * p;
   const r = Math.sqrt(az * az + bp * bp);
@@ -229,17 +242,19 @@ function geodetic(x: number, y: number, z: number): void {
   const num = z + EP2_B * sb * sb * sb;
   const den = p - E2_A * cb * cb * cb;
   const h = Math.sqrt(num * num + den * den);
+  SCRATCH[P] = p;
+  SCRATCH[NUM] = num;
+  SCRATCH[DEN] = den;
   SCRATCH[SIN_LAT] = num / h;
   SCRATCH[COS_LAT] = den / h;
   if (p > 0) {
     SCRATCH[SIN_LON] = y / p;
     SCRATCH[COS_LON] = x / p;
   } else {
+    const lam = Math.atan2(y, x);
     SCRATCH[SIN_LON] = Math.sin(lam);
     SCRATCH[COS_LON] = Math.cos(lam);
   }
-  SCRATCH[LAT] = Math.atan2(num, den) / DEG;
-  SCRATCH[LON] = lam / DEG;
 }
 
 /** |tan| below which atanSmall's series is exact to a double: t⁹/9 < 6e-17 (and a 10 km chord spans at most 0.0016 rad of latitude). */
@@ -259,32 +274,23 @@ function atanSmall(t: number): number {
  * (near a pole). Agrees with geodetic to about 1e-15 rad (tests/unit/geo/geodetic.test.ts).
  */
 function geodeticNear(x: number, y: number, z: number, x1: number, y1: number, z1: number, lon1: number, lat1: number): void {
-  const p = Math.sqrt(x * x + y * y);
-  const az = A * z;
-  const bp = B * p;
-  const r = Math.sqrt(az * az + bp * bp);
-  const sb = az / r;
-  const cb = bp / r;
-  const num = z + EP2_B * sb * sb * sb;
-  const den = p - E2_A * cb * cb * cb;
+  bowring(x, y, z);
+  const p = SCRATCH[P];
+  const num = SCRATCH[NUM];
+  const den = SCRATCH[DEN];
   // tan(Δλ) and tan(Δφ) from the two points' terms
   const lonCos = x1 * x + y1 * y;
   const tLon = (x1 * y - y1 * x) / lonCos;
-  const num1 = z1;
   const den1 = ONE_MINUS_E2 * Math.sqrt(x1 * x1 + y1 * y1);
-  const latCos = den * den1 + num * num1;
-  const tLat = (num * den1 - den * num1) / latCos;
-  if (!(p > 0 && lonCos > 0 && latCos > 0 && tLon < SMALL_TAN && tLon > -SMALL_TAN && tLat < SMALL_TAN && tLat > -SMALL_TAN)) {
-    geodetic(x, y, z);
-    return;
+  const latCos = den * den1 + num * z1;
+  const tLat = (num * den1 - den * z1) / latCos;
+  if (p > 0 && lonCos > 0 && latCos > 0 && tLon < SMALL_TAN && tLon > -SMALL_TAN && tLat < SMALL_TAN && tLat > -SMALL_TAN) {
+    SCRATCH[LAT] = lat1 + atanSmall(tLat) / DEG;
+    SCRATCH[LON] = lon1 + atanSmall(tLon) / DEG;
+  } else {
+    SCRATCH[LAT] = Math.atan2(num, den) / DEG;
+    SCRATCH[LON] = Math.atan2(y, x) / DEG;
   }
-  const h = Math.sqrt(num * num + den * den);
-  SCRATCH[SIN_LAT] = num / h;
-  SCRATCH[COS_LAT] = den / h;
-  SCRATCH[SIN_LON] = y / p;
-  SCRATCH[COS_LON] = x / p;
-  SCRATCH[LAT] = lat1 + atanSmall(tLat) / DEG;
-  SCRATCH[LON] = lon1 + atanSmall(tLon) / DEG;
 }
 
 /** Geodetic latitude and longitude (degrees) of an Earth-centred point within a few metres of the WGS84 surface (Bowring's closed form). */

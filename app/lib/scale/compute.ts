@@ -150,11 +150,14 @@ export interface ComputeOptions {
   pointYears?: PointYears;
 }
 
-// The per-marker results, made by `new` (records.ts: plain objects the engine does not pretenure),
-// one constructor per shape: every point of a result has the same fields in the same order.
+// The per-marker results, made by `new` (records.ts: plain objects the engine does not pretenure).
 
-/** A point on a length medium (label last, and only when the request has one). */
-const LengthPoint = plainRecord(function (
+/**
+ * A point: on a route with its place, bearing and walking figures (`position` given), else without
+ * them; the label last, and only when the request has one. Every point of a result has the same
+ * fields in the same order.
+ */
+const Point = plainRecord(function (
   this: PointResult,
   id: string,
   number: number,
@@ -165,35 +168,9 @@ const LengthPoint = plainRecord(function (
   uncertaintyMetres: number | null,
   display: DistanceLabel,
   insets: readonly InsetPlacement[],
-  label: string | undefined,
-) {
-  this.id = id;
-  this.number = number;
-  this.ageYears = ageYears;
-  this.uncertaintyYears = uncertaintyYears;
-  this.fromOlderEndMetres = fromOlderEndMetres;
-  this.fromYoungerEndMetres = fromYoungerEndMetres;
-  this.uncertaintyMetres = uncertaintyMetres;
-  this.display = display;
-  this.insets = insets;
-  if (label !== undefined) this.label = label;
-});
-
-/** A point on a route: a LengthPoint's fields, then its place, bearing and walking figures. */
-const RoutePoint = plainRecord(function (
-  this: PointResult,
-  id: string,
-  number: number,
-  ageYears: number,
-  uncertaintyYears: number | null,
-  fromOlderEndMetres: number,
-  fromYoungerEndMetres: number,
-  uncertaintyMetres: number | null,
-  display: DistanceLabel,
-  insets: readonly InsetPlacement[],
-  position: { lon: number; lat: number },
+  position: { lon: number; lat: number } | undefined,
   bearing: number,
-  walking: Walking,
+  walking: Walking | undefined,
   label: string | undefined,
 ) {
   this.id = id;
@@ -205,9 +182,11 @@ const RoutePoint = plainRecord(function (
   this.uncertaintyMetres = uncertaintyMetres;
   this.display = display;
   this.insets = insets;
-  this.position = position;
-  this.bearing = bearing;
-  this.walking = walking;
+  if (position !== undefined) {
+    this.position = position;
+    this.bearing = bearing;
+    this.walking = walking;
+  }
   if (label !== undefined) this.label = label;
 });
 
@@ -350,8 +329,8 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     const display = markerLabel(fromOlder, fromYounger, a, uncYears, mpy, resolution, unit, system);
     const uncertaintyMetres = uncYears !== null ? clean(uncYears * mpy) : null;
     points[i] = placed
-      ? new RoutePoint(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, new LonLat(placed.lon[i], placed.lat[i]), Math.round(placed.bearing[i] * 1e6) / 1e6, placed.walking[i], p.label)
-      : new LengthPoint(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, p.label);
+      ? new Point(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, new LonLat(placed.lon[i], placed.lat[i]), Math.round(placed.bearing[i] * 1e6) / 1e6, placed.walking[i], p.label)
+      : new Point(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, undefined, 0, undefined, p.label);
   }
 
   // durations: a located span (the last N years) shows only on an inset that contains it; a
