@@ -508,9 +508,12 @@ export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>
         // bisection would read one record in each of several places (each one a cache miss)
         while (block + 1 < blocks.length && blocks[block + 1] <= d) block++;
         const start = block * SEARCH_BLOCK;
-        const end = start + SEARCH_BLOCK < last ? start + SEARCH_BLOCK : last; // cum[end] > d
+        // the block's end, cum[end] > d: the next block's start (from the table, not the records)
+        const inside = start + SEARCH_BLOCK < last;
+        const end = inside ? start + SEARCH_BLOCK : last;
         const from = blocks[block];
-        let g = start + Math.floor(((d - from) / (keys[stride * end] - from)) * (end - start));
+        const to = inside ? blocks[block + 1] : cum[last];
+        let g = start + Math.floor(((d - from) / (to - from)) * (end - start));
         if (g < lo) g = lo;
         if (g >= end) g = end - 1;
         if (keys[stride * g] <= d) {

@@ -297,14 +297,14 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
   const stepLength = request.stepLengthM ?? DEFAULT_STEP_LENGTH_M;
   const shortStep = request.stepLengthM ?? STEP_LENGTH_RANGE_M[0];
   const routeStart = request.routeStart ?? "older";
-  let placed: { lon: Float64Array; lat: Float64Array; bearing: Float64Array; walking: Walking[] } | null = null;
+  let placed: { ds: Float64Array; lon: Float64Array; lat: Float64Array; bearing: Float64Array; walking: Walking[] } | null = null;
   if (route) {
     const speedText = system === "us" ? `${formatSig(accessibleSpeed / 0.3048, 2)} ft/s` : `${accessibleSpeed} m/s`;
     const ds = new Float64Array(n);
     for (let i = 0; i < n; i++) ds[i] = clean(routeStart === "older" ? (olderYears - ages[i]) * mpy : (ages[i] - youngerYears) * mpy);
     const pos = positionsInto(route, ds, { lon: new Float64Array(n), lat: new Float64Array(n), bearing: new Float64Array(n) });
     const speeds: WalkingSettings = { walkingSpeed, accessibleSpeed, stepLength, shortStep, speedText };
-    placed = { lon: pos.lon, lat: pos.lat, bearing: pos.bearing, walking: walkingFor(ds, speeds) };
+    placed = { ds, lon: pos.lon, lat: pos.lat, bearing: pos.bearing, walking: walkingFor(ds, speeds, true) };
   }
 
   const points: PointResult[] = new Array(n);
@@ -329,7 +329,8 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     const display = markerLabel(fromOlder, fromYounger, a, uncYears, mpy, resolution, unit, system);
     const uncertaintyMetres = uncYears !== null ? clean(uncYears * mpy) : null;
     points[i] = placed
-      ? new Point(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, new LonLat(placed.lon[i], placed.lat[i]), Math.round(placed.bearing[i] * 1e6) / 1e6, placed.walking[i], p.label)
+      ? // a marker's distance from the route's start is one of the two, already clean()ed
+        new Point(p.id, numbers[i], a, uncYears, routeStart === "older" ? placed.ds[i] : clean(fromOlder), routeStart === "older" ? clean(fromYounger) : placed.ds[i], uncertaintyMetres, display, placements ?? NO_INSETS, new LonLat(placed.lon[i], placed.lat[i]), Math.round(placed.bearing[i] * 1e6) / 1e6, placed.walking[i], p.label)
       : new Point(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, undefined, 0, undefined, p.label);
   }
 

@@ -2,7 +2,7 @@
  * Walking figures at a marker on a route: time at the design walking speed and at the slow-walker
  * check, and steps as a common-practice range.
  */
-import { clean } from "../units";
+import { clean, decadeOf, pow10 } from "../units";
 import { formatCountTwoFigures, formatDuration } from "./format";
 import { plainRecord } from "./records";
 
@@ -60,11 +60,11 @@ export function walkingAt(d: number, w: WalkingSettings): Walking {
 }
 
 /**
- * Walking figures for each distance from the start of the route, metres. One loop for all the
- * markers: their distances stay in the typed array, and the slow-speed wording's table of texts is
- * looked up once.
+ * Walking figures for each distance from the start of the route, metres (`distancesClean`: already
+ * clean()ed, as the engine's are). One loop for all the markers: their distances stay in the typed
+ * array, and the slow-speed wording's table of texts is looked up once.
  */
-export function walkingFor(distances: Float64Array, w: WalkingSettings): Walking[] {
+export function walkingFor(distances: Float64Array, w: WalkingSettings, distancesClean = false): Walking[] {
   const out = new Array<Walking>(distances.length);
   const times = timesTable(w.speedText);
   for (let i = 0; i < distances.length; i++) {
@@ -75,7 +75,7 @@ export function walkingFor(distances: Float64Array, w: WalkingSettings): Walking
     const stepsUpTo = Math.round(d / w.shortStep);
     // "12 min walk (16 min at 0.9 m/s), " + "about 1,100–1,300 steps"
     const text = timesText(seconds, accessibleSeconds, w.speedText, times) + stepsText(steps, stepsUpTo);
-    out[i] = new WalkingRecord(clean(d), clean(seconds), clean(accessibleSeconds), steps, stepsUpTo, text);
+    out[i] = new WalkingRecord(distancesClean ? d : clean(d), clean(seconds), clean(accessibleSeconds), steps, stepsUpTo, text);
   }
   return out;
 }
@@ -164,13 +164,8 @@ function timesText(seconds: number, slowSeconds: number, speedText: string, tabl
 function countKey(n: number): number {
   if (n >= 0 && n < 100 && Number.isInteger(n)) return n;
   if (!(n >= 100 && Number.isSafeInteger(n))) return -1;
-  let p = 1;
-  let k = 0;
-  while (n >= p * 100) {
-    p *= 10;
-    k++;
-  }
-  return 100 + k * 101 + Math.round(n / p);
+  const k = decadeOf(n) - 1; // n has two more digits than 10^k has zeros (exact: n is an integer)
+  return 100 + k * 101 + Math.round(n / pow10(k));
 }
 const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53
 /** Above every count slot: the second slot of a single count ("about 1,100 steps"), apart from any range's. */

@@ -363,6 +363,22 @@ describe("routes", () => {
     expect(r.scale.route!.walkingSeconds).toBeCloseTo(r.scale.totalMetres, 6);
   });
 
+  it("gives a route's markers the same distances from both ends whichever end the route starts at", () => {
+    // (the engine takes the end the route starts from as the marker's walking distance, already
+    // rounded clean, and works out the other: both ways must give the same figures)
+    const points = Array.from({ length: 60 }, (_, i) => ({ id: `p${i}`, age: { value: Number((4567 * ((i + 0.37) / 60) ** 2).toPrecision(6)), unit: "Ma" as const } }));
+    const fromOlder = run({ span: eon, medium: { kind: "route", geometry: marrowbyRoute }, routeStart: "older", points });
+    const fromYounger = run({ span: eon, medium: { kind: "route", geometry: marrowbyRoute }, routeStart: "younger", points });
+    fromOlder.points.forEach((p, i) => {
+      const q = fromYounger.points[i];
+      expect(p.fromOlderEndMetres, p.id).toBe(q.fromOlderEndMetres);
+      expect(p.fromYoungerEndMetres, p.id).toBe(q.fromYoungerEndMetres);
+      expect(p.walking!.distanceFromStartMetres).toBe(p.fromOlderEndMetres);
+      expect(q.walking!.distanceFromStartMetres).toBe(q.fromYoungerEndMetres);
+      expect(p.fromOlderEndMetres).toBe(Number(p.fromOlderEndMetres.toPrecision(15)));
+    });
+  });
+
   it("reads a GPX track", () => {
     const gpx = `<?xml version="1.0"?><gpx version="1.1" creator="test" xmlns="http://www.topografix.com/GPX/1/1"><trk><trkseg>
       <trkpt lat="54.2" lon="-2.9"/><trkpt lat="54.21" lon="-2.9"/></trkseg></trk></gpx>`;
