@@ -29,7 +29,8 @@ function decimalText(f: number, d: number, suffix: string): string {
 
 /**
  * decimalText, kept: up to three decimals, each number of decimals and unit word has its table, so
- * that a label is one concatenation of whole part and table entry. Suffixes are the few fixed unit
+ * that a label is one concatenation of whole part and table entry (from four decimals, the few
+ * values below FEW_FIGURES, as they come). Suffixes are the few fixed unit
  * words ("" or " m", " ft", …), found by a short scan (they are the same string objects every time,
  * so each comparison is one check), not a hash lookup; past 16 of them, the text is written afresh.
  */
@@ -37,7 +38,7 @@ const FRACTION_SUFFIXES: string[] = [];
 const FRACTION_TABLES: string[][][] = [];
 const MAX_SUFFIXES = 16;
 function fractionText(f: number, d: number, suffix: string): string {
-  if (d > 3) return decimalText(f, d, suffix);
+  if (d > MANY_DECIMALS || (d > 3 && f >= FEW_FIGURES)) return decimalText(f, d, suffix);
   let s = 0;
   while (s < FRACTION_SUFFIXES.length && FRACTION_SUFFIXES[s] !== suffix) s++;
   if (s === FRACTION_SUFFIXES.length) {
@@ -46,9 +47,17 @@ function fractionText(f: number, d: number, suffix: string): string {
     FRACTION_TABLES.push([]);
   }
   const byDecimals = FRACTION_TABLES[s];
+  if (d > 3) {
+    // a ± far finer than the step ("± 0.000005 m"): few figures after many zeros, kept as they come
+    const few = (byDecimals[d] ??= new Array<string>(FEW_FIGURES));
+    return (few[f] ??= decimalText(f, d, suffix));
+  }
   const table = (byDecimals[d] ??= Array.from({ length: pow10(d) }, (_, k) => decimalText(k, d, suffix)));
   return table[f];
 }
+/** Decimal parts of 4 to MANY_DECIMALS decimals are kept below FEW_FIGURES (a ± has one or two figures). */
+const MANY_DECIMALS = 12;
+const FEW_FIGURES = 1000;
 
 /**
  * The whole part of a figure with its thousands separators, "4,501" (or "± 4,501"), for

@@ -16,6 +16,7 @@ import {
   type SuggestedInset,
 } from "./legibility";
 import { compareIds, warningKey } from "./numbering";
+import { plainRecord } from "./records";
 
 export const WARNING_CODES = [
   "markers-same-age",
@@ -259,6 +260,13 @@ interface Named {
  * Markers as warnings name them, in table order (by number, then id): points[from, to), which
  * `inTableOrder` says are known to be in table order already.
  */
+/** A WarningMarker, made by `new` (records.ts: a crowding warning can name every marker, on every keystroke). */
+const Marker = plainRecord(function (this: WarningMarker, id: string, number: number, label: string) {
+  this.id = id;
+  this.number = number;
+  this.label = label;
+});
+
 function namedMarkers(points: readonly WarnedPoint[], from: number, to: number, inTableOrder: boolean): Named {
   let sorted = true;
   if (!inTableOrder) for (let i = from + 1; i < to && sorted; i++) sorted = points[i - 1].number < points[i].number;
@@ -269,7 +277,7 @@ function namedMarkers(points: readonly WarnedPoint[], from: number, to: number, 
   for (let i = 0; i < to - from; i++) {
     const p = ps[start + i];
     ids[i] = p.id;
-    markers[i] = { id: p.id, number: p.number, label: p.label ?? p.id };
+    markers[i] = new Marker(p.id, p.number, p.label ?? p.id);
   }
   return { markers, ids, reordered: !sorted };
 }

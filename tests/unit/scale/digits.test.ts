@@ -42,4 +42,23 @@ describe("figures from kept whole parts", () => {
     expect(digits(7, 3, false, " m")).toBe("0.007 m");
     expect(digits(7, 3, false, "")).toBe("0.007");
   });
+
+  it("many decimals read right, the few-figure ones kept and the rest written afresh, asked twice", () => {
+    // a ± far finer than its label's step: "± 0.000005 m" (6 decimals), "± 0.000000012 m" (9)
+    const wrong: string[] = [];
+    for (const d of [4, 5, 6, 9, 12, 13, 15]) {
+      for (const f of [0, 5, 12, 99, 999, 1000, 4321]) {
+        for (const whole of [0, 3, 1234]) {
+          const n = whole * 10 ** d + f;
+          if (!Number.isSafeInteger(n)) continue;
+          const want = `${whole.toLocaleString("en-GB")}.${String(f).padStart(d, "0")} m`;
+          for (let twice = 0; twice < 2; twice++) if (digits(n, d, false, " m") !== want) wrong.push(`${n} ${d}`);
+          if (digits(n, d, false, " m", true) !== `± ${want}`) wrong.push(`± ${n} ${d}`);
+        }
+      }
+    }
+    expect(wrong).toEqual([]);
+    expect(formatFixed(0.000005, 6)).toBe("0.000005");
+  });
 });
+
