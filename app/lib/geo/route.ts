@@ -27,8 +27,11 @@
  * costs about as much to touch as the arithmetic on it: 24 bytes more per vertex would add a tenth
  * to a 10⁵-vertex route's time), and placing a marker recomputes its segment's two ends in ECEF
  * with the same operations the lengths were measured with. A route prepared for repeated queries
- * (the composer's preview) keeps every vertex's ECEF, so a marker costs no trigonometry for them.
- * Either way the local frame for the bearing comes from the same terms as the latitude.
+ * (the composer's preview) keeps a record per vertex — its distance, ECEF and degrees side by side —
+ * and every 64th distance in a small table, so a marker costs no trigonometry for its segment's ends
+ * and its search reads the memory its placing reads. Either way the local frame for the bearing
+ * comes from the same terms as the latitude, and the point's longitude and latitude are the first
+ * vertex's plus two small angles (geodeticNear).
  */
 import { DEG, WGS84_A, WGS84_B, WGS84_E2, WGS84_EP2, normalizeAzimuth, normalizeLon } from "./ellipsoid";
 import { geodesicDirect, geodesicInverse } from "./geodesic";
