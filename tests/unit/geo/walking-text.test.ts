@@ -77,11 +77,12 @@ describe("cached walking texts", () => {
 });
 
 describe("the walking sentence's kept halves", () => {
-  it("stay right for many speeds and many distances (the tables are emptied and refilled on the way)", async () => {
+  it("stay right for many speeds, step lengths and distances (speed tables dropped past eight, entries taken over by other pairs on the way)", async () => {
     const { walkingAt: at } = await import("../../../app/lib/scale/walking");
     const { formatCountTwoFigures: count, formatDuration: dur } = await import("../../../app/lib/scale/format");
     for (let s = 0; s < 20; s++) {
-      const w = { walkingSpeed: 1 + s / 10, accessibleSpeed: 0.5 + s / 20, stepLength: 0.76, shortStep: 0.66, speedText: `${0.5 + s / 20} m/s` };
+      // two step ranges and two slow speeds take turns: a kept half's first slot meets other second slots
+      const w = { walkingSpeed: 1 + s / 10, accessibleSpeed: 0.5 + s / 20, stepLength: s % 2 ? 0.76 : 0.8, shortStep: s % 2 ? 0.66 : 0.5, speedText: `${0.5 + (s % 10) / 20} m/s` };
       for (let k = 0; k < 3000; k++) {
         const d = k * 37.3 + s;
         const steps = Math.round(d / w.stepLength);
