@@ -1,0 +1,205 @@
+/**
+ * Positions and bearings of markers along a prepared route (route.ts has the method): one at a
+ * time, or many at once in one forward pass.
+ */
+import { DEG, normalizeAzimuth, normalizeLon } from "./ellipsoid";
+import { GEO, COS_LAT, COS_LON, EX, EY, EZ, LAT, LON, SIN_LAT, SIN_LON, E2, INV_R2_FACTOR, ONE_MINUS_E2_SQ, geodeticNear, vertexEcef } from "./ecef";
+import { geodesicDirect, geodesicInverse } from "./geodesic";
+import { CHORD_LIMIT_M, VERTEX_RECORD, type PreparedRoute } from "./route-prepare";
+import { SegmentCursor, segmentIndexAt } from "./route-search";
+
+export interface RoutePosition {
+  /** Requested distance from the start (clamped to [0, total]), metres. */
+  distanceMetres: number;
+  lon: number;
+  lat: number;
+  /** Direction of travel along the route at this point, degrees clockwise from true north. */
+  bearing: number;
+  /** Index of the segment (its first vertex) holding the point. */
+  segment: number;
+}
+
+/** Positions for many distances, written into typed arrays (allocation-free but for the sort order when the distances are not monotone). */
+export interface RoutePositions {
+  lon: Float64Array;
+  lat: Float64Array;
+  bearing: Float64Array;
+  /** Index of the segment holding each point (optional). */
+  segment?: Int32Array;
+}
+
+/** positionAt's place to write one position. */
+const ONE: RoutePositions = { lon: new Float64Array(1), lat: new Float64Array(1), bearing: new Float64Array(1) };
+
+/** Position and bearing at one distance from the route's start. */
+export function positionAt(route: PreparedRoute, distanceMetres: number, segmentHint?: number): RoutePosition {
+  const d = Math.min(Math.max(distanceMetres, 0), route.totalMetres);
+  const i = route.vertexCount === 1 ? 0 : (segmentHint ?? segmentIndexAt(route, d));
+  placeAt(route, d, i, ONE, 0);
+  return { distanceMetres: d, lon: ONE.lon[0], lat: ONE.lat[0], bearing: ONE.bearing[0], segment: i };
+}
+
+/**
+ * Positions for many distances at once. Distances are taken in increasing order (sorted once
+ * unless already monotone) and the route is walked in a single forward pass (SegmentCursor).
+ * Results are written in input order into `out` (length ≥ distances.length).
+ */
+export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>, out: RoutePositions): RoutePositions {
+  const m = distances.length;
+  let up = true;
+  let down = true;
+  for (let k = 1; k < m && (up || down); k++) {
+    if (distances[k] < distances[k - 1]) up = false;
+    if (distances[k] > distances[k - 1]) down = false;
+  }
+  let order: Uint32Array | null = null;
+  if (!up && !down) {
+    const idx = Array.from({ length: m }, (_, k) => k).sort((a, b) => distances[a] - distances[b]);
+    order = Uint32Array.from(idx);
+  }
+  const total = route.totalMetres;
+  const cursor = new SegmentCursor(route);
+  for (let j = 0; j < m; j++) {
+    const k = order ? order[j] : up ? j : m - 1 - j;
+    const d = Math.min(Math.max(distances[k], 0), total);
+    const i = cursor.next(d);
+    placeAt(route, d, i, out, k);
+    if (out.segment) out.segment[k] = i;
+  }
+  return out;
+}
+
+/** Positions for many distances at once (positionsInto, as objects), in input order. */
+export function positionsAt(route: PreparedRoute, distances: ArrayLike<number>): RoutePosition[] {
+  const m = distances.length;
+  const p = positionsInto(route, distances, { lon: new Float64Array(m), lat: new Float64Array(m), bearing: new Float64Array(m), segment: new Int32Array(m) });
+  const out = new Array<RoutePosition>(m);
+  for (let k = 0; k < m; k++) {
+    const d = Math.min(Math.max(distances[k], 0), route.totalMetres);
+    out[k] = { distanceMetres: d, lon: p.lon[k], lat: p.lat[k], bearing: p.bearing[k], segment: p.segment![k] };
+  }
+  return out;
+}
+
+const longSegmentCache = new WeakMap<PreparedRoute, Map<number, number>>();
+
+/** The exact starting azimuth of long segment i (kept per route). */
+function longSegmentAzimuth(route: PreparedRoute, i: number): number {
+  let m = longSegmentCache.get(route);
+  if (!m) {
+    m = new Map();
+    longSegmentCache.set(route, m);
+  }
+  let azi = m.get(i);
+  if (azi === undefined) {
+    const c = route.coords;
+    azi = geodesicInverse(c[2 * i + 1], c[2 * i], c[2 * i + 3], c[2 * i + 2]).azi1;
+    m.set(i, azi);
+  }
+  return azi;
+}
+
+/** Position and bearing at distance d (already clamped) inside segment i, into out.lon[k], out.lat[k], out.bearing[k]. */
+function placeAt(route: PreparedRoute, d: number, i: number, out: RoutePositions, k: number): void {
+  const c = route.coords;
+  if (route.vertexCount === 1) {
+    out.lon[k] = c[0];
+    out.lat[k] = c[1];
+    out.bearing[k] = 0;
+    return;
+  }
+  // the segment's start and end distances, the first vertex's degrees and both ends' ECEF, exactly
+  // as prepareRoute computed them: kept in the vertex records, or computed again
+  const v = route.vertices;
+  let segStart: number, segEnd: number, lon1: number, lat1: number;
+  let x1: number, y1: number, z1: number, dx: number, dy: number, dz: number;
+  if (v !== undefined) {
+    const r1 = VERTEX_RECORD * i;
+    const r2 = r1 + VERTEX_RECORD;
+    segStart = v[r1];
+    segEnd = v[r2];
+    x1 = v[r1 + 1];
+    y1 = v[r1 + 2];
+    z1 = v[r1 + 3];
+    lon1 = v[r1 + 4];
+    lat1 = v[r1 + 5];
+    dx = v[r2 + 1] - x1;
+    dy = v[r2 + 2] - y1;
+    dz = v[r2 + 3] - z1;
+  } else {
+    segStart = route.cumulative[i];
+    segEnd = route.cumulative[i + 1];
+    lon1 = c[2 * i];
+    lat1 = c[2 * i + 1];
+    vertexEcef(c[2 * i + 2], c[2 * i + 3]);
+    const x2 = GEO[EX];
+    const y2 = GEO[EY];
+    const z2 = GEO[EZ];
+    vertexEcef(c[2 * i], c[2 * i + 1]);
+    x1 = GEO[EX];
+    y1 = GEO[EY];
+    z1 = GEO[EZ];
+    dx = x2 - x1;
+    dy = y2 - y1;
+    dz = z2 - z1;
+  }
+  const segLen = segEnd - segStart;
+  const along = d - segStart;
+  const c2 = dx * dx + dy * dy + dz * dz;
+  if (along <= 0) {
+    out.lon[k] = lon1;
+    out.lat[k] = lat1;
+    out.bearing[k] = vertexBearing(lat1, lon1, dx, dy, dz, c2);
+    return;
+  }
+  if (along >= segLen) {
+    out.lon[k] = c[2 * i + 2];
+    out.lat[k] = c[2 * i + 3];
+    out.bearing[k] = vertexBearing(c[2 * i + 3], c[2 * i + 2], dx, dy, dz, c2);
+    return;
+  }
+  if (Math.sqrt(c2) >= CHORD_LIMIT_M) {
+    // the test prepareRoute made on the same numbers: a segment it solved exactly
+    const azi1 = longSegmentAzimuth(route, i);
+    const r = geodesicDirect(lat1, lon1, azi1, along);
+    out.lon[k] = r.lon2;
+    out.lat[k] = r.lat2;
+    out.bearing[k] = r.azi2;
+    return;
+  }
+  // chord fraction corresponding to arc fraction t on a curve of radius R, R² = M·N at the chord's
+  // middle (sin²φ from ECEF: tan φ = z / ((1 − e²)·p) on the surface), by the series of
+  // tan(uθ)/tan θ = u·(1 + (u² − 1)θ²/3 + (u² − 1)(6u² + 1)θ⁴/45 + O(θ⁶)), θ = s/2R ≤ 8e-4
+  const xm = x1 + 0.5 * dx;
+  const ym = y1 + 0.5 * dy;
+  const zm = z1 + 0.5 * dz;
+  const zz = zm * zm;
+  const w2 = 1 - (E2 * zz) / (zz + (xm * xm + ym * ym) * ONE_MINUS_E2_SQ);
+  const th2 = segLen * segLen * 0.25 * w2 * w2 * INV_R2_FACTOR;
+  const u = (2 * along) / segLen - 1;
+  const u2m1 = u * u - 1;
+  const t = (u * (1 + u2m1 * th2 * (1 / 3 + ((6 * u * u + 1) * th2) / 45)) + 1) / 2;
+  geodeticNear(x1 + t * dx, y1 + t * dy, z1 + t * dz, x1, y1, z1, lon1, lat1);
+  const lon = GEO[LON];
+  out.lon[k] = lon > 180 || lon <= -180 ? normalizeLon(lon) : lon;
+  out.lat[k] = GEO[LAT];
+  out.bearing[k] = frameBearing(dx, dy, dz);
+}
+
+/** Direction of the chord (dx, dy, dz) in the local east/north frame held in GEO, degrees from north. */
+function frameBearing(dx: number, dy: number, dz: number): number {
+  const east = -GEO[SIN_LON] * dx + GEO[COS_LON] * dy;
+  const north = -GEO[SIN_LAT] * (GEO[COS_LON] * dx + GEO[SIN_LON] * dy) + GEO[COS_LAT] * dz;
+  const b = Math.atan2(east, north) / DEG;
+  return b < 0 || b >= 360 ? normalizeAzimuth(b) : b;
+}
+
+/** Direction of the chord (dx, dy, dz; squared length c2) at a vertex (lat, lon), degrees from north. */
+function vertexBearing(lat: number, lon: number, dx: number, dy: number, dz: number, c2: number): number {
+  if (!(c2 > 0)) return 0;
+  GEO[SIN_LAT] = Math.sin(lat * DEG);
+  GEO[COS_LAT] = Math.cos(lat * DEG);
+  GEO[SIN_LON] = Math.sin(lon * DEG);
+  GEO[COS_LON] = Math.cos(lon * DEG);
+  return frameBearing(dx, dy, dz);
+}
