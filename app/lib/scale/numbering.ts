@@ -69,26 +69,7 @@ function sortIds(ids: readonly string[]): string[] {
     .map((i) => ids[i]);
 }
 
-/**
- * The key last made for each warning code, with its ids: the preview asks again on every keystroke,
- * mostly with the same ids (a crowding warning can name every marker — a key of a few kilobytes).
- * At most KEYS_KEPT codes (a few are defined).
- */
-const LAST_KEYS = new Map<string, { ids: readonly string[]; key: string }>();
-const KEYS_KEPT = 64;
-
 /** A warning's stable key: its code and the ids it is about, e.g. "markers-too-close:137,140". */
 export function warningKey(code: string, ids: readonly string[]): string {
-  const last = LAST_KEYS.get(code);
-  if (last !== undefined && sameIds(last.ids, ids)) return last.key;
-  const key = `${code}:${(idsAscending(ids) ? ids : sortIds(ids)).join(",")}`;
-  if (LAST_KEYS.size >= KEYS_KEPT) LAST_KEYS.clear();
-  LAST_KEYS.set(code, { ids: ids.slice(), key });
-  return key;
-}
-
-function sameIds(a: readonly string[], b: readonly string[]): boolean {
-  if (a.length !== b.length) return false;
-  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
-  return true;
+  return `${code}:${(idsAscending(ids) ? ids : sortIds(ids)).join(",")}`;
 }

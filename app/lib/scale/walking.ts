@@ -106,11 +106,12 @@ export function formatDurationCached(seconds: number): string {
 }
 
 /**
- * Sentence halves kept by their two parts' slots (a, b): for each first slot, the second slot last
- * seen with it and the text. A half's second slot nearly always follows from its first (the slow
- * time is the walking time at a fixed ratio, the upper step count the lower at a fixed ratio), so
- * one entry per first slot is almost always a hit — read from two arrays, not hashed; a miss writes
- * the text afresh and takes the entry. A table's size is its number of first slots.
+ * Sentence halves kept by value, the value being their two parts' slots (a, b), in a table with
+ * one entry per first slot (a direct-mapped cache: an entry holds one pair, checked on reading). A
+ * half's second slot nearly always follows from its first (the slow time is the walking time at a
+ * fixed ratio, the upper step count the lower at a fixed ratio), so a pair seldom meets another in
+ * its entry; read from two arrays, not hashed. A pair not in its entry is written afresh and takes
+ * the entry: the text never depends on what was asked before. A table's size is its number of first slots.
  */
 class PairTable {
   private readonly second: Int32Array;

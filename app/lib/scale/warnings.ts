@@ -256,10 +256,6 @@ interface Named {
   reordered: boolean;
 }
 
-/**
- * Markers as warnings name them, in table order (by number, then id): points[from, to), which
- * `inTableOrder` says are known to be in table order already.
- */
 /** A WarningMarker, made by `new` (records.ts: a crowding warning can name every marker, on every keystroke). */
 const Marker = plainRecord(function (this: WarningMarker, id: string, number: number, label: string) {
   this.id = id;
@@ -267,6 +263,10 @@ const Marker = plainRecord(function (this: WarningMarker, id: string, number: nu
   this.label = label;
 });
 
+/**
+ * Markers as warnings name them, in table order (by number, then id): points[from, to), which
+ * `inTableOrder` says are known to be in table order already.
+ */
 function namedMarkers(points: readonly WarnedPoint[], from: number, to: number, inTableOrder: boolean): Named {
   let sorted = true;
   if (!inTableOrder) for (let i = from + 1; i < to && sorted; i++) sorted = points[i - 1].number < points[i].number;

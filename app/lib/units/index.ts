@@ -162,13 +162,9 @@ export function clean(x: number): number {
   const a = x < 0 ? -x : x;
   if (a >= 1e-7 && a < 1e15) {
     const k = 14 - decadeOf(a); // 0 ≤ k ≤ 21 here, so 10^k is exact
-    const b = POW10[k + 30];
-    const p = a * b;
-    const fl = Math.floor(p);
-    const d = p - fl - 0.5; // exact; roundScaled's quick case, written out (an exact landing on the half goes to roundScaled)
-    const n = d > 0 ? fl + 1 : d < 0 ? fl : roundScaled(a, k);
+    const n = roundScaled(a, k);
     if (n >= 1e14 && n < 1e15) {
-      const r = n / b;
+      const r = n / POW10[k + 30];
       return x < 0 ? -r : r;
     }
   }

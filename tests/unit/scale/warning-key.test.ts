@@ -1,5 +1,5 @@
-// warningKey keeps the last key it made for each code: a key must still follow its ids, whatever
-// was asked before, and a caller's array changed in place afterwards must not change a later answer.
+// warningKey: the code and the ids in table order, whatever was asked before, and a caller's
+// array changed in place afterwards must not change a later answer.
 import { describe, expect, it } from "vitest";
 import { warningKey } from "../../../app/lib/scale/numbering";
 
@@ -14,13 +14,13 @@ describe("warningKey", () => {
     const ids = Array.from({ length: 1000 }, (_, i) => String(i + 1));
     const key = warningKey("markers-too-close", ids);
     expect(key).toBe(`markers-too-close:${ids.join(",")}`);
-    ids[999] = "2000"; // changed in place: the kept key must not answer for it
+    ids[999] = "2000"; // changed in place: the earlier answer must not stand for it
     expect(warningKey("markers-too-close", ids)).toBe(`markers-too-close:${ids.join(",")}`);
     ids.pop();
     expect(warningKey("markers-too-close", ids)).toBe(`markers-too-close:${ids.join(",")}`);
   });
 
-  it("keeps answering right past the number of codes it keeps", () => {
+  it("answers right for many codes, each asked twice", () => {
     for (let round = 0; round < 2; round++) for (let c = 0; c < 100; c++) expect(warningKey(`code-${c}`, ["2", "1"])).toBe(`code-${c}:1,2`);
   });
 });
