@@ -161,7 +161,8 @@ export function computeExhibit(spec: ExhibitSpec, markers: ResolvedMarker[], dur
 
 /**
  * computeExhibit's route cache for a saved route: measured once (10⁴–10⁵ points), then reused on
- * every keystroke of the preview (so it keeps what makes placing markers quicker). Undefined for a length medium or a geometry the engine refuses.
+ * every keystroke of the preview (so it keeps what makes placing markers quicker). Undefined for a
+ * length medium or a geometry the engine refuses.
  */
 export function routeCacheFor(geometry: LineStringGeometry | null): { route: PreparedRoute; geometry: LineStringGeometry } | undefined {
   if (!geometry) return undefined;

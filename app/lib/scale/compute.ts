@@ -1,6 +1,7 @@
 /**
  * computeScale: the linear time-as-distance scale, marker distances and labels, durations,
  * insets, legibility warnings (warnings.ts) and (on routes) coordinates, bearings and walking figures.
+ * The result's shape and the per-marker records are in results.ts.
  */
 import { parseGeoJsonRoute, parseGpxRoute } from "../geo/parse";
 import { positionsInto, prepareRoute, type PreparedRoute } from "../geo/route";
@@ -12,130 +13,19 @@ import {
   markerLabel,
   mediumResolution,
   scaleStatement,
-  type DistanceLabel,
-  type ScaleStatement,
 } from "./format";
-import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, type MediumType, type SuggestedInset } from "./legibility";
+import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, type MediumType } from "./legibility";
 import { compareIds } from "./numbering";
 import type { ScaleRequest } from "./schema";
-import { plainRecord } from "./records";
-import { computeWarnings, type ScaleWarning } from "./warnings";
+import { LonLat, NO_INSETS, Placement, Point, type DurationResult, type InsetPlacement, type InsetResult, type PointResult, type ScaleResult } from "./results";
+import { computeWarnings } from "./warnings";
 import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingFor, type Walking, type WalkingSettings } from "./walking";
 
 export * from "./walking";
 
 export type { DistanceLabel } from "./format";
+export type { DurationInset, DurationResult, InsetPlacement, InsetResult, PointResult, ScaleResult } from "./results";
 export type { ScaleWarning, WarningMarker, WarningCode } from "./warnings";
-
-export interface InsetPlacement {
-  insetId: string;
-  fromOlderEndMetres: number;
-  fromYoungerEndMetres: number;
-  uncertaintyMetres: number | null;
-  display: DistanceLabel;
-}
-
-export interface PointResult {
-  id: string;
-  /** Table number, 1–N by age, oldest first (numbering.ts). */
-  number: number;
-  label?: string;
-  ageYears: number;
-  uncertaintyYears: number | null;
-  fromOlderEndMetres: number;
-  fromYoungerEndMetres: number;
-  uncertaintyMetres: number | null;
-  display: DistanceLabel;
-  position?: { lon: number; lat: number };
-  /** Direction of travel along the route at the marker, degrees clockwise from true north. */
-  bearing?: number;
-  walking?: Walking;
-  /** The marker on each inset that shows it (one shared empty list when none does). */
-  insets: readonly InsetPlacement[];
-}
-
-/** A duration on one inset's scale. */
-export interface DurationInset {
-  insetId: string;
-  insetLabel: string;
-  metres: number;
-  /** Does the inset show it: a located span only when the inset's sub-span contains it; a comparison always. */
-  covers: boolean;
-  /** "1.17 m in inset “last 20,000 years at 100×”", "… at the scale of inset “…”", or why it is not shown there. */
-  text: string;
-  /** Covered and at least the smallest visible length. */
-  visible: boolean;
-}
-
-export interface DurationResult {
-  id: string;
-  label?: string;
-  years: number;
-  /** A located span shown at its place (the last N years, or ending `endsAgoYears` ago, inside the span); false: a comparison. */
-  located: boolean;
-  /** Younger end of a located span, years ago (0: "the last N years"); null for a comparison. */
-  endsAgoYears: number | null;
-  metres: number;
-  text: string;
-  visible: boolean;
-  insets: DurationInset[];
-}
-
-export interface InsetResult {
-  id: string;
-  label: string;
-  olderYears: number;
-  youngerYears: number;
-  magnification: number;
-  /** Sub-span length × magnification, metres. */
-  lengthMetres: number;
-  metresPerYear: number;
-  statement: ScaleStatement;
-  /** Where the sub-span sits on the main scale (distance from the older end), metres. */
-  mainFromOlderEndMetres: number;
-  mainToOlderEndMetres: number;
-  pointIds: string[];
-}
-
-export interface ScaleResult {
-  scale: {
-    olderYears: number;
-    youngerYears: number;
-    spanYears: number;
-    totalMetres: number;
-    metresPerYear: number;
-    yearsPerMetre: number;
-    metresPerMillionYears: number;
-    yearsPerMillimetre: number;
-    statement: ScaleStatement;
-    mediumKind: "length" | "route";
-    mediumType: MediumType;
-    /** The units labels, statements and durations are written in. */
-    unitSystem: UnitSystem;
-    legibility: Legibility & { source: string };
-    route?: {
-      vertexCount: number;
-      lengthMetres: number;
-      start: "older" | "younger";
-      walkingSpeedMps: number;
-      accessibleSpeedMps: number;
-      stepLengthM: number;
-      /** The common-practice range of step lengths the counts span (both equal when one was asked for). */
-      stepLengthRangeM: [number, number];
-      walkingSeconds: number;
-      accessibleWalkingSeconds: number;
-      steps: number;
-      stepsUpTo: number;
-      sources: typeof WALKING_SOURCES;
-      caution: string;
-    };
-  };
-  points: PointResult[];
-  durations: DurationResult[];
-  insets: InsetResult[];
-  suggestedInsets: SuggestedInset[];
-  warnings: ScaleWarning[];
-}
 
 /** The points' ages and ± in years (NaN: none), in the request's order. */
 export interface PointYears {
@@ -150,61 +40,6 @@ export interface ComputeOptions {
   pointYears?: PointYears;
 }
 
-// The per-marker results, made by `new` (records.ts: plain objects the engine does not pretenure).
-
-/**
- * A point: on a route with its place, bearing and walking figures (`position` given), else without
- * them; the label last, and only when the request has one. Every point of a result has the same
- * fields in the same order.
- */
-const Point = plainRecord(function (
-  this: PointResult,
-  id: string,
-  number: number,
-  ageYears: number,
-  uncertaintyYears: number | null,
-  fromOlderEndMetres: number,
-  fromYoungerEndMetres: number,
-  uncertaintyMetres: number | null,
-  display: DistanceLabel,
-  insets: readonly InsetPlacement[],
-  position: { lon: number; lat: number } | undefined,
-  bearing: number,
-  walking: Walking | undefined,
-  label: string | undefined,
-) {
-  this.id = id;
-  this.number = number;
-  this.ageYears = ageYears;
-  this.uncertaintyYears = uncertaintyYears;
-  this.fromOlderEndMetres = fromOlderEndMetres;
-  this.fromYoungerEndMetres = fromYoungerEndMetres;
-  this.uncertaintyMetres = uncertaintyMetres;
-  this.display = display;
-  this.insets = insets;
-  if (position !== undefined) {
-    this.position = position;
-    this.bearing = bearing;
-    this.walking = walking;
-  }
-  if (label !== undefined) this.label = label;
-});
-
-const LonLat = plainRecord(function (this: { lon: number; lat: number }, lon: number, lat: number) {
-  this.lon = lon;
-  this.lat = lat;
-});
-
-const Placement = plainRecord(function (this: InsetPlacement, insetId: string, fromOlderEndMetres: number, fromYoungerEndMetres: number, uncertaintyMetres: number | null, display: DistanceLabel) {
-  this.insetId = insetId;
-  this.fromOlderEndMetres = fromOlderEndMetres;
-  this.fromYoungerEndMetres = fromYoungerEndMetres;
-  this.uncertaintyMetres = uncertaintyMetres;
-  this.display = display;
-});
-
-/** A point on no inset: one list for all of them (most markers lie outside every inset). */
-const NO_INSETS: readonly InsetPlacement[] = Object.freeze([]);
 
 const ROUTE_CAUTION =
   "Planning figures, not a survey: walk the route first for hazards and accessibility, get the landowner's and authority's permission, and follow local codes for sign installation.";

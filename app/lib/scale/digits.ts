@@ -37,6 +37,9 @@ function decimalText(f: number, d: number, suffix: string): string {
 const FRACTION_SUFFIXES: string[] = [];
 const FRACTION_TABLES: string[][][] = [];
 const MAX_SUFFIXES = 16;
+/** Decimal parts of 4 to MANY_DECIMALS decimals are kept below FEW_FIGURES (a ± has one or two figures). */
+const MANY_DECIMALS = 12;
+const FEW_FIGURES = 1000;
 function fractionText(f: number, d: number, suffix: string): string {
   if (d > MANY_DECIMALS || (d > 3 && f >= FEW_FIGURES)) return decimalText(f, d, suffix);
   let s = 0;
@@ -55,9 +58,6 @@ function fractionText(f: number, d: number, suffix: string): string {
   const table = (byDecimals[d] ??= Array.from({ length: pow10(d) }, (_, k) => decimalText(k, d, suffix)));
   return table[f];
 }
-/** Decimal parts of 4 to MANY_DECIMALS decimals are kept below FEW_FIGURES (a ± has one or two figures). */
-const MANY_DECIMALS = 12;
-const FEW_FIGURES = 1000;
 
 /**
  * The whole part of a figure with its thousands separators, "4,501" (or "± 4,501"), for
