@@ -12,7 +12,7 @@ import { checkPasswordLimited, hashPassword, NewPasswordSchema, notFound, verify
 import { env } from "./env.server.ts";
 import { logger } from "./logger.server.ts";
 import { queueEmail } from "./mail.server.ts";
-import { getBoss } from "./queue.server.ts";
+import { ensureQueue, getBoss } from "./queue.server.ts";
 import { assertResetRequestAllowed, takeResetEmail } from "./rate-limit.server.ts";
 import { endUserSessions } from "./session.server.ts";
 import { hashToken, newToken } from "./tokens.server.ts";
@@ -249,7 +249,7 @@ export async function removeMember(organisation: Organisation, actor: User, memb
 // ---------- passwords ----------
 
 export const RESET_QUEUE = "password-reset-request";
-let resetQueueReady: Promise<unknown> | undefined;
+let resetQueueReady: Promise<void> | undefined;
 
 /**
  * The forgot-password form. Answers the same, after the same work, whether or not the address has
@@ -257,18 +257,21 @@ let resetQueueReady: Promise<unknown> | undefined;
  * one job in the queue. Whether there is an account, and whether its reset e-mails for the hour are
  * used up, is decided by the job (`sendPasswordReset`), after the answer has gone.
  */
+/** RESET_QUEUE, created once per server. */
+function resetQueue(boss: PgBoss): Promise<void> {
+  return (resetQueueReady ??= ensureQueue(boss, RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true }));
+}
+
 export async function requestPasswordReset(email: string, client: string) {
   await assertResetRequestAllowed(client);
   const boss = await getBoss();
-  resetQueueReady ??= boss.createQueue(RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true });
-  await resetQueueReady;
+  await resetQueue(boss);
   await boss.send(RESET_QUEUE, { email });
 }
 
 /** The worker of RESET_QUEUE (registered in server/workers.server.ts). */
 export async function startResetWorker(boss: PgBoss) {
-  resetQueueReady ??= boss.createQueue(RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true });
-  await resetQueueReady;
+  await resetQueue(boss);
   return boss.work<{ email: string }>(RESET_QUEUE, { batchSize: 5, pollingIntervalSeconds: 2 }, async (jobs) => {
     for (const job of jobs) await sendPasswordReset(job.data.email, job.id);
   });

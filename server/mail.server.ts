@@ -8,7 +8,7 @@ import { OutboxMessage } from "../db/models/index.ts";
 import { sequelize } from "./db.server.ts";
 import { env } from "./env.server.ts";
 import { logger } from "./logger.server.ts";
-import { getBoss, inTransaction } from "./queue.server.ts";
+import { ensureQueue, getBoss, inTransaction } from "./queue.server.ts";
 
 export const MAIL_QUEUE = "mail-deliver";
 const MAIL_JOB_EXPIRE_SECONDS = 300;
@@ -29,7 +29,7 @@ function transport(): Transporter {
 }
 
 export async function ensureMailQueue(boss: PgBoss) {
-  await boss.createQueue(MAIL_QUEUE, {
+  await ensureQueue(boss, MAIL_QUEUE, {
     name: MAIL_QUEUE,
     retryLimit: env().MAIL_RETRY_LIMIT,
     retryDelay: env().MAIL_RETRY_DELAY_SECONDS,

@@ -2,6 +2,7 @@
 // shares it; any server with RUN_WORKERS=true takes jobs.
 import PgBoss from "pg-boss";
 import type { Transaction } from "sequelize";
+import { sequelize } from "./db.server.ts";
 import { env } from "./env.server.ts";
 import { logger } from "./logger.server.ts";
 
@@ -57,6 +58,43 @@ export async function stopBoss() {
   globalForBoss.__eonscaleBossState = "stopping";
   await (await pending).stop({ graceful: true, timeout: STOP_WAIT_MS, wait: true });
   globalForBoss.__eonscaleBossState = "stopped";
+}
+
+/** Postgres's error code for a transaction it aborted to break a deadlock. */
+const DEADLOCK = "40P01";
+const CREATE_ATTEMPTS = 5;
+
+/**
+ * Create a queue if it does not exist, whatever other servers start at the same moment. pg-boss's
+ * create_queue makes the queue's partition and attaches it to the job table: two servers creating
+ * queues at once lock the same tables in opposite orders, and Postgres aborts one with "deadlock
+ * detected" (it stopped a server when two started together on a fresh database;
+ * tests/integration/queue-create.test.ts makes it happen). So every server creates queues one at
+ * a time under one advisory lock, held by a transaction of our own while pg-boss creates the queue;
+ * a creation Postgres still aborts for a deadlock (with other work on the job table) changed
+ * nothing and is tried again after a short random pause, as Postgres advises. Creating an existing
+ * queue does nothing.
+ */
+export async function ensureQueue(boss: PgBoss, name: string, options: PgBoss.Queue): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await sequelize.transaction(async (transaction) => {
+        await sequelize.query(`SELECT pg_advisory_xact_lock(hashtext('eonscale:pgboss:create-queue'))`, { transaction });
+        await boss.createQueue(name, options);
+      });
+      return;
+    } catch (error) {
+      if (!isDeadlock(error) || attempt >= CREATE_ATTEMPTS) throw error;
+      logger.warn({ queue: name, attempt }, "queue creation met a deadlock; trying again");
+      await new Promise((resolve) => setTimeout(resolve, 50 + Math.random() * 200 * attempt));
+    }
+  }
+}
+
+/** A Postgres deadlock abort, as pg reports it (error.code) or as Sequelize wraps it (error.parent.code). */
+function isDeadlock(error: unknown): boolean {
+  const e = error as { code?: string; parent?: { code?: string } };
+  return e.code === DEADLOCK || e.parent?.code === DEADLOCK;
 }
 
 /** Lets pg-boss write its job row inside a Sequelize transaction, so the job exists only if the change commits. */

@@ -7,6 +7,7 @@ import { PasswordReset, Session } from "../db/models/index.ts";
 import { sweepAssets } from "./assets/jobs.server.ts";
 import { sequelize } from "./db.server.ts";
 import { logger } from "./logger.server.ts";
+import { ensureQueue } from "./queue.server.ts";
 
 export const SWEEP_QUEUE = "housekeeping-sweep";
 
@@ -18,7 +19,7 @@ export async function sweepExpired(now = new Date()) {
 }
 
 export async function startSweeps(boss: PgBoss) {
-  await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, policy: "singleton", retryLimit: 2 });
+  await ensureQueue(boss, SWEEP_QUEUE, { name: SWEEP_QUEUE, policy: "singleton", retryLimit: 2 });
   await boss.schedule(SWEEP_QUEUE, "17 * * * *", {}, { tz: "UTC" });
   await boss.work(SWEEP_QUEUE, async () => {
     const removed = await sweepExpired();

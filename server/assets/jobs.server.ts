@@ -10,7 +10,7 @@ import { Asset, ImageUse } from "../../db/models/index.ts";
 import type { AssetFile } from "../../db/models/asset.ts";
 import { sequelize } from "../db.server.ts";
 import { logger } from "../logger.server.ts";
-import { getBoss, inTransaction } from "../queue.server.ts";
+import { ensureQueue, getBoss, inTransaction } from "../queue.server.ts";
 import { deleteObjects, getObjectBytes, IMMUTABLE, listObjects, putObject, StorageUnavailableError } from "../storage/s3.server.ts";
 import { assetIdOfKey, assetPrefix, fileKey } from "./keys.server.ts";
 import { CONTENT_TYPES, makeAvifFiles, makePrintMaster, makeWebFiles, processingReason, type MadeFile } from "./process.server.ts";
@@ -27,9 +27,9 @@ export const ORPHAN_GRACE_MS = 60 * 60 * 1000;
 export const UNATTACHED_GRACE_MS = 24 * 60 * 60 * 1000;
 
 export async function ensureAssetQueues(boss: PgBoss) {
-  await boss.createQueue(ASSET_PROCESS_QUEUE, { name: ASSET_PROCESS_QUEUE, ...RETRY });
-  await boss.createQueue(ASSET_AVIF_QUEUE, { name: ASSET_AVIF_QUEUE, ...RETRY });
-  await boss.createQueue(ASSET_CLEANUP_QUEUE, { name: ASSET_CLEANUP_QUEUE, ...RETRY });
+  await ensureQueue(boss, ASSET_PROCESS_QUEUE, { name: ASSET_PROCESS_QUEUE, ...RETRY });
+  await ensureQueue(boss, ASSET_AVIF_QUEUE, { name: ASSET_AVIF_QUEUE, ...RETRY });
+  await ensureQueue(boss, ASSET_CLEANUP_QUEUE, { name: ASSET_CLEANUP_QUEUE, ...RETRY });
 }
 
 async function send(queue: string, data: object, transaction?: Transaction, options: PgBoss.SendOptions = {}) {

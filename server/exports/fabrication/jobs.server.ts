@@ -15,7 +15,7 @@ import { QueryTypes } from "sequelize";
 import type { PublicationMeta, PublicationSnapshot } from "../../../app/lib/publication/types.ts";
 import { sequelize } from "../../db.server.ts";
 import { logger } from "../../logger.server.ts";
-import { getBoss } from "../../queue.server.ts";
+import { ensureQueue, getBoss } from "../../queue.server.ts";
 import { getObjectStream, storage } from "../../storage/s3.server.ts";
 import type { ExportContext } from "../registry.server.ts";
 import { panelsDocument, writePanels } from "../pdf/panels.server.ts";
@@ -44,7 +44,7 @@ export interface JobStatus {
 }
 
 export async function ensureExportQueue(boss: PgBoss) {
-  await boss.createQueue(EXPORT_QUEUE, { name: EXPORT_QUEUE, retryLimit: 2, retryDelay: 5 });
+  await ensureQueue(boss, EXPORT_QUEUE, { name: EXPORT_QUEUE, retryLimit: 2, retryDelay: 5 });
 }
 
 const jobUrl = (slug: string, id: string) => `/studio/exhibits/${encodeURIComponent(slug)}/exports/${id}`;
