@@ -249,7 +249,6 @@ export async function removeMember(organisation: Organisation, actor: User, memb
 // ---------- passwords ----------
 
 export const RESET_QUEUE = "password-reset-request";
-let resetQueueReady: Promise<void> | undefined;
 
 /**
  * The forgot-password form. Answers the same, after the same work, whether or not the address has
@@ -257,9 +256,9 @@ let resetQueueReady: Promise<void> | undefined;
  * one job in the queue. Whether there is an account, and whether its reset e-mails for the hour are
  * used up, is decided by the job (`sendPasswordReset`), after the answer has gone.
  */
-/** RESET_QUEUE, created once per server. */
+/** RESET_QUEUE (ensureQueue creates it once per server). */
 function resetQueue(boss: PgBoss): Promise<void> {
-  return (resetQueueReady ??= ensureQueue(boss, RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true }));
+  return ensureQueue(boss, RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true });
 }
 
 export async function requestPasswordReset(email: string, client: string) {

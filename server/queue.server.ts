@@ -73,9 +73,28 @@ const CREATE_ATTEMPTS = 5;
  * a time under one advisory lock, held by a transaction of our own while pg-boss creates the queue;
  * a creation Postgres still aborts for a deadlock (with other work on the job table) changed
  * nothing and is tried again after a short random pause, as Postgres advises. Creating an existing
- * queue does nothing.
+ * queue does nothing; each server creates a queue once (`ensured`).
  */
-export async function ensureQueue(boss: PgBoss, name: string, options: PgBoss.Queue): Promise<void> {
+export function ensureQueue(boss: PgBoss, name: string, options: PgBoss.Queue): Promise<void> {
+  let created = ensured.get(boss);
+  if (created === undefined) ensured.set(boss, (created = new Map()));
+  let done = created.get(name);
+  if (done === undefined) {
+    created.set(name, (done = createQueue(boss, name, options)));
+    // a creation that failed is tried again by the next caller
+    done.catch(() => created.delete(name));
+  }
+  return done;
+}
+
+/**
+ * The queues each pg-boss instance (one per server) has created, or is creating: a queue is
+ * created once per server, not on every job sent (sending an e-mail inside a request's transaction
+ * must not wait for a second connection and the lock).
+ */
+const ensured = new WeakMap<PgBoss, Map<string, Promise<void>>>();
+
+async function createQueue(boss: PgBoss, name: string, options: PgBoss.Queue): Promise<void> {
   for (let attempt = 1; ; attempt++) {
     try {
       await sequelize.transaction(async (transaction) => {

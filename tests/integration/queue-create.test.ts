@@ -44,4 +44,20 @@ describe("ensureQueue", () => {
     await expect(ensureQueue(broken, "q", { name: "q" })).rejects.toThrow("permission denied");
     expect(calls).toBe(1); // any other error is not retried
   }, 20_000);
+
+  it("creates a queue once per server: later calls (every e-mail sent) do not go to the database again, unless the creation failed", async () => {
+    let calls = 0;
+    let fail = true;
+    const boss = { createQueue: async () => (++calls, fail ? Promise.reject(new Error("connection lost")) : undefined) } as unknown as PgBoss;
+    await expect(ensureQueue(boss, "mail", { name: "mail" })).rejects.toThrow("connection lost");
+    fail = false;
+    await ensureQueue(boss, "mail", { name: "mail" }); // tried again after the failure
+    await Promise.all([ensureQueue(boss, "mail", { name: "mail" }), ensureQueue(boss, "mail", { name: "mail" })]);
+    expect(calls).toBe(2);
+    await ensureQueue(boss, "other", { name: "other" });
+    expect(calls).toBe(3);
+    const second = { createQueue: async () => void ++calls } as unknown as PgBoss; // another server creates its own
+    await ensureQueue(second, "mail", { name: "mail" });
+    expect(calls).toBe(4);
+  });
 });
