@@ -21,7 +21,38 @@ export function queueState(): QueueState {
 /** Jobs still active when a stopping server gives up waiting go back to the queue (see stopBoss). */
 const STOP_WAIT_MS = 5_000;
 
+/**
+ * pg-boss 10.4.2's worker marks a job done or failed without waiting for it (manager.js, onFetch:
+ * `this.complete(…)`, `this.fail(…)` unawaited), so when Postgres is unreachable at that moment the
+ * rejection is unhandled and Node would end the server — seen in the faults test, where the server
+ * must live through a Postgres outage. A lost database connection is logged instead (the job stays
+ * active and is retried when it expires, as for a stopped server); any other unhandled rejection
+ * still ends the process, as Node's default does.
+ */
+export function onUnhandledRejection(reason: unknown): void {
+  if (isConnectionLoss(reason)) {
+    logger.error({ err: reason }, "job queue: the database was unreachable while a job was being marked done or failed");
+    return;
+  }
+  throw reason;
+}
+
+/** Postgres connection codes (class 08, and 57P01–57P03: the server shut down or is starting) and socket errors. */
+function isConnectionLoss(reason: unknown): boolean {
+  const e = reason as { code?: unknown; message?: unknown } | null;
+  if (!e || typeof e !== "object") return false;
+  const code = typeof e.code === "string" ? e.code : "";
+  if (/^08/.test(code) || /^57P0[123]$/.test(code) || ["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(code)) return true;
+  return typeof e.message === "string" && /^Connection terminated/.test(e.message);
+}
+
+let guarded = false;
+
 export function getBoss(): Promise<PgBoss> {
+  if (!guarded) {
+    guarded = true;
+    process.on("unhandledRejection", onUnhandledRejection);
+  }
   globalForBoss.__eonscaleBoss ??= (async () => {
     globalForBoss.__eonscaleBossState = "starting";
     const boss = new PgBoss({ connectionString: env().DATABASE_URL, schema: "pgboss", max: 4, application_name: "eonscale-jobs" });

@@ -61,3 +61,16 @@ describe("ensureQueue", () => {
     expect(calls).toBe(4);
   });
 });
+
+describe("an unhandled rejection from the job queue's bookkeeping", () => {
+  it("is logged when the database connection was lost, and still ends the process otherwise", async () => {
+    const { onUnhandledRejection } = await import("../../server/queue.server.ts");
+    // what pg-pool and Postgres give when the database goes away mid-query
+    for (const lost of [new Error("Connection terminated unexpectedly"), Object.assign(new Error("terminating connection due to administrator command"), { code: "57P01" }), Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:5432"), { code: "ECONNREFUSED" }), Object.assign(new Error("connection failure"), { code: "08006" })]) {
+      expect(() => onUnhandledRejection(lost), lost.message).not.toThrow();
+    }
+    for (const other of [new Error("relation \"pgboss.job\" does not exist"), Object.assign(new Error("deadlock detected"), { code: "40P01" }), "a string", null]) {
+      expect(() => onUnhandledRejection(other), String(other)).toThrow();
+    }
+  });
+});
