@@ -8,7 +8,7 @@
  * latitude and longitude (LAT, LON) with the local frame at the point (SIN_LAT … COS_LON); and
  * Bowring's terms (P, NUM, DEN). A caller reads them straight after the call.
  */
-import { DEG, WGS84_A, WGS84_B, WGS84_E2, WGS84_EP2, normalizeLon } from "./ellipsoid";
+import { DEG, WGS84_A, WGS84_B, WGS84_E2, WGS84_EP2, normalizeAzimuth, normalizeLon } from "./ellipsoid";
 
 export const A = WGS84_A;
 export const E2 = WGS84_E2;
@@ -35,12 +35,16 @@ const P = 10;
 const NUM = 11;
 const DEN = 12;
 
+/** Numbers one vertex takes in a frame array (vertexFrame), at the offsets GEO uses for them. */
+export const FRAME = 10;
+
 /**
- * A vertex's Earth-centred coordinates into GEO[EX], [EY], [EZ], and 1 − e² sin²φ into GEO[W2]:
- * prepareRoute measures segments with it and placing a marker recomputes a segment's ends with it,
- * so both see the very same numbers.
+ * A vertex's frame into f[o …]: its Earth-centred coordinates (EX, EY, EZ), 1 − e² sin²φ (W2), its
+ * degrees (LON, LAT) and the sines and cosines of φ and λ (SIN_LAT … COS_LON), the local east/north
+ * frame there. prepareRoute measures segments with it and placing a marker recomputes a segment's
+ * ends with it, so both see the very same numbers.
  */
-export function vertexEcef(lon: number, lat: number): void {
+export function vertexFrame(lon: number, lat: number, f: Float64Array, o: number): void {
   const phi = lat * DEG;
   const lam = lon * DEG;
   // the four calls first: fewer values live across them
@@ -51,10 +55,29 @@ export function vertexEcef(lon: number, lat: number): void {
   const w2 = 1 - E2 * sphi * sphi;
   const nRad = A / Math.sqrt(w2);
   const rc = nRad * cphi;
-  GEO[EX] = rc * clam;
-  GEO[EY] = rc * slam;
-  GEO[EZ] = nRad * ONE_MINUS_E2 * sphi;
-  GEO[W2] = w2;
+  f[o + EX] = rc * clam;
+  f[o + EY] = rc * slam;
+  f[o + EZ] = nRad * ONE_MINUS_E2 * sphi;
+  f[o + W2] = w2;
+  f[o + LON] = lon;
+  f[o + LAT] = lat;
+  f[o + SIN_LAT] = sphi;
+  f[o + COS_LAT] = cphi;
+  f[o + SIN_LON] = slam;
+  f[o + COS_LON] = clam;
+}
+
+/** A vertex's frame into GEO (vertexFrame). */
+export function vertexEcef(lon: number, lat: number): void {
+  vertexFrame(lon, lat, GEO, 0);
+}
+
+/** Direction of the chord (dx, dy, dz) in the local east/north frame held in f[o …] (vertexFrame or geodetic), degrees clockwise from north. */
+export function chordBearing(f: Float64Array, o: number, dx: number, dy: number, dz: number): number {
+  const east = -f[o + SIN_LON] * dx + f[o + COS_LON] * dy;
+  const north = -f[o + SIN_LAT] * (f[o + COS_LON] * dx + f[o + SIN_LON] * dy) + f[o + COS_LAT] * dz;
+  const b = Math.atan2(east, north) / DEG;
+  return b < 0 || b >= 360 ? normalizeAzimuth(b) : b;
 }
 
 /**

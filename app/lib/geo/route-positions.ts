@@ -2,10 +2,11 @@
  * Positions and bearings of markers along a prepared route (route.ts has the method): one at a
  * time, or many at once in one forward pass.
  */
-import { DEG, normalizeAzimuth, normalizeLon } from "./ellipsoid";
-import { GEO, COS_LAT, COS_LON, EX, EY, EZ, LAT, LON, SIN_LAT, SIN_LON, E2, INV_R2_FACTOR, ONE_MINUS_E2_SQ, geodeticNear, vertexEcef } from "./ecef";
+import { normalizeAzimuth, normalizeLon } from "./ellipsoid";
+import { GEO, EX, EY, EZ, FRAME, LAT, LON, E2, INV_R2_FACTOR, ONE_MINUS_E2_SQ, chordBearing, geodeticNear, vertexFrame } from "./ecef";
 import { geodesicDirect, geodesicInverse } from "./geodesic";
-import { CHORD_LIMIT_M, VERTEX_RECORD, type PreparedRoute } from "./route-prepare";
+import { CHORD_LIMIT_M, VERTEX_RECORD, VERTEX_TERMS, type PreparedRoute } from "./route-prepare";
+import { BEARING_END, BEARING_START, C_BEARING, C_LAT, C_LON, SEGMENT_TERMS, shortWay, segmentTerms } from "./route-segment";
 import { SegmentCursor, segmentIndexAt } from "./route-search";
 
 export interface RoutePosition {
@@ -99,6 +100,10 @@ function longSegmentAzimuth(route: PreparedRoute, i: number): number {
   return azi;
 }
 
+/** A one-off route's two segment ends (vertexFrame) and the segment's terms, worked out for each marker. */
+const ENDS = new Float64Array(2 * FRAME);
+const TERMS = new Float64Array(SEGMENT_TERMS);
+
 /** Position and bearing at distance d (already clamped) inside segment i, into out.lon[k], out.lat[k], out.bearing[k]. */
 function placeAt(route: PreparedRoute, d: number, i: number, out: RoutePositions, k: number): void {
   const c = route.coords;
@@ -108,56 +113,73 @@ function placeAt(route: PreparedRoute, d: number, i: number, out: RoutePositions
     out.bearing[k] = 0;
     return;
   }
-  // the segment's start and end distances, the first vertex's degrees and both ends' ECEF, exactly
-  // as prepareRoute computed them: kept in the vertex records, or computed again
+  // the segment's start and end distances and degrees, and its terms (route-segment.ts): kept in
+  // the vertex records, or worked out from the two ends, by the same function on the same numbers
   const v = route.vertices;
-  let segStart: number, segEnd: number, lon1: number, lat1: number;
-  let x1: number, y1: number, z1: number, dx: number, dy: number, dz: number;
+  let segStart: number, segEnd: number, lon1: number, lat1: number, lon2: number, lat2: number;
+  let t: Float64Array, tk: number;
   if (v !== undefined) {
     const r1 = VERTEX_RECORD * i;
     const r2 = r1 + VERTEX_RECORD;
     segStart = v[r1];
+    lon1 = v[r1 + 1];
+    lat1 = v[r1 + 2];
     segEnd = v[r2];
-    x1 = v[r1 + 1];
-    y1 = v[r1 + 2];
-    z1 = v[r1 + 3];
-    lon1 = v[r1 + 4];
-    lat1 = v[r1 + 5];
-    dx = v[r2 + 1] - x1;
-    dy = v[r2 + 2] - y1;
-    dz = v[r2 + 3] - z1;
+    lon2 = v[r2 + 1];
+    lat2 = v[r2 + 2];
+    t = v;
+    tk = r1 + VERTEX_TERMS;
   } else {
     segStart = route.cumulative[i];
     segEnd = route.cumulative[i + 1];
     lon1 = c[2 * i];
     lat1 = c[2 * i + 1];
-    vertexEcef(c[2 * i + 2], c[2 * i + 3]);
-    const x2 = GEO[EX];
-    const y2 = GEO[EY];
-    const z2 = GEO[EZ];
-    vertexEcef(c[2 * i], c[2 * i + 1]);
-    x1 = GEO[EX];
-    y1 = GEO[EY];
-    z1 = GEO[EZ];
-    dx = x2 - x1;
-    dy = y2 - y1;
-    dz = z2 - z1;
+    lon2 = c[2 * i + 2];
+    lat2 = c[2 * i + 3];
+    vertexFrame(lon1, lat1, ENDS, 0);
+    vertexFrame(lon2, lat2, ENDS, FRAME);
+    segmentTerms(ENDS, 0, FRAME, TERMS, 0);
+    t = TERMS;
+    tk = 0;
   }
   const segLen = segEnd - segStart;
   const along = d - segStart;
-  const c2 = dx * dx + dy * dy + dz * dz;
   if (along <= 0) {
     out.lon[k] = lon1;
     out.lat[k] = lat1;
-    out.bearing[k] = vertexBearing(lat1, lon1, dx, dy, dz, c2);
+    out.bearing[k] = t[tk + BEARING_START];
     return;
   }
   if (along >= segLen) {
-    out.lon[k] = c[2 * i + 2];
-    out.lat[k] = c[2 * i + 3];
-    out.bearing[k] = vertexBearing(c[2 * i + 3], c[2 * i + 2], dx, dy, dz, c2);
+    out.lon[k] = lon2;
+    out.lat[k] = lat2;
+    out.bearing[k] = t[tk + BEARING_END];
     return;
   }
+  const cLat = t[tk + C_LAT];
+  if (cLat === cLat) {
+    // a short segment: by its terms
+    const u = along / segLen;
+    const lon = lon1 + u * (shortWay(lon2 - lon1) + (u - 1) * t[tk + C_LON]);
+    out.lon[k] = lon > 180 || lon <= -180 ? normalizeLon(lon) : lon;
+    out.lat[k] = lat1 + u * (lat2 - lat1 + (u - 1) * cLat);
+    const b1 = t[tk + BEARING_START];
+    const b = b1 + u * (shortWay(t[tk + BEARING_END] - b1) + (u - 1) * t[tk + C_BEARING]);
+    out.bearing[k] = b < 0 || b >= 360 ? normalizeAzimuth(b) : b;
+    return;
+  }
+  // a longer segment, or one near a pole: Earth-centred (a kept route's ends are worked out again)
+  if (v !== undefined) {
+    vertexFrame(lon1, lat1, ENDS, 0);
+    vertexFrame(lon2, lat2, ENDS, FRAME);
+  }
+  const x1 = ENDS[EX];
+  const y1 = ENDS[EY];
+  const z1 = ENDS[EZ];
+  const dx = ENDS[FRAME + EX] - x1;
+  const dy = ENDS[FRAME + EY] - y1;
+  const dz = ENDS[FRAME + EZ] - z1;
+  const c2 = dx * dx + dy * dy + dz * dz;
   if (Math.sqrt(c2) >= CHORD_LIMIT_M) {
     // the test prepareRoute made on the same numbers: a segment it solved exactly
     const azi1 = longSegmentAzimuth(route, i);
@@ -178,28 +200,10 @@ function placeAt(route: PreparedRoute, d: number, i: number, out: RoutePositions
   const th2 = segLen * segLen * 0.25 * w2 * w2 * INV_R2_FACTOR;
   const u = (2 * along) / segLen - 1;
   const u2m1 = u * u - 1;
-  const t = (u * (1 + u2m1 * th2 * (1 / 3 + ((6 * u * u + 1) * th2) / 45)) + 1) / 2;
-  geodeticNear(x1 + t * dx, y1 + t * dy, z1 + t * dz, x1, y1, z1, lon1, lat1);
+  const f = (u * (1 + u2m1 * th2 * (1 / 3 + ((6 * u * u + 1) * th2) / 45)) + 1) / 2;
+  geodeticNear(x1 + f * dx, y1 + f * dy, z1 + f * dz, x1, y1, z1, lon1, lat1);
   const lon = GEO[LON];
   out.lon[k] = lon > 180 || lon <= -180 ? normalizeLon(lon) : lon;
   out.lat[k] = GEO[LAT];
-  out.bearing[k] = frameBearing(dx, dy, dz);
-}
-
-/** Direction of the chord (dx, dy, dz) in the local east/north frame held in GEO, degrees from north. */
-function frameBearing(dx: number, dy: number, dz: number): number {
-  const east = -GEO[SIN_LON] * dx + GEO[COS_LON] * dy;
-  const north = -GEO[SIN_LAT] * (GEO[COS_LON] * dx + GEO[SIN_LON] * dy) + GEO[COS_LAT] * dz;
-  const b = Math.atan2(east, north) / DEG;
-  return b < 0 || b >= 360 ? normalizeAzimuth(b) : b;
-}
-
-/** Direction of the chord (dx, dy, dz; squared length c2) at a vertex (lat, lon), degrees from north. */
-function vertexBearing(lat: number, lon: number, dx: number, dy: number, dz: number, c2: number): number {
-  if (!(c2 > 0)) return 0;
-  GEO[SIN_LAT] = Math.sin(lat * DEG);
-  GEO[COS_LAT] = Math.cos(lat * DEG);
-  GEO[SIN_LON] = Math.sin(lon * DEG);
-  GEO[COS_LON] = Math.cos(lon * DEG);
-  return frameBearing(dx, dy, dz);
+  out.bearing[k] = chordBearing(GEO, 0, dx, dy, dz);
 }

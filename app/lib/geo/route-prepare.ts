@@ -2,8 +2,12 @@
  * Measuring a route once (route.ts has the method): the cumulative distance to every vertex, and
  * for a route queried again and again, the vertex records and block table its searches use.
  */
-import { GEO, EX, EY, EZ, W2, INV_R2_FACTOR, vertexEcef } from "./ecef";
+import { EX, EY, EZ, FRAME, W2, INV_R2_FACTOR, vertexFrame } from "./ecef";
 import { geodesicInverse } from "./geodesic";
+import { segmentTerms } from "./route-segment";
+
+/** Two vertices' frames (vertexFrame), the previous one and the current one. */
+const FRAMES = new Float64Array(2 * FRAME);
 
 /** Chord length above which a segment is solved with the exact inverse problem. */
 export const CHORD_LIMIT_M = 10_000;
@@ -22,9 +26,9 @@ export interface PreparedRoute {
   longSegments: number;
   /**
    * Kept only for a route prepared for repeated queries: one record of VERTEX_RECORD numbers per
-   * vertex, [cumulative distance, x, y, z, lon, lat] — its Earth-centred coordinates (metres, exactly
-   * as the segment lengths were computed) beside its distance and degrees, so that a marker's search
-   * ends in the memory its placing reads.
+   * vertex, [cumulative distance, lon, lat, then the terms of the segment it starts] (route-segment.ts:
+   * its curvature terms and end bearings), so that a marker's search ends in the memory its placing
+   * reads, and placing a marker on a short segment takes a few multiplications.
    */
   vertices?: Float64Array;
   /**
@@ -34,8 +38,10 @@ export interface PreparedRoute {
   blockStarts?: Float64Array;
 }
 
-/** Numbers per vertex in PreparedRoute.vertices: cumulative distance, x, y, z, lon, lat. */
-export const VERTEX_RECORD = 6;
+/** Numbers per vertex in PreparedRoute.vertices: cumulative distance, lon, lat, and the SEGMENT_TERMS of its segment (from VERTEX_TERMS). */
+export const VERTEX_RECORD = 8;
+/** Offset of the segment's terms in a vertex record. */
+export const VERTEX_TERMS = 3;
 /** Vertices per entry of blockStarts. */
 export const SEARCH_BLOCK = 64;
 
@@ -43,7 +49,7 @@ export interface PrepareOptions {
   /**
    * Keep the vertex records and block table, so that placing markers needs no trigonometry for the
    * segments' ends: for a route queried again and again (the composer's preview), not for a
-   * one-off computation, where writing the 6 × 8 bytes per vertex costs more than it saves.
+   * one-off computation, where working out and writing 8 × 8 bytes per vertex costs more than it saves.
    */
   repeatedQueries?: boolean;
 }
@@ -61,50 +67,41 @@ export function prepareRoute(input: ArrayLike<number>, options: PrepareOptions =
   const vertices = options.repeatedQueries ? new Float64Array(VERTEX_RECORD * n) : null;
   let longSegments = 0;
   let total = 0;
-  let px = 0;
-  let py = 0;
-  let pz = 0;
-  let pInvR2 = 0;
+  // the frames of the previous vertex and this one, taking turns in two slots
+  const frames = FRAMES;
   for (let i = 0; i < n; i++) {
     const lo = coords[2 * i];
     const la = coords[2 * i + 1];
-    vertexEcef(lo, la);
-    const x = GEO[EX];
-    const y = GEO[EY];
-    const z = GEO[EZ];
-    const w2 = GEO[W2];
-    // 1/(M·N) = (1 − e² sin²φ)² / (a²(1 − e²))
-    const invR2 = w2 * w2 * INV_R2_FACTOR;
+    const o = (i & 1) * FRAME;
+    const po = FRAME - o;
+    vertexFrame(lo, la, frames, o);
+    const w2 = frames[o + W2];
     if (i > 0) {
-      const dx = x - px;
-      const dy = y - py;
-      const dz = z - pz;
+      const dx = frames[o + EX] - frames[po + EX];
+      const dy = frames[o + EY] - frames[po + EY];
+      const dz = frames[o + EZ] - frames[po + EZ];
       const c2 = dx * dx + dy * dy + dz * dz;
       const c = Math.sqrt(c2);
       let s: number;
       if (c < CHORD_LIMIT_M) {
-        const q = c2 * 0.5 * (invR2 + pInvR2);
+        // 1/(M·N) = (1 − e² sin²φ)² / (a²(1 − e²)), the mean of the two ends'
+        const pw2 = frames[po + W2];
+        const q = c2 * 0.5 * (w2 * w2 * INV_R2_FACTOR + pw2 * pw2 * INV_R2_FACTOR);
         s = c * (1 + q * (1 / 24 + q * (3 / 640)));
       } else {
         s = geodesicInverse(coords[2 * i - 1], coords[2 * i - 2], la, lo).s12;
         longSegments++;
       }
       total += s;
+      if (vertices !== null) segmentTerms(frames, po, o, vertices, VERTEX_RECORD * (i - 1) + VERTEX_TERMS);
     }
     cumulative[i] = total;
     if (vertices !== null) {
       const k = VERTEX_RECORD * i;
       vertices[k] = total;
-      vertices[k + 1] = x;
-      vertices[k + 2] = y;
-      vertices[k + 3] = z;
-      vertices[k + 4] = lo;
-      vertices[k + 5] = la;
+      vertices[k + 1] = lo;
+      vertices[k + 2] = la;
     }
-    px = x;
-    py = y;
-    pz = z;
-    pInvR2 = invR2;
   }
   let blockStarts: Float64Array | undefined;
   if (vertices !== null) {

@@ -169,7 +169,7 @@ describe("prepared route queries", () => {
 });
 
 describe("a route prepared for repeated queries", () => {
-  it("places every marker exactly where a one-off route does (kept ECEF = recomputed ECEF), with the same lengths", async () => {
+  it("places every marker exactly where a one-off route does (kept segment terms = terms worked out again), with the same lengths", async () => {
     const { prepareRoute, positionsAt } = await import("../../../app/lib/geo/route");
     let s = 11;
     const rand = () => (s = (s * 16807) % 2147483647) / 2147483647;
