@@ -6,20 +6,14 @@
 import { parseGeoJsonRoute, parseGpxRoute } from "../geo/parse";
 import { positionsInto, prepareRoute, type PreparedRoute } from "../geo/route";
 import { clean, toMetres, toYears, type UnitSystem } from "../units";
-import {
-  formatLengthSig,
-  formatSig,
-  formatYears,
-  markerLabel,
-  mediumResolution,
-  scaleStatement,
-} from "./format";
+import { formatLengthSig, formatSig, formatYears, mediumResolution, scaleStatement } from "./format";
 import { insetLabel, LEGIBILITY_DEFAULTS, LEGIBILITY_SOURCE, type Legibility, type MediumType } from "./legibility";
 import { compareIds } from "./numbering";
 import type { ScaleRequest } from "./schema";
-import { LonLat, NO_INSETS, Placement, Point, type DurationResult, type InsetPlacement, type InsetResult, type PointResult, type ScaleResult } from "./results";
+import { pointsFor, type Placed } from "./points";
+import type { DurationResult, InsetResult, ScaleResult } from "./results";
 import { computeWarnings } from "./warnings";
-import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingFor, type Walking, type WalkingSettings } from "./walking";
+import { DEFAULT_ACCESSIBLE_SPEED_MPS, DEFAULT_STEP_LENGTH_M, DEFAULT_WALKING_SPEED_MPS, STEP_LENGTH_RANGE_M, WALKING_SOURCES, walkingFor, type WalkingSettings } from "./walking";
 
 export * from "./walking";
 
@@ -132,7 +126,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
   const stepLength = request.stepLengthM ?? DEFAULT_STEP_LENGTH_M;
   const shortStep = request.stepLengthM ?? STEP_LENGTH_RANGE_M[0];
   const routeStart = request.routeStart ?? "older";
-  let placed: { ds: Float64Array; lon: Float64Array; lat: Float64Array; bearing: Float64Array; walking: Walking[] } | null = null;
+  let placed: Placed | null = null;
   if (route) {
     const speedText = system === "us" ? `${formatSig(accessibleSpeed / 0.3048, 2)} ft/s` : `${accessibleSpeed} m/s`;
     const ds = new Float64Array(n);
@@ -142,32 +136,7 @@ export function computeScale(request: ScaleRequest, options: ComputeOptions = {}
     placed = { ds, lon: pos.lon, lat: pos.lat, bearing: pos.bearing, walking: walkingFor(ds, speeds, true) };
   }
 
-  const points: PointResult[] = new Array(n);
-  for (let i = 0; i < n; i++) {
-    const p = request.points[i];
-    const a = ages[i];
-    const uy = given ? given.uncertainties[i] : p.uncertainty ? toYears(p.uncertainty) : null;
-    const uncYears = uy !== null && uy > 0 ? uy : null;
-    const fromOlder = (olderYears - a) * mpy;
-    const fromYounger = (a - youngerYears) * mpy;
-    let placements: InsetPlacement[] | null = null;
-    for (const ins of insets) {
-      if (a <= ins.olderYears && a >= ins.youngerYears) {
-        placements ??= [];
-        const impy = mpy * ins.magnification;
-        const fo = (ins.olderYears - a) * impy;
-        const fy = (a - ins.youngerYears) * impy;
-        placements.push(new Placement(ins.id, clean(fo), clean(fy), uncYears !== null ? clean(uncYears * impy) : null, markerLabel(fo, fy, a, uncYears, impy, resolution, unit, system)));
-        ins.pointIds.push(p.id);
-      }
-    }
-    const display = markerLabel(fromOlder, fromYounger, a, uncYears, mpy, resolution, unit, system);
-    const uncertaintyMetres = uncYears !== null ? clean(uncYears * mpy) : null;
-    points[i] = placed
-      ? // a marker's distance from the route's start is one of the two, already clean()ed
-        new Point(p.id, numbers[i], a, uncYears, routeStart === "older" ? placed.ds[i] : clean(fromOlder), routeStart === "older" ? clean(fromYounger) : placed.ds[i], uncertaintyMetres, display, placements ?? NO_INSETS, new LonLat(placed.lon[i], placed.lat[i]), Math.round(placed.bearing[i] * 1e6) / 1e6, placed.walking[i], p.label)
-      : new Point(p.id, numbers[i], a, uncYears, clean(fromOlder), clean(fromYounger), uncertaintyMetres, display, placements ?? NO_INSETS, undefined, 0, undefined, p.label);
-  }
+  const points = pointsFor({ points: request.points, ages, uncertainties: given ? given.uncertainties : null, numbers, olderYears, youngerYears, metresPerYear: mpy, insets, resolution, unit, system, placed, routeStart });
 
   // durations: a located span (the last N years) shows only on an inset that contains it; a
   // comparison on any inset's scale, which it names

@@ -5,7 +5,7 @@
 import { METRES_PER_LENGTH_UNIT as UNIT_METRES, pow10, type LengthUnit, type UnitSystem } from "../units";
 import { digits, formatFixed, scaledInteger } from "./digits";
 import { plainRecord } from "./records";
-import { ruleStep, ruleUncertainty, stepRule, uncertaintyPlace, decadeFloor, type DisplayStep, type RoundingBasis } from "./rounding";
+import { ruleStep, ruleStepExponent, ruleUncertainty, stepRule, uncertaintyPlace, decadeFloor, type DisplayStep, type RoundingBasis } from "./rounding";
 
 export interface DisplayLength {
   /** The rounded value in metres. */
@@ -43,13 +43,19 @@ const US_METRES = US.map((u) => UNIT_METRES[u]);
 
 /** Index in METRIC (or US) of the unit a label of this size and step is written in (see labelUnit). */
 function labelUnitIndex(size: number, stepMetres: number, us: boolean): number {
+  return centimetresUp(fineEnough(autoIndex(size, us), stepMetres, us), stepMetres, us);
+}
+
+/** No more than three decimals: from unit k, a unit down while the step needs more (4,567.000000 km → 4,567,000.000 m). */
+function fineEnough(k: number, stepMetres: number, us: boolean): number {
   const f = us ? US_METRES : METRIC_METRES;
-  let k = autoIndex(size, us);
-  // no more than three decimals: step down a unit while the step needs more (4,567.000000 km → 4,567,000.000 m)
   while (k > 0 && stepMetres / f[k] < 1e-3 * (1 - 1e-9)) k--;
-  // a step of a centimetre or more is not shown in millimetres
-  if (!us && k === 0 && stepMetres >= 0.01) k = 1;
   return k;
+}
+
+/** A step of a centimetre or more is not shown in millimetres. */
+function centimetresUp(k: number, stepMetres: number, us: boolean): number {
+  return !us && k === 0 && stepMetres >= 0.01 ? 1 : k;
 }
 
 /** Unit for a label: the requested one, or one of the unit system chosen from the size of the distance. */
@@ -106,6 +112,41 @@ function gridText(y: number, decimals: number, q: number, up: boolean, suffix = 
   return (plusMinus ? "± " : "") + formatFixed(gridValue(y, decimals, q, up), decimals) + suffix;
 }
 
+/**
+ * The grid of a step that is a power of ten, 10^e for −30 ≤ e ≤ 30 (as the rounding rule's steps
+ * are), worked out once per unit: the same numbers labelUnitIndex, decimalsFor and wholeStep give
+ * for it, read from a table by e (the preview labels every marker on every keystroke).
+ */
+interface PowerGrid {
+  /** The largest unit index fineEnough allows for the step. */
+  top: Int8Array;
+  /** decimals[k][e + 30]: decimalsFor(10^e / unit k). */
+  decimals: Int8Array[];
+  /** multiple[k][e + 30]: the multiple with no decimals (wholeStep), 1 with decimals. */
+  multiple: Float64Array[];
+}
+const POWERS = 61;
+function powerGrid(us: boolean): PowerGrid {
+  const f = us ? US_METRES : METRIC_METRES;
+  const grid: PowerGrid = { top: new Int8Array(POWERS), decimals: [], multiple: [] };
+  for (let k = 0; k < f.length; k++) {
+    grid.decimals.push(new Int8Array(POWERS));
+    grid.multiple.push(new Float64Array(POWERS));
+  }
+  for (let e = -30; e <= 30; e++) {
+    const step = pow10(e);
+    grid.top[e + 30] = fineEnough(f.length - 1, step, us);
+    for (let k = 0; k < f.length; k++) {
+      const d = decimalsFor(step / f[k]);
+      grid.decimals[k][e + 30] = d;
+      grid.multiple[k][e + 30] = d > 0 ? 1 : wholeStep(step / f[k]);
+    }
+  }
+  return grid;
+}
+const METRIC_GRID = powerGrid(false);
+const US_GRID = powerGrid(true);
+
 /** Round a distance at a step and express it in a unit without implying more precision than the step. */
 export function roundAtStep(metres: number, stepMetres: number, unit: LengthUnit): DisplayLength {
   const uf = UNIT_METRES[unit];
@@ -137,6 +178,9 @@ const UNITS = Object.keys(UNIT_METRES) as LengthUnit[];
 const IS_METRIC = Object.fromEntries(UNITS.map((u) => [u, METRIC.includes(u)])) as Readonly<Record<LengthUnit, boolean>>;
 /** " km": a unit as it follows a figure (one string per unit, not one per label). */
 const UNIT_SUFFIX = Object.fromEntries(UNITS.map((u) => [u, ` ${u}`])) as Readonly<Record<LengthUnit, string>>;
+/** The same strings by index in METRIC and US (an array read, where a look-up by the unit's name is a hash look-up). */
+const METRIC_SUFFIX = METRIC.map((u) => UNIT_SUFFIX[u]);
+const US_SUFFIX = US.map((u) => UNIT_SUFFIX[u]);
 
 /** The labels of a distance from both ends, with its ± — all in one unit, on one grid. */
 export function distanceLabel(fromOlder: number, fromYounger: number, step: DisplayStep, unit?: LengthUnit, system: UnitSystem = "metric"): DistanceLabel {
@@ -158,7 +202,32 @@ export function markerLabel(
   system: UnitSystem = "metric",
 ): DistanceLabel {
   const basis = stepRule(ageYears, uncertaintyYears, metresPerYear, resolutionMetres);
+  const e = ruleStepExponent();
+  if (unit === undefined && e >= -30 && e <= 30) return labelOnPowerGrid(fromOlder, fromYounger, e, basis, ruleUncertainty(), system === "us");
   return labelOnGrid(fromOlder, fromYounger, ruleStep(), basis, ruleUncertainty(), unit, system);
+}
+
+/** labelOnGrid for a step 10^e (−30 ≤ e ≤ 30) in a unit of the system's choosing, its grid read from the tables. */
+function labelOnPowerGrid(fromOlder: number, fromYounger: number, e: number, basis: RoundingBasis, uncertaintyMetres: number | null, us: boolean): DistanceLabel {
+  const stepMetres = pow10(e);
+  const grid = us ? US_GRID : METRIC_GRID;
+  const larger = Math.abs(fromOlder > fromYounger ? fromOlder : fromYounger);
+  let k = autoIndex(larger > stepMetres ? larger : stepMetres, us);
+  const top = grid.top[e + 30];
+  k = centimetresUp(k < top ? k : top, stepMetres, us);
+  const uf = us ? US_METRES[k] : METRIC_METRES[k];
+  const suffix = us ? US_SUFFIX[k] : METRIC_SUFFIX[k];
+  const decimals = grid.decimals[k][e + 30];
+  const q = grid.multiple[k][e + 30];
+  let unc: string | null = null;
+  if (uncertaintyMetres !== null) {
+    // as labelOnGrid: the finer of the ±'s own last place and the step (both powers of ten)
+    const p = uncertaintyPlace(uncertaintyMetres);
+    const ue = (p < e ? p : e) + 30;
+    if (ue >= 0) unc = gridText(uncertaintyMetres / uf, grid.decimals[k][ue], grid.multiple[k][ue], us, suffix, true);
+    else return labelOnGrid(fromOlder, fromYounger, stepMetres, basis, uncertaintyMetres, undefined, us ? "us" : "metric");
+  }
+  return new DistanceLabelRecord(gridText(fromOlder / uf, decimals, q, false, suffix), gridText(fromYounger / uf, decimals, q, false, suffix), unc, stepMetres, basis);
 }
 
 function labelOnGrid(

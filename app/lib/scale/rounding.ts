@@ -95,8 +95,8 @@ export function displayStep(ageYears: number, uncertaintyYears: number | null | 
   return { stepMetres: ruleStep(), basis, uncertaintyMetres: ruleUncertainty() };
 }
 
-/** stepRule's figures: [step, shown ± or NaN without one] (a typed array: no number is boxed per marker). */
-const RULE = new Float64Array(2);
+/** stepRule's figures: [step, shown ± or NaN without one, the step's power of ten or NaN] (a typed array: no number is boxed per marker). */
+const RULE = new Float64Array(3);
 
 /** The step the last stepRule call set, metres. */
 export const ruleStep = (): number => RULE[0];
@@ -104,29 +104,37 @@ export const ruleStep = (): number => RULE[0];
 /** The shown ± the last stepRule call set, or null without one. */
 export const ruleUncertainty = (): number | null => (Number.isNaN(RULE[1]) ? null : RULE[1]);
 
+/** The exponent k of the step the last stepRule call set (step = pow10(k)), or NaN when the medium's resolution set a step that is not a power of ten. */
+export const ruleStepExponent = (): number => RULE[2];
+
 /**
  * The rounding rule (see displayStep) without a result object, for the per-marker hot path: returns
  * the basis; the step and the shown ± are read with ruleStep() and ruleUncertainty() right after.
  */
 export function stepRule(ageYears: number, uncertaintyYears: number | null | undefined, metresPerYear: number, resolutionMetres: number): RoundingBasis {
   let step = 0;
+  let exponent = NaN;
   let basis: RoundingBasis = "medium-resolution";
   RULE[1] = NaN;
   if (uncertaintyYears != null && uncertaintyYears > 0) {
     const x = uncertaintyYears * metresPerYear;
-    const k = uncertaintyPlace(x);
-    step = pow10(k);
-    RULE[1] = roundUpAtPlace(x, k);
+    exponent = uncertaintyPlace(x);
+    step = pow10(exponent);
+    RULE[1] = roundUpAtPlace(x, exponent);
     basis = "uncertainty";
   } else if (ageYears !== 0) {
     const ageStepYears = decadeFloor(Math.abs(ageYears)) / 100; // a unit in the 3rd significant figure
-    step = decadeFloor(ageStepYears * metresPerYear);
+    exponent = decadeExponent(ageStepYears * metresPerYear);
+    step = pow10(exponent); // decadeFloor
     basis = "age-significant-figures";
   }
   if (!(step >= resolutionMetres)) {
     step = resolutionMetres;
+    exponent = decadeExponent(step);
+    if (pow10(exponent) !== step) exponent = NaN;
     basis = "medium-resolution";
   }
   RULE[0] = step;
+  RULE[2] = exponent;
   return basis;
 }
