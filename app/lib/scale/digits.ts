@@ -87,8 +87,9 @@ export function digits(n: number, d: number, negative: boolean, suffix = "", plu
   const p = pow10(d);
   const i = Math.floor(n / p);
   const tail = fractionText(n - i * p, d, suffix);
-  if (!plusMinus) return sign + wholeText(i, false) + tail;
-  return sign === "" ? wholeText(i, true) + tail : "± " + sign + wholeText(i, false) + tail;
+  // (a sign is rare: no concatenation with an empty one)
+  if (sign === "") return wholeText(i, plusMinus) + tail;
+  return (plusMinus ? "± " + sign : sign) + wholeText(i, false) + tail;
 }
 
 function formatFixedSlow(x: number, d: number): string {

@@ -57,7 +57,33 @@ export function oneSignificantFigure(x: number): [number, number] {
 /** Exponent of the place of a ±'s last shown figure: its decade, one lower when it leads with 1 or 2. */
 export function uncertaintyPlace(x: number): number {
   const k = decadeExponent(x);
-  return Math.floor(x / pow10(k) + 1e-9) <= 2 ? k - 1 : k;
+  if (k >= -30 && k <= 30) return x < LEADS_WITH_3[k + 30] ? k - 1 : k;
+  return leadsWith1Or2(x, pow10(k)) ? k - 1 : k;
+}
+
+/** The leading-digit test of uncertaintyPlace, on x in the decade of p. */
+function leadsWith1Or2(x: number, p: number): boolean {
+  return Math.floor(x / p + 1e-9) <= 2;
+}
+
+/**
+ * LEADS_WITH_3[k + 30]: the least x for which leadsWith1Or2(x, 10^k) is false. The test is monotone
+ * in x (a quotient, a sum and a floor, each rounded monotonically), so this one comparison decides
+ * exactly as the test's division would (the preview asks it twice per marker); found once, by
+ * bisection on the test itself down to neighbouring doubles.
+ */
+const LEADS_WITH_3 = new Float64Array(61);
+for (let k = -30; k <= 30; k++) {
+  const p = pow10(k);
+  let lo = 2.5 * p; // passes
+  let hi = 3.5 * p; // fails
+  for (;;) {
+    const mid = lo + (hi - lo) / 2;
+    if (mid <= lo || mid >= hi) break;
+    if (leadsWith1Or2(mid, p)) lo = mid;
+    else hi = mid;
+  }
+  LEADS_WITH_3[k + 30] = hi;
 }
 
 /**

@@ -3,7 +3,7 @@
 // wholeStep). Both must give the same label for every power of ten the rule can give, in both unit
 // systems, with and without a ±, and for a resolution that is not a power of ten.
 import { describe, expect, it } from "vitest";
-import { displayStep, distanceLabel, markerLabel, ruleStepExponent, stepRule } from "../../../app/lib/scale/format";
+import { displayStep, distanceLabel, markerLabel, ruleStepExponent, stepRule, uncertaintyPlace } from "../../../app/lib/scale/format";
 
 let seed = 99;
 const rand = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
@@ -41,5 +41,33 @@ describe("a label on a power-of-ten step", () => {
     expect(ruleStepExponent()).toBeNaN(); // the medium's 0.05 m: not a power of ten
     stepRule(0, null, 1e-6, 0.01);
     expect(ruleStepExponent()).toBe(-2);
+  });
+});
+
+describe("the ±'s last place", () => {
+  /** uncertaintyPlace as it was: the decade, and the leading digit by a division. */
+  const byDivision = (x: number) => {
+    const k = Math.floor(Math.log10(x * (1 + 1e-12)));
+    const kk = 10 ** (k + 1) <= x * (1 + 1e-12) ? k + 1 : 10 ** k > x * (1 + 1e-12) ? k - 1 : k;
+    const p = kk >= 0 ? 10 ** kk : 1 / 10 ** -kk;
+    return Math.floor(x / p + 1e-9) <= 2 ? kk - 1 : kk;
+  };
+
+  it("is decided by a comparison exactly as by the division, at and next to every threshold and at random", () => {
+    const xs: number[] = [];
+    for (let k = -30; k <= 30; k++) {
+      const p = k >= 0 ? 10 ** k : 1 / 10 ** -k;
+      // the values around 3 × 10^k, each a double step apart
+      let x = 3 * p * (1 - 4e-9);
+      for (let j = 0; j < 64; j++) {
+        xs.push(x, 3 * p, 3 * p * (1 - 1e-9), 2.999999999 * p, 1 * p, 2 * p, 9.999 * p);
+        x = Math.min(3 * p * (1 + 4e-9), x + x * 1.3e-10);
+      }
+      for (let j = 0; j < 200; j++) xs.push(p * (1 + 9 * rand()));
+    }
+    for (const x of xs) expect(uncertaintyPlace(x), `x = ${x}`).toBe(byDivision(x));
+    expect(uncertaintyPlace(0.011)).toBe(-3); // leads with 1: two figures
+    expect(uncertaintyPlace(0.054)).toBe(-2);
+    expect(uncertaintyPlace(2.9999999999)).toBe(0); // within 1e-9 of 3: counts as 3, one figure
   });
 });
