@@ -140,15 +140,23 @@ export function roundScaled(a: number, k: number): number {
   // fl + ½ is a double (p < 2⁵²) and rounding to nearest is monotonic: when p lies above it (below
   // it) the exact product does too. Only p landing on the half itself needs the exact product.
   if (d !== 0) return d > 0 ? fl + 1 : fl;
+  return roundScaledOnHalf(a, b, p, fl);
+}
+
+/**
+ * roundScaled when a·b rounded to p = fl + ½: the exact product decides (kept apart, so that the
+ * common case stays small enough for the engine to inline where labels and walking figures call it).
+ */
+function roundScaledOnHalf(a: number, b: number, p: number, fl: number): number {
   let t = SPLIT * a;
   const ah = t - (t - a);
   const al = a - ah;
   t = SPLIT * b;
   const bh = t - (t - b);
   const bl = b - bh;
-  const err = ah * bh - p + ah * bl + al * bh + al * bl; // exact product = p + err
-  if (d > -err) return fl + 1;
-  if (d < -err) return fl;
+  const err = ah * bh - p + ah * bl + al * bh + al * bl; // exact product = p + err = fl + ½ + err
+  if (err > 0) return fl + 1;
+  if (err < 0) return fl;
   return -1;
 }
 
