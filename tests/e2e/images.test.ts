@@ -58,7 +58,8 @@ describe("marker images", () => {
     await attach.click();
     const img = page.locator(`[data-image-target="${markerId}"] figure img`);
     await img.waitFor({ timeout: 20_000 });
-    await expect.poll(() => img.evaluate((el) => (el as HTMLImageElement).complete && (el as HTMLImageElement).naturalWidth > 0)).toBe(true);
+    // (the image comes from storage through the app: on a loaded machine it takes more than expect.poll's default second)
+    await expect.poll(() => img.evaluate((el) => (el as HTMLImageElement).complete && (el as HTMLImageElement).naturalWidth > 0), { timeout: 15_000 }).toBe(true);
     expect(await img.getAttribute("alt")).toBe("The quarry face above the corridor: grey shale beds with a pale ash band.");
     await img.scrollIntoViewIfNeeded();
     await shot(page, "images-marker-with-image");
