@@ -84,12 +84,24 @@ function wholeText(i: number, plusMinus: boolean): string {
 export function digits(n: number, d: number, negative: boolean, suffix = "", plusMinus = false): string {
   const sign = negative && n !== 0 ? "−" : "";
   if (d === 0) return (plusMinus ? "± " : "") + sign + group(String(n)) + suffix;
+  if (n < 2_147_483_648 && d <= 9) {
+    // in 32-bit integers (no number here is boxed when passed on)
+    const p = POW10_INT[d];
+    const i = (n / p) | 0;
+    return joined(sign, plusMinus, wholeText(i, plusMinus && sign === ""), fractionText((n | 0) - i * p, d, suffix));
+  }
   const p = pow10(d);
   const i = Math.floor(n / p);
-  const tail = fractionText(n - i * p, d, suffix);
-  // (a sign is rare: no concatenation with an empty one)
-  if (sign === "") return wholeText(i, plusMinus) + tail;
-  return (plusMinus ? "± " + sign : sign) + wholeText(i, false) + tail;
+  return joined(sign, plusMinus, wholeText(i, plusMinus && sign === ""), fractionText(n - i * p, d, suffix));
+}
+
+/** 10^d for 0 ≤ d ≤ 9, as 32-bit integers. */
+const POW10_INT = Int32Array.from({ length: 10 }, (_, d) => 10 ** d);
+
+/** A figure's parts joined: the sign (rare: no concatenation with an empty one), the whole part (with its "± " when there is no sign), the decimals and unit. */
+function joined(sign: string, plusMinus: boolean, whole: string, tail: string): string {
+  if (sign === "") return whole + tail;
+  return (plusMinus ? "± " + sign : sign) + whole + tail;
 }
 
 function formatFixedSlow(x: number, d: number): string {

@@ -224,10 +224,33 @@ function labelOnPowerGrid(fromOlder: number, fromYounger: number, e: number, bas
     // as labelOnGrid: the finer of the ±'s own last place and the step (both powers of ten)
     const p = uncertaintyPlace(uncertaintyMetres);
     const ue = (p < e ? p : e) + 30;
-    if (ue >= 0) unc = gridText(uncertaintyMetres / uf, grid.decimals[k][ue], grid.multiple[k][ue], us, suffix, true);
-    else return labelOnGrid(fromOlder, fromYounger, stepMetres, basis, uncertaintyMetres, undefined, us ? "us" : "metric");
+    if (ue < 0) return labelOnGrid(fromOlder, fromYounger, stepMetres, basis, uncertaintyMetres, undefined, us ? "us" : "metric");
+    const ud = grid.decimals[k][ue];
+    const y = uncertaintyMetres / uf;
+    // gridText's way, the scaled integer worked out here: only integers and strings go to digits()
+    // (a fractional number passed to a call the engine does not inline is boxed, once per call)
+    const n = ud > 0 ? (us ? Math.ceil(y * pow10(ud) - 1e-9) : scaledInteger(y, ud)) : -1;
+    unc = n >= 0 ? gridDigits(n, ud, false, suffix, true) : gridText(y, ud, grid.multiple[k][ue], us, suffix, true);
   }
-  return new DistanceLabelRecord(gridText(fromOlder / uf, decimals, q, false, suffix), gridText(fromYounger / uf, decimals, q, false, suffix), unc, stepMetres, basis);
+  const older = fromOlder / uf;
+  const younger = fromYounger / uf;
+  const nOlder = decimals > 0 ? scaledInteger(older < 0 ? -older : older, decimals) : -1;
+  const nYounger = decimals > 0 ? scaledInteger(younger < 0 ? -younger : younger, decimals) : -1;
+  return new DistanceLabelRecord(
+    nOlder >= 0 ? gridDigits(nOlder, decimals, older < 0, suffix, false) : gridText(older, decimals, q, false, suffix),
+    nYounger >= 0 ? gridDigits(nYounger, decimals, younger < 0, suffix, false) : gridText(younger, decimals, q, false, suffix),
+    unc,
+    stepMetres,
+    basis,
+  );
+}
+
+/**
+ * digits(n, …) for a scaled integer n ≥ 0, passed as a small integer when it is one: the engine
+ * then hands it over untouched, where a fractional-typed number is boxed at every call.
+ */
+function gridDigits(n: number, d: number, negative: boolean, suffix: string, plusMinus: boolean): string {
+  return n < 2_147_483_648 ? digits(n | 0, d, negative, suffix, plusMinus) : digits(n, d, negative, suffix, plusMinus);
 }
 
 function labelOnGrid(

@@ -62,3 +62,26 @@ describe("figures from kept whole parts", () => {
   });
 });
 
+
+describe("digits on either side of 2^31", () => {
+  /** The same figure from the integer's decimal string (BigInt: no floating point at all). */
+  const reference = (n: number, d: number, suffix: string, plusMinus: boolean) => {
+    const s = BigInt(n).toString().padStart(d + 1, "0");
+    const whole = s.slice(0, s.length - d).replace(/\B(?=(\d{3})+(?!\d))/g, ",");
+    return (plusMinus ? "± " : "") + whole + "." + s.slice(s.length - d) + suffix;
+  };
+
+  it("reads the same from 32-bit integers (n < 2^31, up to 9 decimals) as from any integer", () => {
+    let seed = 31;
+    const rand = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
+    const ns = [0, 1, 9, 10, 999, 1000, 2 ** 31 - 1, 2 ** 31, 2 ** 31 + 1, 2 ** 32, 4e15];
+    for (let k = 0; k < 3000; k++) ns.push(Math.floor(10 ** (15.5 * rand())));
+    for (const n of ns) {
+      for (let d = 1; d <= 12; d++) {
+        for (const [suffix, plusMinus] of [[" km", false], [" m", true], ["", false]] as const) {
+          expect(digits(n, d, false, suffix, plusMinus), `${n} ${d}`).toBe(reference(n, d, suffix, plusMinus));
+        }
+      }
+    }
+  });
+});
