@@ -7,7 +7,7 @@ import { GEO, EX, EY, EZ, FRAME, LAT, LON, E2, INV_R2_FACTOR, ONE_MINUS_E2_SQ, c
 import { geodesicDirect, geodesicInverse } from "./geodesic";
 import { CHORD_LIMIT_M, VERTEX_RECORD, VERTEX_TERMS, type PreparedRoute } from "./route-prepare";
 import { BEARING_END, BEARING_START, C_BEARING, C_LAT, C_LON, SEGMENT_TERMS, shortWay, segmentTerms } from "./route-segment";
-import { SegmentCursor, segmentIndexAt } from "./route-search";
+import { cursorState, nextSegment, segmentIndexAt } from "./route-search";
 
 export interface RoutePosition {
   /** Requested distance from the start (clamped to [0, total]), metres. */
@@ -42,7 +42,7 @@ export function positionAt(route: PreparedRoute, distanceMetres: number, segment
 
 /**
  * Positions for many distances at once. Distances are taken in increasing order (sorted once
- * unless already monotone) and the route is walked in a single forward pass (SegmentCursor).
+ * unless already monotone) and the route is walked in a single forward pass (nextSegment).
  * Results are written in input order into `out` (length ≥ distances.length).
  */
 export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>, out: RoutePositions): RoutePositions {
@@ -59,11 +59,11 @@ export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>
     order = Uint32Array.from(idx);
   }
   const total = route.totalMetres;
-  const cursor = new SegmentCursor(route);
+  const state = cursorState();
   for (let j = 0; j < m; j++) {
     const k = order ? order[j] : up ? j : m - 1 - j;
     const d = Math.min(Math.max(distances[k], 0), total);
-    const i = cursor.next(d);
+    const i = nextSegment(route, d, state);
     placeAt(route, d, i, out, k);
     if (out.segment) out.segment[k] = i;
   }
