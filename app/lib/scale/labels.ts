@@ -166,13 +166,16 @@ export interface DistanceLabel {
 }
 
 /** A DistanceLabel, made by `new` (records.ts: a plain object the engine does not pretenure). */
-const DistanceLabelRecord = plainRecord(function (this: DistanceLabel, fromOlderEnd: string, fromYoungerEnd: string, uncertainty: string | null, stepMetres: number, basis: RoundingBasis) {
-  this.fromOlderEnd = fromOlderEnd;
-  this.fromYoungerEnd = fromYoungerEnd;
-  this.uncertainty = uncertainty;
-  this.stepMetres = stepMetres;
-  this.basis = basis;
-});
+const DistanceLabelRecord = plainRecord(
+  function (this: DistanceLabel, fromOlderEnd: string, fromYoungerEnd: string, uncertainty: string | null, stepMetres: number, basis: RoundingBasis) {
+    this.fromOlderEnd = fromOlderEnd;
+    this.fromYoungerEnd = fromYoungerEnd;
+    this.uncertainty = uncertainty;
+    this.stepMetres = stepMetres;
+    this.basis = basis;
+  },
+  ["", "", null, 0.5, "uncertainty"],
+);
 
 const UNITS = Object.keys(UNIT_METRES) as LengthUnit[];
 const IS_METRIC = Object.fromEntries(UNITS.map((u) => [u, METRIC.includes(u)])) as Readonly<Record<LengthUnit, boolean>>;

@@ -12,10 +12,29 @@
  *
  * The objects are plain all the same: the constructors' prototype is Object.prototype, so JSON,
  * structuredClone and React Router's data encoding treat them as object literals.
+ *
+ * Each kind keeps a few objects of its shapes alive for good (`shapes`, made once when the module
+ * loads, from fixed values). An object's shape (V8's map) is reached from the constructor only
+ * weakly, and the engine drops the code it compiled for a shape when a full collection finds no
+ * object of it alive — as it does on a server between requests, or in the composer benchmark's
+ * collection before each block, which recompiled the per-marker code every round. The kept
+ * objects hold field values of the kinds the real ones hold (fractions where they hold fractions,
+ * null where they may hold null), so that they share their shapes.
  */
 
-/** A constructor of plain objects (prototype Object.prototype) from a function that sets the fields. */
-export function plainRecord<A extends unknown[], T extends object>(init: (this: T, ...args: A) => void): new (...args: A) => T {
+/** The objects that keep the records' shapes alive. */
+const KEPT_SHAPES: object[] = [];
+
+/** The kept objects (for tests/unit/scale/record-shapes.test.ts, which checks that they share the real results' shapes). */
+export const keptShapes = (): readonly object[] => KEPT_SHAPES;
+
+/**
+ * A constructor of plain objects (prototype Object.prototype) from a function that sets the fields;
+ * `shapes`: argument lists for one object of each shape the kind takes, kept alive for good.
+ */
+export function plainRecord<A extends unknown[], T extends object>(init: (this: T, ...args: A) => void, ...shapes: A[]): new (...args: A) => T {
   (init as unknown as { prototype: object }).prototype = Object.prototype;
-  return init as unknown as new (...args: A) => T;
+  const Record = init as unknown as new (...args: A) => T;
+  for (const args of shapes) KEPT_SHAPES.push(new Record(...args));
+  return Record;
 }

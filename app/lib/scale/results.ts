@@ -121,56 +121,69 @@ export interface ScaleResult {
 
 // The per-marker results, made by `new` (records.ts: plain objects the engine does not pretenure).
 
+export const LonLat = plainRecord(
+  function (this: { lon: number; lat: number }, lon: number, lat: number) {
+    this.lon = lon;
+    this.lat = lat;
+  },
+  [0.5, 0.5],
+);
+
+export const Placement = plainRecord(
+  function (this: InsetPlacement, insetId: string, fromOlderEndMetres: number, fromYoungerEndMetres: number, uncertaintyMetres: number | null, display: DistanceLabel) {
+    this.insetId = insetId;
+    this.fromOlderEndMetres = fromOlderEndMetres;
+    this.fromYoungerEndMetres = fromYoungerEndMetres;
+    this.uncertaintyMetres = uncertaintyMetres;
+    this.display = display;
+  },
+  ["", 0.5, 0.5, null, {} as DistanceLabel],
+);
+
+/** A point on no inset: one list for all of them (most markers lie outside every inset). */
+export const NO_INSETS: readonly InsetPlacement[] = Object.freeze([]);
+
 /**
  * A point: on a route with its place, bearing and walking figures (`position` given), else without
  * them; the label last, and only when the request has one. Every point of a result has the same
  * fields in the same order.
  */
-export const Point = plainRecord(function (
-  this: PointResult,
-  id: string,
-  number: number,
-  ageYears: number,
-  uncertaintyYears: number | null,
-  fromOlderEndMetres: number,
-  fromYoungerEndMetres: number,
-  uncertaintyMetres: number | null,
-  display: DistanceLabel,
-  insets: readonly InsetPlacement[],
-  position: { lon: number; lat: number } | undefined,
-  bearing: number,
-  walking: Walking | undefined,
-  label: string | undefined,
-) {
-  this.id = id;
-  this.number = number;
-  this.ageYears = ageYears;
-  this.uncertaintyYears = uncertaintyYears;
-  this.fromOlderEndMetres = fromOlderEndMetres;
-  this.fromYoungerEndMetres = fromYoungerEndMetres;
-  this.uncertaintyMetres = uncertaintyMetres;
-  this.display = display;
-  this.insets = insets;
-  if (position !== undefined) {
-    this.position = position;
-    this.bearing = bearing;
-    this.walking = walking;
-  }
-  if (label !== undefined) this.label = label;
-});
-
-export const LonLat = plainRecord(function (this: { lon: number; lat: number }, lon: number, lat: number) {
-  this.lon = lon;
-  this.lat = lat;
-});
-
-export const Placement = plainRecord(function (this: InsetPlacement, insetId: string, fromOlderEndMetres: number, fromYoungerEndMetres: number, uncertaintyMetres: number | null, display: DistanceLabel) {
-  this.insetId = insetId;
-  this.fromOlderEndMetres = fromOlderEndMetres;
-  this.fromYoungerEndMetres = fromYoungerEndMetres;
-  this.uncertaintyMetres = uncertaintyMetres;
-  this.display = display;
-});
-
-/** A point on no inset: one list for all of them (most markers lie outside every inset). */
-export const NO_INSETS: readonly InsetPlacement[] = Object.freeze([]);
+export const Point = plainRecord(
+  function (
+    this: PointResult,
+    id: string,
+    number: number,
+    ageYears: number,
+    uncertaintyYears: number | null,
+    fromOlderEndMetres: number,
+    fromYoungerEndMetres: number,
+    uncertaintyMetres: number | null,
+    display: DistanceLabel,
+    insets: readonly InsetPlacement[],
+    position: { lon: number; lat: number } | undefined,
+    bearing: number,
+    walking: Walking | undefined,
+    label: string | undefined,
+  ) {
+    this.id = id;
+    this.number = number;
+    this.ageYears = ageYears;
+    this.uncertaintyYears = uncertaintyYears;
+    this.fromOlderEndMetres = fromOlderEndMetres;
+    this.fromYoungerEndMetres = fromYoungerEndMetres;
+    this.uncertaintyMetres = uncertaintyMetres;
+    this.display = display;
+    this.insets = insets;
+    if (position !== undefined) {
+      this.position = position;
+      this.bearing = bearing;
+      this.walking = walking;
+    }
+    if (label !== undefined) this.label = label;
+  },
+  // on a route and on a length, with a label and without
+  ["", 1, 0.5, null, 0.5, 0.5, null, {} as DistanceLabel, NO_INSETS, new LonLat(0.5, 0.5), 0.5, {} as Walking, ""],
+  ["", 1, 0.5, null, 0.5, 0.5, null, {} as DistanceLabel, NO_INSETS, new LonLat(0.5, 0.5), 0.5, {} as Walking, undefined],
+  ["", 1, 0.5, null, 0.5, 0.5, null, {} as DistanceLabel, NO_INSETS, undefined, 0, undefined, ""],
+  ["", 1, 0.5, null, 0.5, 0.5, null, {} as DistanceLabel, NO_INSETS, undefined, 0, undefined, undefined],
+);

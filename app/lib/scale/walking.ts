@@ -45,14 +45,17 @@ export interface WalkingSettings {
 }
 
 /** A Walking, made by `new` (records.ts: a plain object the engine does not pretenure). */
-const WalkingRecord = plainRecord(function (this: Walking, distanceFromStartMetres: number, seconds: number, accessibleSeconds: number, steps: number, stepsUpTo: number, text: string) {
-  this.distanceFromStartMetres = distanceFromStartMetres;
-  this.seconds = seconds;
-  this.accessibleSeconds = accessibleSeconds;
-  this.steps = steps;
-  this.stepsUpTo = stepsUpTo;
-  this.text = text;
-});
+const WalkingRecord = plainRecord(
+  function (this: Walking, distanceFromStartMetres: number, seconds: number, accessibleSeconds: number, steps: number, stepsUpTo: number, text: string) {
+    this.distanceFromStartMetres = distanceFromStartMetres;
+    this.seconds = seconds;
+    this.accessibleSeconds = accessibleSeconds;
+    this.steps = steps;
+    this.stepsUpTo = stepsUpTo;
+    this.text = text;
+  },
+  [0.5, 0.5, 0.5, 1, 1, ""],
+);
 
 /** Walking figures for a distance from the start of the route, metres. */
 export function walkingAt(d: number, w: WalkingSettings): Walking {

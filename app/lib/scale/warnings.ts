@@ -257,11 +257,14 @@ interface Named {
 }
 
 /** A WarningMarker, made by `new` (records.ts: a crowding warning can name every marker, on every keystroke). */
-const Marker = plainRecord(function (this: WarningMarker, id: string, number: number, label: string) {
-  this.id = id;
-  this.number = number;
-  this.label = label;
-});
+const Marker = plainRecord(
+  function (this: WarningMarker, id: string, number: number, label: string) {
+    this.id = id;
+    this.number = number;
+    this.label = label;
+  },
+  ["", 1, ""],
+);
 
 /**
  * Markers as warnings name them, in table order (by number, then id): points[from, to), which
