@@ -250,17 +250,17 @@ export async function removeMember(organisation: Organisation, actor: User, memb
 
 export const RESET_QUEUE = "password-reset-request";
 
+/** RESET_QUEUE (ensureQueue creates it once per server). */
+function resetQueue(boss: PgBoss): Promise<void> {
+  return ensureQueue(boss, RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true });
+}
+
 /**
  * The forgot-password form. Answers the same, after the same work, whether or not the address has
  * an account: the client's request limit (RESET_LIMITS.perClient, else RateLimitedError → 429) and
  * one job in the queue. Whether there is an account, and whether its reset e-mails for the hour are
  * used up, is decided by the job (`sendPasswordReset`), after the answer has gone.
  */
-/** RESET_QUEUE (ensureQueue creates it once per server). */
-function resetQueue(boss: PgBoss): Promise<void> {
-  return ensureQueue(boss, RESET_QUEUE, { name: RESET_QUEUE, retryLimit: 5, retryDelay: 30, retryBackoff: true });
-}
-
 export async function requestPasswordReset(email: string, client: string) {
   await assertResetRequestAllowed(client);
   const boss = await getBoss();

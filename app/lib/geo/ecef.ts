@@ -1,7 +1,8 @@
 /**
  * Earth-centred (ECEF) coordinates on the WGS84 ellipsoid, both ways, for the route code: a vertex
- * to ECEF (vertexEcef), and a point within a few metres of the surface back to latitude and
- * longitude (geodetic, and geodeticNear for a point of a short segment).
+ * to ECEF with its local frame (vertexFrame), the direction of a chord in such a frame
+ * (chordBearing), and a point within a few metres of the surface back to latitude and longitude
+ * (geodetic, and geodeticNear for a point of a segment).
  *
  * Results go into one module scratch array, GEO (a double written to a module variable would be a
  * new heap number each time): the ECEF point (EX, EY, EZ) and its 1 − e² sin²φ (W2); the
@@ -65,11 +66,6 @@ export function vertexFrame(lon: number, lat: number, f: Float64Array, o: number
   f[o + COS_LAT] = cphi;
   f[o + SIN_LON] = slam;
   f[o + COS_LON] = clam;
-}
-
-/** A vertex's frame into GEO (vertexFrame). */
-export function vertexEcef(lon: number, lat: number): void {
-  vertexFrame(lon, lat, GEO, 0);
 }
 
 /** Direction of the chord (dx, dy, dz) in the local east/north frame held in f[o …] (vertexFrame or geodetic), degrees clockwise from north. */
@@ -166,7 +162,7 @@ export function ecefToGeodetic(x: number, y: number, z: number): { lat: number; 
 
 /** geodeticNear for a point near the surface vertex (lon1, lat1) degrees: what placing a marker uses inside a short segment (exported for its tests). */
 export function ecefToGeodeticNear(x: number, y: number, z: number, lon1: number, lat1: number): { lat: number; lon: number } {
-  vertexEcef(lon1, lat1);
+  vertexFrame(lon1, lat1, GEO, 0);
   geodeticNear(x, y, z, GEO[EX], GEO[EY], GEO[EZ], lon1, lat1);
   return { lat: GEO[LAT], lon: normalizeLon(GEO[LON]) };
 }

@@ -107,9 +107,17 @@ function gridValue(y: number, decimals: number, q: number, up: boolean): number 
 function gridText(y: number, decimals: number, q: number, up: boolean, suffix = "", plusMinus = false): string {
   if (decimals > 0) {
     const n = up ? Math.ceil(Math.abs(y) * pow10(decimals) - 1e-9) : scaledInteger(Math.abs(y), decimals);
-    if (n >= 0) return digits(n, decimals, y < 0, suffix, plusMinus);
+    if (n >= 0) return gridDigits(n, decimals, y < 0, suffix, plusMinus);
   }
   return (plusMinus ? "± " : "") + formatFixed(gridValue(y, decimals, q, up), decimals) + suffix;
+}
+
+/**
+ * digits(n, …) for a scaled integer n ≥ 0, passed as a small integer when it is one: the engine
+ * then hands it over untouched, where a fractional-typed number is boxed at every call.
+ */
+function gridDigits(n: number, d: number, negative: boolean, suffix: string, plusMinus: boolean): string {
+  return n < 2_147_483_648 ? digits(n | 0, d, negative, suffix, plusMinus) : digits(n, d, negative, suffix, plusMinus);
 }
 
 /**
@@ -187,7 +195,7 @@ const US_SUFFIX = US.map((u) => UNIT_SUFFIX[u]);
 
 /** The labels of a distance from both ends, with its ± — all in one unit, on one grid. */
 export function distanceLabel(fromOlder: number, fromYounger: number, step: DisplayStep, unit?: LengthUnit, system: UnitSystem = "metric"): DistanceLabel {
-  return labelOnGrid(fromOlder, fromYounger, step.stepMetres, step.basis, step.uncertaintyMetres, unit, system);
+  return labelOnGrid(fromOlder, fromYounger, step.stepMetres, NaN, step.basis, step.uncertaintyMetres, unit, system);
 }
 
 /**
@@ -205,40 +213,80 @@ export function markerLabel(
   system: UnitSystem = "metric",
 ): DistanceLabel {
   const basis = stepRule(ageYears, uncertaintyYears, metresPerYear, resolutionMetres);
-  const e = ruleStepExponent();
-  if (unit === undefined && e >= -30 && e <= 30) return labelOnPowerGrid(fromOlder, fromYounger, e, basis, ruleUncertainty(), system === "us");
-  return labelOnGrid(fromOlder, fromYounger, ruleStep(), basis, ruleUncertainty(), unit, system);
+  return labelOnGrid(fromOlder, fromYounger, ruleStep(), ruleStepExponent(), basis, ruleUncertainty(), unit, system);
 }
 
-/** labelOnGrid for a step 10^e (−30 ≤ e ≤ 30) in a unit of the system's choosing, its grid read from the tables. */
-function labelOnPowerGrid(fromOlder: number, fromYounger: number, e: number, basis: RoundingBasis, uncertaintyMetres: number | null, us: boolean): DistanceLabel {
-  const stepMetres = pow10(e);
-  const grid = us ? US_GRID : METRIC_GRID;
-  const larger = Math.abs(fromOlder > fromYounger ? fromOlder : fromYounger);
-  let k = autoIndex(larger > stepMetres ? larger : stepMetres, us);
-  const top = grid.top[e + 30];
-  k = centimetresUp(k < top ? k : top, stepMetres, us);
-  const uf = us ? US_METRES[k] : METRIC_METRES[k];
-  const suffix = us ? US_SUFFIX[k] : METRIC_SUFFIX[k];
-  const decimals = grid.decimals[k][e + 30];
-  const q = grid.multiple[k][e + 30];
+/**
+ * The labels on the step's grid. A step 10^e (−30 ≤ e ≤ 30; `e` NaN when not known to be one) in a
+ * unit of the system's choosing reads its grid from the tables (powerGrid); any other is worked out.
+ */
+function labelOnGrid(
+  fromOlder: number,
+  fromYounger: number,
+  stepMetres: number,
+  e: number,
+  basis: RoundingBasis,
+  uncertaintyMetres: number | null,
+  unit: LengthUnit | undefined,
+  system: UnitSystem,
+): DistanceLabel {
+  const us = system === "us";
+  const grid = unit === undefined && e >= -30 && e <= 30 ? (us ? US_GRID : METRIC_GRID) : null;
+  let k = 0;
+  let uf: number;
+  let suffix: string;
+  let roundUp: boolean;
+  if (unit) {
+    uf = UNIT_METRES[unit];
+    suffix = UNIT_SUFFIX[unit];
+    roundUp = !IS_METRIC[unit];
+  } else {
+    const larger = Math.abs(fromOlder > fromYounger ? fromOlder : fromYounger);
+    const size = larger > stepMetres ? larger : stepMetres;
+    if (grid !== null) {
+      const top = grid.top[e + 30];
+      const auto = autoIndex(size, us);
+      k = centimetresUp(auto < top ? auto : top, stepMetres, us);
+    } else {
+      k = labelUnitIndex(size, stepMetres, us);
+    }
+    uf = us ? US_METRES[k] : METRIC_METRES[k];
+    suffix = us ? US_SUFFIX[k] : METRIC_SUFFIX[k];
+    roundUp = us;
+  }
+  const stepInUnit = stepMetres / uf;
+  const decimals = grid !== null ? grid.decimals[k][e + 30] : decimalsFor(stepInUnit);
+  const q = grid !== null ? grid.multiple[k][e + 30] : decimals > 0 ? 1 : wholeStep(stepInUnit);
   let unc: string | null = null;
   if (uncertaintyMetres !== null) {
-    // as labelOnGrid: the finer of the ±'s own last place and the step (both powers of ten)
+    // the ± keeps its own figures (rounded up) even when the medium's resolution is coarser;
+    // converted to inches, feet or miles it is rounded up again, never down. Its grid is the finer
+    // of its own last place and the step (both powers of ten)
     const p = uncertaintyPlace(uncertaintyMetres);
     const ue = (p < e ? p : e) + 30;
-    if (ue < 0) return labelOnGrid(fromOlder, fromYounger, stepMetres, basis, uncertaintyMetres, undefined, us ? "us" : "metric");
-    const ud = grid.decimals[k][ue];
+    let ud: number;
+    let uq: number;
+    if (grid !== null && ue >= 0) {
+      ud = grid.decimals[k][ue];
+      uq = grid.multiple[k][ue];
+    } else {
+      const place = pow10(p);
+      const uStep = (place < stepMetres ? place : stepMetres) / uf;
+      ud = decimalsFor(uStep);
+      uq = ud > 0 ? 1 : wholeStep(uStep);
+    }
     const y = uncertaintyMetres / uf;
-    // gridText's way, the scaled integer worked out here: only integers and strings go to digits()
-    // (a fractional number passed to a call the engine does not inline is boxed, once per call)
-    const n = ud > 0 ? (us ? Math.ceil(y * pow10(ud) - 1e-9) : scaledInteger(y, ud)) : -1;
-    unc = n >= 0 ? gridDigits(n, ud, false, suffix, true) : gridText(y, ud, grid.multiple[k][ue], us, suffix, true);
+    const n = ud > 0 ? (roundUp ? Math.ceil(y * pow10(ud) - 1e-9) : scaledInteger(y, ud)) : -1;
+    unc = n >= 0 ? gridDigits(n, ud, false, suffix, true) : gridText(y, ud, uq, roundUp, suffix, true);
   }
+  // gridText's way, its scaled integers worked out here rather than in a call per text: only
+  // integers and strings go on to digits() (a fractional number passed to a call the engine does
+  // not inline is boxed, once per call: measured, 100 bytes more per marker)
   const older = fromOlder / uf;
   const younger = fromYounger / uf;
   const nOlder = decimals > 0 ? scaledInteger(older < 0 ? -older : older, decimals) : -1;
   const nYounger = decimals > 0 ? scaledInteger(younger < 0 ? -younger : younger, decimals) : -1;
+  // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
   return new DistanceLabelRecord(
     nOlder >= 0 ? gridDigits(nOlder, decimals, older < 0, suffix, false) : gridText(older, decimals, q, false, suffix),
     nYounger >= 0 ? gridDigits(nYounger, decimals, younger < 0, suffix, false) : gridText(younger, decimals, q, false, suffix),
@@ -246,50 +294,4 @@ function labelOnPowerGrid(fromOlder: number, fromYounger: number, e: number, bas
     stepMetres,
     basis,
   );
-}
-
-/**
- * digits(n, …) for a scaled integer n ≥ 0, passed as a small integer when it is one: the engine
- * then hands it over untouched, where a fractional-typed number is boxed at every call.
- */
-function gridDigits(n: number, d: number, negative: boolean, suffix: string, plusMinus: boolean): string {
-  return n < 2_147_483_648 ? digits(n | 0, d, negative, suffix, plusMinus) : digits(n, d, negative, suffix, plusMinus);
-}
-
-function labelOnGrid(
-  fromOlder: number,
-  fromYounger: number,
-  stepMetres: number,
-  basis: RoundingBasis,
-  uncertaintyMetres: number | null,
-  unit: LengthUnit | undefined,
-  system: UnitSystem,
-): DistanceLabel {
-  let u: LengthUnit;
-  let uf: number;
-  if (unit) {
-    u = unit;
-    uf = UNIT_METRES[u];
-  } else {
-    const us = system === "us";
-    const larger = Math.abs(fromOlder > fromYounger ? fromOlder : fromYounger);
-    const k = labelUnitIndex(larger > stepMetres ? larger : stepMetres, stepMetres, us);
-    u = us ? US[k] : METRIC[k];
-    uf = us ? US_METRES[k] : METRIC_METRES[k];
-  }
-  const suffix = UNIT_SUFFIX[u];
-  const stepInUnit = stepMetres / uf;
-  const decimals = decimalsFor(stepInUnit);
-  const q = decimals > 0 ? 1 : wholeStep(stepInUnit);
-  let unc: string | null = null;
-  if (uncertaintyMetres !== null) {
-    // the ± keeps its own figures (rounded up) even when the medium's resolution is coarser;
-    // converted to inches, feet or miles it is rounded up again, never down
-    const place = pow10(uncertaintyPlace(uncertaintyMetres));
-    const uStep = (place < stepMetres ? place : stepMetres) / uf;
-    const uDecimals = decimalsFor(uStep);
-    unc = gridText(uncertaintyMetres / uf, uDecimals, uDecimals > 0 ? 1 : wholeStep(uStep), !IS_METRIC[u], suffix, true);
-  }
-  // a step is a power of ten from pow10: already the double nearest it (what clean() would give)
-  return new DistanceLabelRecord(gridText(fromOlder / uf, decimals, q, false, suffix), gridText(fromYounger / uf, decimals, q, false, suffix), unc, stepMetres, basis);
 }

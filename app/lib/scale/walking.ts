@@ -167,18 +167,8 @@ function timesText(seconds: number, slowSeconds: number, speedText: string, tabl
 /** A count's cache slot: the value below 100; from 100, 100 + the power of ten k × 101 + the two figures m (10–100); −1 otherwise. */
 function countKey(n: number): number {
   if (n >= 0 && n < 100) return Number.isInteger(n) ? n : -1;
-  let d: number;
-  if (n >= 100 && n < 2_147_483_648 && n === Math.floor(n)) {
-    // the decade of a 31-bit integer from its bit length: ⌊e·log10 2⌋ (1233/4096 = log10 2 to 5e-6) is it or one below
-    const e = 31 - Math.clz32(n);
-    d = (e * 1233) >> 12;
-    if (n >= pow10(d + 1)) d++;
-  } else if (n >= 100 && Number.isSafeInteger(n)) {
-    d = decadeOf(n);
-  } else {
-    return -1;
-  }
-  const k = d - 1; // n has two more digits than 10^k has zeros (exact: n is an integer)
+  if (!(n >= 100 && Number.isSafeInteger(n))) return -1;
+  const k = decadeOf(n) - 1; // n has two more digits than 10^k has zeros (exact: n is an integer)
   return 100 + k * 101 + Math.round(n / pow10(k));
 }
 const COUNTS_CACHED = 100 + 16 * 101; // k ≤ 15 below 2^53

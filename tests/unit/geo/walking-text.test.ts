@@ -39,7 +39,7 @@ describe("cached walking texts", () => {
       if (formatCountTwoFiguresCached(n) !== formatCountTwoFigures(n)) wrong.push(n);
     }
     expect(wrong).toEqual([]);
-    // (the decade of a count below 2^31 comes from its bit length, above from its exponent: both sides of 2^31 and of each power of ten)
+    // (both sides of each power of ten, where a count's slot changes its power, and of 2^31)
     for (const n of [995, 9950, 99_499, 99_500, 999_999_999, 1e9, 1e9 + 1, 2 ** 31 - 1, 2 ** 31, 2 ** 31 + 1, 9_999_999_999, 1e10, 2 ** 53 - 1, 2 ** 53, 1e20, -5, 0.5, 99.5]) expect(formatCountTwoFiguresCached(n), String(n)).toBe(formatCountTwoFigures(n));
   }, 60_000);
 
