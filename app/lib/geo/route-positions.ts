@@ -44,6 +44,13 @@ export function positionAt(route: PreparedRoute, distanceMetres: number, segment
  * Positions for many distances at once. Distances are taken in increasing order (sorted once
  * unless already monotone) and the route is walked in a single forward pass (nextSegment).
  * Results are written in input order into `out` (length ≥ distances.length).
+ *
+ * Two loops: the segments first, then the places. The search's loop is short, so the processor
+ * reads ahead for several markers at once; on a long route each marker's records are elsewhere in
+ * memory, and when they are not in cache (another program has used it) their reads then overlap
+ * instead of waiting one after the other. The places then read records already fetched. Measured
+ * on 1,000 markers of a 100,000-vertex route with the cache flushed before each call: 0.19–0.22 ms
+ * in one loop, 0.14–0.19 ms in two (0.034 and 0.037 ms when cached).
  */
 export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>, out: RoutePositions): RoutePositions {
   const m = distances.length;
@@ -60,13 +67,12 @@ export function positionsInto(route: PreparedRoute, distances: ArrayLike<number>
   }
   const total = route.totalMetres;
   const state = cursorState();
+  const segs = out.segment ?? new Int32Array(m);
   for (let j = 0; j < m; j++) {
     const k = order ? order[j] : up ? j : m - 1 - j;
-    const d = Math.min(Math.max(distances[k], 0), total);
-    const i = nextSegment(route, d, state);
-    placeAt(route, d, i, out, k);
-    if (out.segment) out.segment[k] = i;
+    segs[k] = nextSegment(route, Math.min(Math.max(distances[k], 0), total), state);
   }
+  for (let k = 0; k < m; k++) placeAt(route, Math.min(Math.max(distances[k], 0), total), segs[k], out, k);
   return out;
 }
 
