@@ -118,6 +118,9 @@ describe("the exhibit composer", () => {
     }
     await span.fill("541");
     await page.getByText("Unsaved settings shown", { exact: false }).waitFor();
+    // the older markers now lie outside the span: named as the table names them, not by request paths or ids
+    await page.locator("#preview-body").getByText(/markers lie outside the span \(541 Ma to the present\): 1 “/).waitFor();
+    expect(await page.locator("#preview-body").innerText()).not.toMatch(/points\.\d|Invalid request|Point "/);
     const pane = await page.getByTestId("preview-pane").boundingBox();
     const field = await span.boundingBox();
     expect(pane && field && pane.y >= 0 && pane.y + pane.height <= field.y).toBe(true);

@@ -166,14 +166,15 @@ describe("composing", () => {
   it.each([
     [{ intent: "add-custom", label: "No source", ageValue: "100", ageUnit: "Ma", source: "" }, "source", /Name the source/],
     [{ intent: "add-custom", label: "", ageValue: "100", ageUnit: "Ma", source: "Someone (2020)" }, "label", /label/],
-    [{ intent: "add-custom", label: "Too old", ageValue: "600", ageUnit: "Ma", source: "Someone (2020)" }, "_form", /outside the span/],
+    // by table number, label and age (not the engine's "points.3.age", a database id or years)
+    [{ intent: "add-custom", label: "Too old", ageValue: "600", ageUnit: "Ma", source: "Someone (2020)" }, "_form", /^Not saved: Marker 1 “Too old” \(600 Ma\) lies outside the span \(538\.8 Ma to the present\)\.$/],
     [{ intent: "add-custom", label: "Bad unit", ageValue: "1", ageUnit: "Myr", source: "Someone (2020)" }, "ageUnit", /age unit/],
     [{ intent: "add-boundaries", intervalName: "Hadean" }, "intervalName", /outside this exhibit's span/],
     [{ intent: "add-boundaries" }, "intervalName", /Choose one interval, or a whole rank/],
     [{ intent: "add-inset", olderValue: "5", olderUnit: "ka", youngerValue: "10", youngerUnit: "ka", magnification: "100" }, "olderValue", /older age must be older/],
     [{ intent: "add-inset", olderValue: "10", olderUnit: "ka", youngerValue: "0", youngerUnit: "ka", magnification: "1" }, "magnification", /greater than 1/],
     [{ intent: "settings", ...wall, lengthValue: "0" }, "lengthValue", /greater than zero/],
-    [{ intent: "settings", ...wall, spanOlderValue: "100" }, "_form", /outside the span|older than/],
+    [{ intent: "settings", ...wall, spanOlderValue: "100" }, "_form", /^Not saved: \d+ markers lie outside the span \(100 Ma to the present\): 1 “[^”]+” \(5\d\d(\.\d+)? Ma\), 2 “/],
   ])("refuses %o (%s) and saves nothing", async (fields, field, message) => {
     const rev = await revisionOf("test-wall");
     const markers = await Marker.count();

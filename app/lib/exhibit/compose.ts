@@ -6,6 +6,7 @@ import { parseGeoJsonRoute } from "../geo/parse";
 import { intervalsAt } from "../timescale/lookup";
 import { toMetres, toYears } from "../units";
 import type { Interval, Rank } from "../timescale/types";
+import { exhibitProblem } from "./problems";
 import type { DurationSpec, ExhibitSpec, LineStringGeometry, ResolvedMarker } from "./types";
 
 /**
@@ -155,7 +156,8 @@ export function computeExhibit(spec: ExhibitSpec, markers: ResolvedMarker[], dur
     return finish({ ...head.request, points: mp.points }, head.route, mp.years);
   }
   const full = parseScaleRequest(measured(scaleRequestFor(spec, markers, durations)));
-  if (!full.ok) return { ok: false, message: full.error.message, issues: full.error.issues };
+  // the engine's issues keep their request paths; the message is in the composer's words
+  if (!full.ok) return { ok: false, message: exhibitProblem(spec, markers, full.error.issues), issues: full.error.issues };
   return finish(full.request, full.route);
 }
 

@@ -14,3 +14,4 @@ export * from "./view";
 export * from "./new-exhibit";
 export * from "./acknowledgements";
 export * from "./combine";
+export * from "./problems";

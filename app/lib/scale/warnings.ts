@@ -76,9 +76,9 @@ export interface WarningInput {
   length: (metres: number) => string;
 }
 
-/** "12 “Base of the Archean”, 13 “Base of the Eoarchean” and 2 more". */
-export function markerNames(markers: readonly WarningMarker[], max = 6): string {
-  const names = markers.slice(0, max).map((m) => `${m.number} “${m.label}”`);
+/** "12 “Base of the Archean”, 13 “Base of the Eoarchean” and 2 more" (`name`: how one marker is written). */
+export function markerNames<M extends Pick<WarningMarker, "number" | "label">>(markers: readonly M[], max = 6, name: (m: M) => string = (m) => `${m.number} “${m.label}”`): string {
+  const names = markers.slice(0, max).map(name);
   const rest = markers.length - names.length;
   if (rest > 0) return `${names.join(", ")} and ${rest} more`;
   return names.length > 1 ? `${names.slice(0, -1).join(", ")} and ${names[names.length - 1]}` : names.join("");
