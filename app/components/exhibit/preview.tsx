@@ -11,6 +11,7 @@ import { IntentFields, type FieldError } from "~/components/exhibit/form-bits";
 import { Term } from "~/components/term";
 import { formatAgeMa, formatLength, type Band, type computeExhibit, type ExhibitSpec, type ResolvedMarker, type UnitsPreference } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
+import { formatLengthReadable } from "~/lib/scale/format";
 
 type Preview = ReturnType<typeof computeExhibit>;
 
@@ -75,13 +76,13 @@ export function DurationsSection({ result, units, lifeYears, onLifeYears }: { re
       <ul className="mt-2 space-y-1 font-sans text-sm">
         {result.durations.map((d) => (
           <li key={d.id}>
-            {d.label}: <strong>{formatLength(d.metres, units, d.metres / 1000)}</strong>
+            {d.label}: <strong>{formatLengthReadable(d.metres, 3, units)}</strong>
             {d.visible ? "" : " — too small to see at this scale"}
             {d.insets.map((ins) => (
               <span key={ins.insetId} className="text-ink-soft">
                 {" · "}
                 {ins.covers
-                  ? `${formatLength(ins.metres, units, ins.metres / 1000)} ${d.located ? "in" : "at the scale of"} the inset “${insetLabel.get(ins.insetId) ?? ins.insetId}”`
+                  ? `${formatLengthReadable(ins.metres, 3, units)} ${d.located ? "in" : "at the scale of"} the inset “${insetLabel.get(ins.insetId) ?? ins.insetId}”`
                   : ins.text}
               </span>
             ))}
