@@ -2,7 +2,7 @@
 // new exhibit may be pinned to.
 import { Op } from "sequelize";
 import { currentEditionFor, listEditions } from "../editions.server.ts";
-import { formatLength, type ExhibitListRow } from "../../app/lib/exhibit/index.ts";
+import { formatLengthAsGiven, type ExhibitListRow } from "../../app/lib/exhibit/index.ts";
 import { toMetres } from "../../app/lib/units/index.ts";
 import { ChartEdition, Exhibit, ExhibitMedium, Marker, User } from "../../db/models/index.ts";
 import { sequelize } from "../db.server.ts";
@@ -33,7 +33,7 @@ export async function listExhibits(organisationId: number): Promise<ExhibitListR
       title: e.title,
       medium: m.kind === "route" ? `route (${m.mediumType})` : m.mediumType,
       metres,
-      length: formatLength(metres, e.unitsPreference, metres / 1e5),
+      length: formatLengthAsGiven(metres, e.unitsPreference, metres / 1e5),
       edition: e.edition!.label,
       needsRecheck: e.editionId !== current?.id,
       status: e.status,

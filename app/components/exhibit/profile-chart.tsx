@@ -9,6 +9,7 @@ import { scaleLinear } from "@visx/scale";
 import { LinePath } from "@visx/shape";
 import type { LineStringGeometry, UnitsPreference } from "~/lib/exhibit/types";
 import { formatLength } from "~/lib/exhibit/display";
+import { formatLengthReadable } from "~/lib/scale/format";
 import { FLAG_COLOUR, STEEP_COLOUR } from "~/lib/profile/chart";
 import { routeProfile } from "~/lib/profile/profile";
 import { NO_ELEVATIONS, PLANNING_CAUTION } from "~/lib/profile/trailhead";
@@ -52,7 +53,7 @@ export function ProfileChart({ geometry, units }: { geometry: LineStringGeometry
           ))}
           <LinePath data={profile.samples} x={(d) => x(d.distanceMetres)} y={(d) => y(d.smoothedMetres)} stroke="#1f4e79" strokeWidth={2} />
           <AxisLeft scale={y} numTicks={4} tickFormat={(v) => formatLength(Number(v), units, 1)} tickLabelProps={{ fontSize: 12, fill: "#1f2430" }} />
-          <AxisBottom top={H - M.top - M.bottom} scale={x} numTicks={Math.max(2, Math.floor(W / 110))} tickFormat={(v) => formatLength(Number(v), units, 1)} tickLabelProps={{ fontSize: 12, fill: "#1f2430" }} />
+          <AxisBottom top={H - M.top - M.bottom} scale={x} numTicks={Math.max(2, Math.floor(W / 110))} tickFormat={(v) => formatLengthReadable(Number(v), 3, units)} tickLabelProps={{ fontSize: 12, fill: "#1f2430" }} />
         </Group>
       </svg>
       <p className="mt-2">
@@ -63,7 +64,7 @@ export function ProfileChart({ geometry, units }: { geometry: LineStringGeometry
         <ul className="mt-1 list-disc pl-5">
           {flagged.map((s) => (
             <li key={s.fromMetres}>
-              <span className="inline-block h-3 w-3 align-middle" style={{ background: "repeating-linear-gradient(45deg, #e67e22 0 3px, #1a1a1a 3px 4.5px)" }} aria-hidden="true" /> {formatLength(s.fromMetres, units, 1)}–{formatLength(s.toMetres, units, 1)}: {s.direction} {pct(Math.abs(s.runningSlopePercent))} (steepest {pct(s.maxSlopePercent)}) — {s.rule}; rest at the top and bottom.
+              <span className="inline-block h-3 w-3 align-middle" style={{ background: "repeating-linear-gradient(45deg, #e67e22 0 3px, #1a1a1a 3px 4.5px)" }} aria-hidden="true" /> {formatLengthReadable(s.fromMetres, 3, units)}–{formatLengthReadable(s.toMetres, 3, units)}: {s.direction} {pct(Math.abs(s.runningSlopePercent))} (steepest {pct(s.maxSlopePercent)}) — {s.rule}; rest at the top and bottom.
             </li>
           ))}
         </ul>

@@ -24,6 +24,11 @@ export function formatLength(metres: number, units: UnitsPreference, stepMetres 
   return `${formatFixed(v, decimals)} ${unit}`;
 }
 
+/** formatLength without the fraction's trailing zeros, for a length as it was given or measured: "46 m", "10.776 m", "4.567 km" (not "46.000 m"). */
+export function formatLengthAsGiven(metres: number, units: UnitsPreference, stepMetres = 0.001): string {
+  return formatLength(metres, units, stepMetres).replace(/(\.\d*?)0+(?= )/, "$1").replace(/\.(?= )/, "");
+}
+
 /** Decimals that show a step of this size (in the display unit), at most `max`. */
 function decimalsFor(step: number, max = 3) {
   if (!(step > 0)) return max;

@@ -1,7 +1,7 @@
 // Warnings that name markers, insets and durations that tell the truth, same-age markers, US
 // customary units and the words per medium (issue 10). Expected values are hand-worked in the comments.
 import { describe, expect, it } from "vitest";
-import { formatLength } from "../../../app/lib/exhibit/display.ts";
+import { formatLength, formatLengthAsGiven } from "../../../app/lib/exhibit/display.ts";
 import { scaleFromJson, rulerTicks, warningKey, tableNumbers, type ScaleResult } from "../../../app/lib/scale/index.ts";
 
 function run(body: unknown): ScaleResult {
@@ -172,6 +172,17 @@ describe("US customary units", () => {
     const r = run({ span: eon, medium: { kind: "route", geometry }, unitSystem: "us", points: [{ id: "mid", age: { value: 2283.5, unit: "Ma" } }] });
     // MUTCD §4E.06: 0.9 m/s = 2.95 ft/s → "3 ft/s" (the manual's own figure is 3 ft/s)
     expect(r.points[0].walking!.text).toContain("at 3 ft/s)");
+  });
+
+  it("a length as given or measured keeps its figures without trailing zeros (lists, the preview's heading)", () => {
+    expect(formatLengthAsGiven(46, "metric", 46 / 1e5)).toBe("46 m"); // not "46.000 m"
+    expect(formatLengthAsGiven(10.776, "metric", 10.776 / 1e5)).toBe("10.776 m");
+    expect(formatLengthAsGiven(4567.03, "metric", 4567.03 / 1e5)).toBe("4.567 km");
+    expect(formatLengthAsGiven(4560, "metric", 4560 / 1e5)).toBe("4.56 km");
+    expect(formatLengthAsGiven(1000, "metric", 1000 / 1e5)).toBe("1 km");
+    expect(formatLengthAsGiven(1500, "metric", 1)).toBe("1.5 km");
+    expect(formatLengthAsGiven(18.288, "us", 18.288 / 1e5)).toBe("60 ft"); // 18.288 m = 60 ft exactly (0.3048 m per ft)
+    expect(formatLengthAsGiven(8.06e-10, "us", 8.06e-13)).toBe("3.2 × 10⁻⁸ in");
   });
 
   it("an 80-year life never reads 0.00 in", () => {
