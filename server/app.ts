@@ -10,13 +10,13 @@ import type { AddressInfo } from "node:net";
 import path from "node:path";
 import { createRequestHandler } from "@react-router/express";
 import { createRequestHandler as createFetchHandler } from "react-router";
-import compression from "compression";
 import express, { type Request, type Response, type NextFunction } from "express";
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import type { ServerBuild } from "react-router";
 import { pendingMigrations } from "../db/migrator.ts";
 import { CLIENT_IP_HEADER } from "./auth.server.ts";
+import { compressedResponses } from "./compression.server.ts";
 import { closeDatabase, sequelize } from "./db.server.ts";
 import { env } from "./env.server.ts";
 import { logger as appLogger, requestForLog } from "./logger.server.ts";
@@ -102,7 +102,7 @@ export function createApp(options: AppOptions = {}) {
       strictTransportSecurity: env().APP_URL.startsWith("https:"),
     }),
   );
-  app.use(compression());
+  app.use(compressedResponses());
   app.use(publicUrl(env().APP_URL));
   app.use(originGuard(env().APP_URL));
   app.use(privateResponses());
