@@ -25,7 +25,7 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
       <p className="mt-1 font-sans text-sm text-ink-soft">Numbered in visiting order, from the older end. Kinds: <Term id="boundary">boundary</Term> (start of a chart interval), <Term id="event">event</Term> (from the library), <Term id="custom">custom</Term> (an age of your own). Distances are rounded to what the age's <Term id="uncertainty">±</Term> supports.</p>
       {markers.length === 0 ? <p className="mt-2 text-ink-soft">No markers yet. Add the bases of periods, events from the library, or ages of your own below.</p> : (
         <div className="md:overflow-x-auto">
-        <table className="table-cards mt-3 w-full text-left font-sans text-sm">
+        <table className="table-cards table-cards-paired mt-3 w-full text-left font-sans text-sm">
           <thead className="border-b border-rule">
             <tr>
               <th className="p-2">#</th><th className="p-2">Label</th><th className="p-2">Kind</th><th className="p-2">Age</th><th className="p-2">From start</th><th className="p-2">To end</th><th className="p-2">±</th>
@@ -38,8 +38,8 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
               const p = byId.get(m.id);
               return (
                 <tr key={m.id} id={`marker-${m.id}`} className={`scroll-mt-[58vh] border-b border-rule align-top last:border-0 target:outline-3 target:outline-sandstone-500 ${flagged.has(m.id) ? "bg-red-50" : ""}`}>
-                  <td className="num p-2" data-label="#"><span className="mr-1 inline-block h-3 w-3 rounded-sm border border-ink/30 align-middle" style={{ background: m.color }} aria-hidden="true" />{m.number}{flagged.has(m.id) ? <span className="ml-1 whitespace-nowrap rounded bg-danger px-1 text-xs font-semibold text-white">too close</span> : null}</td>
-                  <td className="p-2" data-label="Label">
+                  <td className="card-wide num p-2" data-label="#"><span className="mr-1 inline-block h-3 w-3 rounded-sm border border-ink/30 align-middle" style={{ background: m.color }} aria-hidden="true" />{m.number}{flagged.has(m.id) ? <span className="ml-1 whitespace-nowrap rounded bg-danger px-1 text-xs font-semibold text-white">too close</span> : null}</td>
+                  <td className="card-wide p-2" data-label="Label">
                     <span className="font-semibold">{m.label}</span>
                     <div className="text-xs text-ink-soft">{m.source}</div>
                     {m.html ? <div className="prose-sm mt-1 text-xs" dangerouslySetInnerHTML={{ __html: m.html }} /> : null}
@@ -53,7 +53,7 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
                   <td className="num p-2" data-label="±">{p?.display.uncertainty ?? "—"}</td>
                   {isRoute ? (
                     <>
-                      <td className="num p-2" data-label="Coordinates">{p?.position ? `${p.position.lat.toFixed(6)}, ${p.position.lon.toFixed(6)}` : "—"}</td>
+                      <td className="card-wide num p-2" data-label="Coordinates">{p?.position ? `${p.position.lat.toFixed(6)}, ${p.position.lon.toFixed(6)}` : "—"}</td>
                       <td className="num p-2" data-label="Walk from the start">{p?.walking ? `${Math.round(p.walking.seconds / 60)} min` : "—"}</td>
                     </>
                   ) : null}
