@@ -13,8 +13,8 @@
  * printed, and the last line is one JSON object. Beside them, apart from the targets, each
  * function's fastest call (`fastestCalls`): on a shared machine the route's median moves with what
  * other programs do to the processor's cache (its 100,000 vertex records, 6.4 MB, are read at a
- * thousand places per call; Intl's formatting reads little memory), the fastest calls much less. `node --expose-gc` (as the npm script runs it)
- * lets each block start after a collection.
+ * thousand places per call; Intl's formatting reads little memory), the fastest calls much less.
+ * `node --expose-gc` (as the npm script runs it) lets each block start after a collection.
  */
 import { computeExhibit, routeCacheFor, standardDurations, type ExhibitSpec, type ResolvedMarker } from "../../app/lib/exhibit/index.ts";
 import type { PreparedRoute } from "../../app/lib/geo/route.ts";
@@ -53,7 +53,7 @@ function markers(n: number): ResolvedMarker[] {
  * slower while the young generation grows back (app/lib/scale/README.md). A designer's typing meets
  * the steady state, so each block warms up for at least 60 calls and 100 ms before it is timed.
  */
-function blocks(fs: Record<string, () => unknown>, runs: number, rounds = 5): Record<string, number> {
+function blocks(fs: Record<string, () => unknown>, runs: number, rounds = 5): { median: Record<string, number>; fastest: Record<string, number> } {
   const times: Record<string, number[]> = Object.fromEntries(Object.keys(fs).map((k) => [k, []]));
   for (let r = 0; r < rounds; r++) {
     for (const [k, f] of Object.entries(fs)) {
@@ -68,12 +68,12 @@ function blocks(fs: Record<string, () => unknown>, runs: number, rounds = 5): Re
       if (process.env.BENCH_ROUNDS) console.log(r, k, times[k].slice(-runs).sort((a, b) => a - b)[runs >> 1].toFixed(3));
     }
   }
-  for (const t of Object.values(times)) t.sort((a, b) => a - b);
-  fastest = Object.fromEntries(Object.entries(times).map(([k, t]) => [k, t[0]]));
-  return Object.fromEntries(Object.entries(times).map(([k, t]) => [k, t[Math.floor(t.length / 2)]]));
+  const sorted = Object.entries(times).map(([k, t]) => [k, t.sort((a, b) => a - b)] as const);
+  return {
+    median: Object.fromEntries(sorted.map(([k, t]) => [k, t[Math.floor(t.length / 2)]])),
+    fastest: Object.fromEntries(sorted.map(([k, t]) => [k, t[0]])),
+  };
 }
-/** The fastest call of each function in the last blocks() (printed beside the medians, for the machine's noise). */
-let fastest: Record<string, number> = {};
 
 const geometry = { type: "LineString" as const, coordinates: path(100_000) };
 const route: ExhibitSpec = {
@@ -114,7 +114,7 @@ for (let i = 0; i < 30; i++) {
   todayExhibit(route, ms, oldDurations, todayCache);
   todayExhibit(rope, ms, oldDurations);
 }
-const fast = blocks(
+const { median: fast, fastest: fastestFast } = blocks(
   {
     format1000BaselineMs: baseline,
     route1000CachedMs: () => computeExhibit(route, ms, durations, cache),
@@ -124,8 +124,7 @@ const fast = blocks(
   },
   40,
 );
-const fastestFast = fastest;
-const slow = blocks(
+const { median: slow } = blocks(
   {
     route1000UncachedMs: () => computeExhibit(route, ms, durations),
     todayRoute1000UncachedMs: () => todayExhibit(route, ms, oldDurations),

@@ -11,7 +11,7 @@ import { IntentFields, type FieldError } from "~/components/exhibit/form-bits";
 import { Term } from "~/components/term";
 import { formatAgeMa, formatLength, formatLengthAsGiven, type Band, type computeExhibit, type ExhibitSpec, type ResolvedMarker, type UnitsPreference } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
-import { formatLengthReadable } from "~/lib/scale/format";
+import { formatLengthSig } from "~/lib/scale/format";
 
 type Preview = ReturnType<typeof computeExhibit>;
 
@@ -62,7 +62,6 @@ export function PreviewPane({ title, preview, markers, bands, units, flagged, ol
 }
 
 export function DurationsSection({ result, units, lifeYears, onLifeYears }: { result: ScaleResult; units: UnitsPreference; lifeYears: string; onLifeYears: (value: string) => void }) {
-  const insetLabel = new Map(result.insets.map((i) => [i.id, i.label]));
   return (
     <section className="card" aria-labelledby="durations-h">
       <h2 id="durations-h" className="text-xl">Durations on this scale</h2>
@@ -76,15 +75,11 @@ export function DurationsSection({ result, units, lifeYears, onLifeYears }: { re
       <ul className="mt-2 space-y-1 font-sans text-sm">
         {result.durations.map((d) => (
           <li key={d.id}>
-            {d.label}: <strong>{formatLengthReadable(d.metres, 3, units)}</strong>
+            {d.label}: <strong>{formatLengthSig(d.metres, 3, undefined, units)}</strong>
             {d.visible ? "" : " — too small to see at this scale"}
+            {/* the engine's own words per inset: "8 cm in inset “…”", "… at the scale of inset “…”", or why it is not shown there */}
             {d.insets.map((ins) => (
-              <span key={ins.insetId} className="text-ink-soft">
-                {" · "}
-                {ins.covers
-                  ? `${formatLengthReadable(ins.metres, 3, units)} ${d.located ? "in" : "at the scale of"} the inset “${insetLabel.get(ins.insetId) ?? ins.insetId}”`
-                  : ins.text}
-              </span>
+              <span key={ins.insetId} className="text-ink-soft">{` · ${ins.text}`}</span>
             ))}
           </li>
         ))}

@@ -5,7 +5,7 @@ import { useState } from "react";
 import { Form } from "react-router";
 import { IntentFields, Labelled, SubmitButton, type FieldError } from "~/components/exhibit/form-bits";
 import { Term } from "~/components/term";
-import type { ExhibitSpec, SettingsDraft } from "~/lib/exhibit";
+import { SETTINGS_LABELS, type ExhibitSpec, type SettingsDraft } from "~/lib/exhibit";
 import { LEGIBILITY_DEFAULTS, MEDIUM_TYPES, type MediumType } from "~/lib/scale/legibility";
 import { AGE_UNITS, LENGTH_UNITS } from "~/lib/units";
 
@@ -51,20 +51,20 @@ export function SettingsForm({ spec, draft, setField, revision, err }: { spec: E
         <input type="hidden" name="mediumKind" value={spec.medium.kind} />
         <Labelled label="Title" error={err("settings", "title")}><input name="title" className="field" value={draft.title} onChange={set("title")} /></Labelled>
         <Labelled label="What the exhibit is on"><select name="mediumType" className="field" value={draft.mediumType} onChange={set("mediumType")}>{MEDIUM_TYPES.map((m) => <option key={m} value={m}>{MEDIUM_NAMES[m]}</option>)}</select></Labelled>
-        <Labelled label="Older end (start)" error={err("settings", "spanOlderValue")}>
+        <Labelled label={SETTINGS_LABELS.spanOlder} error={err("settings", "spanOlderValue")}>
           <div className="flex gap-2"><input name="spanOlderValue" inputMode="decimal" className="field" value={draft.spanOlderValue} onChange={set("spanOlderValue")} /><select name="spanOlderUnit" aria-label="Unit of the older end" className="field w-24" value={draft.spanOlderUnit} onChange={set("spanOlderUnit")}>{AGE_UNITS.map((u) => <option key={u}>{u}</option>)}</select></div>
         </Labelled>
-        <Labelled label="Younger end (finish)" error={err("settings", "spanYoungerValue")}>
+        <Labelled label={SETTINGS_LABELS.spanYounger} error={err("settings", "spanYoungerValue")}>
           <div className="flex gap-2"><input name="spanYoungerValue" inputMode="decimal" className="field" value={draft.spanYoungerValue} onChange={set("spanYoungerValue")} /><select name="spanYoungerUnit" aria-label="Unit of the younger end" className="field w-24" value={draft.spanYoungerUnit} onChange={set("spanYoungerUnit")}>{AGE_UNITS.map((u) => <option key={u}>{u}</option>)}</select></div>
         </Labelled>
         {spec.medium.kind === "length" ? (
-          <Labelled label="Length" error={err("settings", "lengthValue")}>
+          <Labelled label={SETTINGS_LABELS.length} error={err("settings", "lengthValue")}>
             <div className="flex gap-2"><input name="lengthValue" inputMode="decimal" className="field" value={draft.lengthValue} onChange={set("lengthValue")} /><select name="lengthUnit" aria-label="Unit of the length" className="field w-24" value={draft.lengthUnit} onChange={set("lengthUnit")}>{LENGTH_UNITS.map((u) => <option key={u}>{u}</option>)}</select></div>
           </Labelled>
         ) : null}
         <Labelled label="Distances in"><select name="unitsPreference" className="field" value={draft.unitsPreference} onChange={set("unitsPreference")}><option value="metric">metric (m, km)</option><option value="us">US customary (ft, mi)</option></select></Labelled>
-        <ThresholdField key={`v-${draft.mediumType}`} name="minVisibleMm" label="Smallest visible length" term="visible-length" mm={draft.minVisibleMm} medium={draft.mediumType} kind="visible" setField={setField} error={err("settings", "minVisibleMm")} />
-        <ThresholdField key={`s-${draft.mediumType}`} name="minSpacingMm" label="Smallest marker spacing" term="spacing" mm={draft.minSpacingMm} medium={draft.mediumType} kind="spacing" setField={setField} error={err("settings", "minSpacingMm")} />
+        <ThresholdField key={`v-${draft.mediumType}`} name="minVisibleMm" label={SETTINGS_LABELS.minVisible} term="visible-length" mm={draft.minVisibleMm} medium={draft.mediumType} kind="visible" setField={setField} error={err("settings", "minVisibleMm")} />
+        <ThresholdField key={`s-${draft.mediumType}`} name="minSpacingMm" label={SETTINGS_LABELS.minSpacing} term="spacing" mm={draft.minSpacingMm} medium={draft.mediumType} kind="spacing" setField={setField} error={err("settings", "minSpacingMm")} />
         <div className="md:col-span-2"><SubmitButton label="Save settings" /></div>
       </Form>
     </section>

@@ -1,6 +1,6 @@
 // How lengths and ages read in the composer and on exports, in the exhibit's units preference.
 import type { UnitsPreference } from "./types";
-import { formatFixed, formatScientific } from "../scale/format";
+import { formatFixed, formatScientific, withoutTrailingZeros } from "../scale/format";
 import { METRES_PER_LENGTH_UNIT, type LengthUnit } from "../units";
 
 /**
@@ -9,7 +9,7 @@ import { METRES_PER_LENGTH_UNIT, type LengthUnit } from "../units";
  * length that would show as 0 keeps two significant figures ("0.0031 in" for an 80-year life on a 4.567 km trail), and
  * below a millionth of the unit it is written in scientific words ("3.1 × 10⁻⁷ in").
  */
-export function formatLength(metres: number, units: UnitsPreference, stepMetres = 0.001): string {
+export function formatLength(metres: number, units: UnitsPreference, stepMetres = 0.001, trimZeros = false): string {
   const m = Math.abs(metres);
   let unit: LengthUnit;
   if (units === "us") unit = m >= METRES_PER_LENGTH_UNIT.mi ? "mi" : m >= METRES_PER_LENGTH_UNIT.ft ? "ft" : "in";
@@ -21,12 +21,13 @@ export function formatLength(metres: number, units: UnitsPreference, stepMetres 
     if (twoFigures > 6) return `${formatScientific(v, 2)} ${unit}`;
     if (Number(Math.abs(v).toFixed(decimals)) === 0) decimals = Math.max(decimals, twoFigures);
   }
-  return `${formatFixed(v, decimals)} ${unit}`;
+  const figure = formatFixed(v, decimals);
+  return `${trimZeros ? withoutTrailingZeros(figure) : figure} ${unit}`;
 }
 
 /** formatLength without the fraction's trailing zeros, for a length as it was given or measured: "46 m", "10.776 m", "4.567 km" (not "46.000 m"). */
 export function formatLengthAsGiven(metres: number, units: UnitsPreference, stepMetres = 0.001): string {
-  return formatLength(metres, units, stepMetres).replace(/(\.\d*?)0+(?= )/, "$1").replace(/\.(?= )/, "");
+  return formatLength(metres, units, stepMetres, true);
 }
 
 /** Decimals that show a step of this size (in the display unit), at most `max`. */

@@ -12,14 +12,23 @@ export interface EngineIssue {
   message: string;
 }
 
-/** The composer's fields, by the request path they fill (settings-form.tsx uses the same labels). */
+/** The labels of the composer's settings fields (settings-form.tsx shows them; the messages below name fields by them). */
+export const SETTINGS_LABELS = {
+  spanOlder: "Older end (start)",
+  spanYounger: "Younger end (finish)",
+  length: "Length",
+  minVisible: "Smallest visible length",
+  minSpacing: "Smallest marker spacing",
+} as const;
+
+/** The composer's fields, by the request path they fill. */
 const FIELDS: readonly [path: string, label: string][] = [
-  ["span.older", "Older end (start)"],
-  ["span.younger", "Younger end (finish)"],
-  ["medium.length", "Length"],
+  ["span.older", SETTINGS_LABELS.spanOlder],
+  ["span.younger", SETTINGS_LABELS.spanYounger],
+  ["medium.length", SETTINGS_LABELS.length],
   ["medium.geometry", "Route"],
-  ["legibility.minVisibleMetres", "Smallest visible length"],
-  ["legibility.minSpacingMetres", "Smallest marker spacing"],
+  ["legibility.minVisibleMetres", SETTINGS_LABELS.minVisible],
+  ["legibility.minSpacingMetres", SETTINGS_LABELS.minSpacing],
 ];
 
 /** An end of the span as the designer typed it: "541 Ma", "11.7 ka"; an age of 0 is the present. */
@@ -27,11 +36,8 @@ function spanEnd(age: ExhibitSpec["spanOlder"]): string {
   return age.value === 0 ? "the present" : `${age.value.toLocaleString("en-GB", { maximumFractionDigits: 6 })} ${age.unit}`;
 }
 
-/** Index and rest of a path under `head` ("points.3.age" under "points" → [3, "age"]), or null. */
-function indexed(path: string, head: string): [number, string] | null {
-  const m = new RegExp(`^${head}\\.(\\d+)(?:\\.(.*))?$`).exec(path);
-  return m ? [Number(m[1]), m[2] ?? ""] : null;
-}
+/** A path into one of the request's lists: "points.3.age" → list "points", index 3, rest "age". */
+const INDEXED = /^(points|insets)\.(\d+)(?:\.(.*))?$/;
 
 /** A field's problem: a number that is not one asks for one; otherwise the engine's reason after the field's label. */
 function fieldProblem(label: string, message: string): string {
@@ -49,34 +55,29 @@ export function exhibitProblems(spec: ExhibitSpec, markers: readonly ResolvedMar
   const rest: string[] = [];
   let order: string | null = null;
   for (const issue of issues) {
-    const field = FIELDS.find(([path]) => issue.path === `${path}.value` || issue.path === `${path}.unit`);
-    if (field) {
-      fields.push(fieldProblem(field[1], issue.message));
-      continue;
-    }
+    // the span's ends in the wrong order: the schema puts it on span.older itself
     if (issue.path === "span.older") {
       order = `The older end (start), ${spanEnd(spec.spanOlder)}, must be older than the younger end (finish), ${spanEnd(spec.spanYounger)}.`;
       continue;
     }
-    const point = indexed(issue.path, "points");
-    const marker = point ? markers[point[0]] : undefined;
-    if (point && marker && point[1] === "age" && /outside the span/.test(issue.message)) {
+    const field = FIELDS.find(([path]) => issue.path === path || issue.path.startsWith(`${path}.`));
+    if (field) {
+      fields.push(fieldProblem(field[1], issue.message));
+      continue;
+    }
+    const [, list, at, within] = INDEXED.exec(issue.path) ?? [];
+    const marker = list === "points" ? markers[Number(at)] : undefined;
+    const insetSpec = list === "insets" ? spec.insets[Number(at)] : undefined;
+    if (marker && within === "age" && /outside the span/.test(issue.message)) {
       outside.push(marker);
-      continue;
-    }
-    if (point && marker) {
+    } else if (marker) {
       rest.push(`Marker ${marker.number} “${marker.label}”: ${issue.message}`);
-      continue;
-    }
-    const inset = indexed(issue.path, "insets");
-    const insetSpec = inset ? spec.insets[inset[0]] : undefined;
-    if (inset && insetSpec) {
+    } else if (insetSpec) {
       const { label, olderMa, youngerMa } = insetSpec;
-      if (!insets.has(inset[0])) insets.set(inset[0], `Inset “${label}” (${formatAgeMa(olderMa)} to ${youngerMa === 0 ? "the present" : formatAgeMa(youngerMa)}): ${issue.message}`);
-      continue;
+      if (!insets.has(Number(at))) insets.set(Number(at), `Inset “${label}” (${formatAgeMa(olderMa)} to ${youngerMa === 0 ? "the present" : formatAgeMa(youngerMa)}): ${issue.message}`);
+    } else {
+      rest.push(issue.message);
     }
-    const known = FIELDS.find(([path]) => issue.path === path || issue.path.startsWith(`${path}.`));
-    rest.push(known ? fieldProblem(known[1], issue.message) : issue.message);
   }
   const span = `(${spanEnd(spec.spanOlder)} to ${spanEnd(spec.spanYounger)})`;
   const named = markerNames(outside, 6, (m) => `${m.number} “${m.label}” (${formatAgeMa(m.ageMa)})`);

@@ -132,14 +132,16 @@ export function formatSig(x: number, n = 3): string {
   if (x === 0) return "0";
   const r = roundSig(x, n);
   const e = Math.floor(Math.log10(Math.abs(r)));
-  let s = formatFixed(r, Math.max(0, n - 1 - e));
-  if (s.includes(".")) {
-    let end = s.length;
-    while (s.charCodeAt(end - 1) === 48) end--; // "0"
-    if (s.charCodeAt(end - 1) === 46) end--; // "."
-    s = s.slice(0, end);
-  }
-  return s;
+  return withoutTrailingZeros(formatFixed(r, Math.max(0, n - 1 - e)));
+}
+
+/** A figure's decimals without their trailing zeros, and without the point when none is left: "3.9400" → "3.94", "46.000" → "46". */
+export function withoutTrailingZeros(s: string): string {
+  if (!s.includes(".")) return s;
+  let end = s.length;
+  while (s.charCodeAt(end - 1) === 48) end--; // "0"
+  if (s.charCodeAt(end - 1) === 46) end--; // "."
+  return s.slice(0, end);
 }
 
 const SUPERSCRIPT = "⁰¹²³⁴⁵⁶⁷⁸⁹";

@@ -4,20 +4,12 @@
 // The markers and exhibits are invented for the tests.
 import { describe, expect, it } from "vitest";
 import { computeExhibit, exhibitProblem, type ExhibitSpec, type ResolvedMarker } from "../../../app/lib/exhibit/index.ts";
+import { custom, rope as ropeOf } from "../review/fixture.ts";
 
-const rope: ExhibitSpec = {
-  spanOlder: { value: 541, unit: "Ma" },
-  spanYounger: { value: 0, unit: "Ma" },
-  medium: { kind: "length", mediumType: "rope", length: { value: 46, unit: "m" }, panelWidth: null },
-  legibility: {},
-  unitsPreference: "metric",
-  insets: [],
-};
+const rope = ropeOf(); // 541 Ma to the present on a 54.1 m rope
 
 /** A custom marker with a database-like id (never shown) and its table number. */
-function marker(id: string, number: number, label: string, ageMa: number): ResolvedMarker {
-  return { id, number, kind: "custom", label, text: "", ageMa, uncertaintyMa: null, intervalName: null, intervalRank: null, eventName: null, source: "test", color: "#888888", approximate: false };
-}
+const marker = (id: string, number: number, label: string, ageMa: number): ResolvedMarker => custom(id, label, ageMa, { number });
 
 const hadean = marker("138", 1, "Oldest rock grains", 4404);
 const cambrian = marker("140", 2, "First shelly fossils", 538.8);
