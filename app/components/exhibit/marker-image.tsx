@@ -141,11 +141,20 @@ function WordsForm({ target, assetId, revision, alt, credit, label }: { target: 
   );
 }
 
-function Chooser({ target, label }: { target: string; label: string }) {
+/** The file types and size an image may have, as words. */
+export const IMAGE_FILES_HINT = `JPEG, PNG, WebP, AVIF or TIFF, up to ${megabytes(MAX_IMAGE_BYTES)}`;
+
+/**
+ * Choose a file or drop one on it. `compact`: one short line (a marker row of the composer's table,
+ * where the table's introduction gives the file types once), `name` saying whose image it is to
+ * screen readers; otherwise a box with the file types.
+ */
+function Chooser({ target, label, compact = false, name }: { target: string; label: string; compact?: boolean; name?: string }) {
   const [over, setOver] = useState(false);
+  const box = compact ? "mt-1 inline-block px-2 py-1" : "mt-2 block w-64 p-2 text-center";
   return (
     <label
-      className={`mt-2 block w-64 cursor-pointer rounded border border-dashed p-2 text-center text-xs ${over ? "border-slate-river-700 bg-sandstone-50" : "border-rule"}`}
+      className={`${box} cursor-pointer rounded border border-dashed text-xs ${over ? "border-slate-river-700 bg-sandstone-50" : "border-rule"}`}
       onDragOver={(e) => (e.preventDefault(), setOver(true))}
       onDragLeave={() => setOver(false)}
       onDrop={(e) => {
@@ -155,7 +164,10 @@ function Chooser({ target, label }: { target: string; label: string }) {
         if (file) start(target, file);
       }}
     >
-      {label} <span className="text-ink-soft">(JPEG, PNG, WebP, AVIF or TIFF, up to {megabytes(MAX_IMAGE_BYTES)})</span>
+      {compact ? <span aria-hidden="true">+ </span> : null}
+      {label}
+      {name ? <span className="sr-only"> for {name}</span> : null}
+      {compact ? null : <span className="text-ink-soft"> ({IMAGE_FILES_HINT})</span>}
       <input
         type="file"
         accept="image/jpeg,image/png,image/webp,image/avif,image/tiff"
@@ -175,8 +187,8 @@ interface LoaderImages {
   images?: { cover: ComposerImage | null; markers: Record<string, ComposerImage> };
 }
 
-/** The image control of one target: a marker id, or "cover". */
-export function ImageControl({ target, revision, canEdit }: { target: string; revision: number; canEdit: boolean }) {
+/** The image control of one target: a marker id (`name`: the marker's number and label, for screen readers), or "cover". */
+export function ImageControl({ target, revision, canEdit, name }: { target: string; revision: number; canEdit: boolean; name?: string }) {
   const data = useRouteLoaderData("routes/studio/exhibits.$slug") as LoaderImages | undefined;
   const image = (target === "cover" ? data?.images?.cover : data?.images?.markers[target]) ?? null;
   const u = useUpload(target);
@@ -233,7 +245,7 @@ export function ImageControl({ target, revision, canEdit }: { target: string; re
               </Form>
             </details>
           ) : (
-            <Chooser target={target} label={target === "cover" ? "Choose or drop a cover image" : "Add an image: choose or drop a file"} />
+            target === "cover" ? <Chooser target={target} label="Choose or drop a cover image" /> : <Chooser target={target} label="Add an image" compact name={name} />
           )}
         </>
       )}

@@ -2,7 +2,7 @@
 // (on routes) coordinates and walking time; designers edit or remove each one in place.
 import { Form } from "react-router";
 import { IntentFields } from "~/components/exhibit/form-bits";
-import { ImageControl } from "~/components/exhibit/marker-image";
+import { IMAGE_FILES_HINT, ImageControl } from "~/components/exhibit/marker-image";
 import { Term } from "~/components/term";
 import { formatAgeMa, formatLength, type ComposerView, type UnitsPreference } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
@@ -22,7 +22,7 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
   return (
     <section className="card" aria-labelledby="markers-h">
       <h2 id="markers-h" className="text-xl">Markers ({markers.length})</h2>
-      <p className="mt-1 font-sans text-sm text-ink-soft">Numbered in visiting order, from the older end. Kinds: <Term id="boundary">boundary</Term> (start of a chart interval), <Term id="event">event</Term> (from the library), <Term id="custom">custom</Term> (an age of your own). Distances are rounded to what the age's <Term id="uncertainty">±</Term> supports.</p>
+      <p className="mt-1 font-sans text-sm text-ink-soft">Numbered in visiting order, from the older end. Kinds: <Term id="boundary">boundary</Term> (start of a chart interval), <Term id="event">event</Term> (from the library), <Term id="custom">custom</Term> (an age of your own). Distances are rounded to what the age's <Term id="uncertainty">±</Term> supports.{canEdit ? ` A marker's image: choose a file or drop one on its “Add an image” (${IMAGE_FILES_HINT}).` : ""}</p>
       {markers.length === 0 ? <p className="mt-2 text-ink-soft">No markers yet. Add the bases of periods, events from the library, or ages of your own below.</p> : (
         <div className="md:overflow-x-auto">
         <table className="table-cards table-cards-paired mt-3 w-full text-left font-sans text-sm">
@@ -44,23 +44,23 @@ export function MarkersTable({ markers, decaySystems, points: byId, flagged, uni
                     <div className="text-xs text-ink-soft">{m.source}</div>
                     {m.html ? <div className="prose-sm mt-1 text-xs" dangerouslySetInnerHTML={{ __html: m.html }} /> : null}
                     {m.howWeKnow ? <p className="mt-1 text-xs text-slate-river-700"><span className="font-semibold">How we know:</span> {m.howWeKnow}</p> : null}
-                    <ImageControl target={m.id} revision={revision} canEdit={canEdit} />
+                    <ImageControl target={m.id} revision={revision} canEdit={canEdit} name={`marker ${m.number}, ${m.label}`} />
                   </td>
                   <td className="p-2" data-label="Kind">{m.kind}</td>
                   <td className="num p-2" data-label="Age">{m.approximate ? "~" : ""}{formatAgeMa(m.ageMa)}{m.uncertaintyMa ? ` ± ${formatAgeMa(m.uncertaintyMa)}` : ""}</td>
-                  <td className="num p-2" data-label="From start">{p ? (units === "metric" ? p.display.fromOlderEnd : formatLength(p.fromOlderEndMetres, units, p.display.stepMetres)) : "—"}</td>
-                  <td className="num p-2" data-label="To end">{p ? (units === "metric" ? p.display.fromYoungerEnd : formatLength(p.fromYoungerEndMetres, units, p.display.stepMetres)) : "—"}</td>
-                  <td className="num p-2" data-label="±">{p?.display.uncertainty ?? "—"}</td>
+                  <td className="num whitespace-nowrap p-2" data-label="From start">{p ? (units === "metric" ? p.display.fromOlderEnd : formatLength(p.fromOlderEndMetres, units, p.display.stepMetres)) : "—"}</td>
+                  <td className="num whitespace-nowrap p-2" data-label="To end">{p ? (units === "metric" ? p.display.fromYoungerEnd : formatLength(p.fromYoungerEndMetres, units, p.display.stepMetres)) : "—"}</td>
+                  <td className="num whitespace-nowrap p-2" data-label="±">{p?.display.uncertainty ?? "—"}</td>
                   {isRoute ? (
                     <>
                       <td className="card-wide num p-2" data-label="Coordinates">{p?.position ? `${p.position.lat.toFixed(6)}, ${p.position.lon.toFixed(6)}` : "—"}</td>
-                      <td className="num p-2" data-label="Walk from the start">{p?.walking ? `${Math.round(p.walking.seconds / 60)} min` : "—"}</td>
+                      <td className="num whitespace-nowrap p-2" data-label="Walk from the start">{p?.walking ? `${Math.round(p.walking.seconds / 60)} min` : "—"}</td>
                     </>
                   ) : null}
                   {canEdit ? (
                     <td className="p-2">
                       <details>
-                        <summary className="cursor-pointer">Edit</summary>
+                        <summary className="cursor-pointer whitespace-nowrap">Edit</summary>
                         <Form method="post" className="mt-2 w-64 max-w-full space-y-2">
                           <IntentFields intent="edit-marker" revision={revision} />
                           <input type="hidden" name="markerId" value={m.id} />
