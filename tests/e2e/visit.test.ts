@@ -103,7 +103,7 @@ describe("accessibility and layout", () => {
 });
 
 describe("no JavaScript needed", () => {
-  it("the marker page reads with JavaScript off: name, age, source, neighbours", async () => {
+  it("the marker page reads with JavaScript off: name, age (its unit in words), source, neighbours", async () => {
     const context = await browser.newContext({ javaScriptEnabled: false, viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     await page.goto(`${BASE}${EXHIBIT}/6`);
@@ -111,6 +111,8 @@ describe("no JavaScript needed", () => {
     expect(await page.locator("h1").textContent()).toBe(m.label);
     const text = await page.locator("main").innerText();
     expect(text).toContain(m.ageText);
+    // the age's unit in plain words, for visitors who do not read "Ga" or "Ma"
+    expect(text).toContain("Ages: Ga = billion years ago, Ma = million years ago, ka = thousand years ago.");
     expect(text).toContain(m.source.slice(0, 40));
     expect(text).toContain(snapshot.markers[4].label);
     expect(text).toContain(snapshot.markers[6].label);

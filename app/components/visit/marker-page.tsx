@@ -42,6 +42,7 @@ export function MarkerPage({ view }: { view: MarkerView }) {
         <dt className="font-semibold">{t.markerSource}</dt>
         <dd className="m-0">{view.source}</dd>
       </dl>
+      <p className="mt-1 text-sm">{t.ageUnitsNote}</p>
 
       {view.html ? <div className="visit-prose mt-4" dangerouslySetInnerHTML={{ __html: view.html }} /> : null}
 
