@@ -28,6 +28,7 @@ export function ExhibitPage({ view }: { view: ExhibitView }) {
               {line}
             </p>
           ))}
+          <p className="text-sm">{t.ageUnitsNote}</p>
         </div>
         {view.scale.durations.length ? (
           <ul className="pl-5">
@@ -50,7 +51,6 @@ export function ExhibitPage({ view }: { view: ExhibitView }) {
           {t.markersHeading}
         </h2>
         {view.walking ? <p className="text-[0.95rem]">{view.walking.total}</p> : null}
-        <p className="text-sm">{t.ageUnitsNote}</p>
         <MarkerList rows={view.rows} t={t} />
         <p className="text-sm">{t.uncertaintyNote}</p>
         {view.walking ? <p className="text-sm">{view.walking.note}</p> : null}
