@@ -62,6 +62,9 @@ describe("exhibit and marker pages read the latest publication", () => {
     expect(view.walking!.note).toContain("MUTCD §4E.06");
     expect(view.scale.lines[0]).toBe(`On this path: ${snapshot.scale.statement.lengthPerTime}.`);
     expect(view.scale.durations.join("\n")).toContain("0.08 mm");
+    // the span's young end at age 0 reads "the present", not "0 Ma" (the demo walk: 4,567 Ma to 0 Ma)
+    expect(view.scale.lines[2]).toBe("The whole path is 4.567 km long and covers 4,567 Ma to the present.");
+    expect(view.stripCaption).toContain("from 4,567 Ma (left) to the present (right)");
     expect(view.cautions).toEqual(snapshot.cautions);
     expect(view.page.checkedLine).toMatch(/^Checked against ICS 2024\/12 by a reviewer on \d{1,2} \w+ \d{4}\.$/);
     expect(view.page.publicationLine).toMatch(/^Publication 1, published /);
@@ -111,6 +114,7 @@ describe("languages", () => {
     expect(view.page.lang).toBe("de");
     expect(view.page.htmlLang).toBe("de");
     expect(view.page.t.markersHeading).toBe("Stationen entlang des Weges");
+    expect(view.stripCaption).toContain("von 4,567 Ma (links) bis heute (rechts)");
     const hadean = snapshot.edition.intervals.find((i) => i.name === "Hadean")!;
     expect(view.strip.rows[0].bands[0].name).toBe(hadean.names.de);
     expect(view.strip.rows[0].bands[0].name).toBe("Hadaikum");

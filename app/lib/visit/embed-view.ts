@@ -21,7 +21,7 @@ export function embedView(snapshot: PublicationSnapshot, page: PageBasics): Embe
     title: fill(t.embedTitle, { exhibit: snapshot.exhibit.title }),
     statement: snapshot.scale.statement.lengthPerTime,
     strip: stripModel(snapshot, page.lang),
-    caption: fill(t.stripCaption, spanEnds(snapshot)),
+    caption: fill(t.stripCaption, spanEnds(snapshot, t)),
     rows: markerRows(snapshot, page.base, t, page.suffix),
     exhibitHref: `${page.base}${page.suffix}`,
   };

@@ -33,7 +33,7 @@ export function exhibitView(snapshot: PublicationSnapshot, page: PageBasics): Ex
     scale: scaleWords(snapshot, t),
     walking: walkingWords(snapshot, t),
     strip: stripModel(snapshot, page.lang),
-    stripCaption: fill(t.stripCaption, spanEnds(snapshot)),
+    stripCaption: fill(t.stripCaption, spanEnds(snapshot, t)),
     rows,
     map: route && coordinates.length > 1 ? routeMapModel(coordinates, placed.map((m) => ({ signNumber: m.signNumber, label: m.label, lon: m.position!.lon, lat: m.position!.lat }))) : null,
     nearest:

@@ -107,18 +107,18 @@ export function markerRows(snapshot: PublicationSnapshot, base: string, t: Messa
   }));
 }
 
-/** "4,567 Ma" and "0 Ma": the span's ends as the designer gave them. */
-export function spanEnds(snapshot: PublicationSnapshot): { older: string; younger: string } {
-  const { older, younger } = snapshot.exhibit.span;
-  return { older: `${older.value.toLocaleString("en-GB")} ${older.unit}`, younger: `${younger.value.toLocaleString("en-GB")} ${younger.unit}` };
+/** "4,567 Ma" and "the present" (an end at age 0), or "66 Ma": the span's ends as the designer gave them. */
+export function spanEnds(snapshot: PublicationSnapshot, t: Messages): { older: string; younger: string } {
+  const end = ({ value, unit }: { value: number; unit: string }) => (value === 0 ? t.presentDay : `${value.toLocaleString("en-GB")} ${unit}`);
+  return { older: end(snapshot.exhibit.span.older), younger: end(snapshot.exhibit.span.younger) };
 }
 
 /** The scale in plain words: "On this path: 1 m per million years." and the durations ("an 80-year life: 80 years = 0.08 mm"). */
 export function scaleWords(snapshot: PublicationSnapshot, t: Messages): { lines: string[]; durations: string[] } {
   const medium = mediumWord(snapshot, t);
   const units = snapshot.exhibit.unitsPreference;
-  const ends = spanEnds(snapshot);
-  const span = `${ends.older} – ${ends.younger}`;
+  const ends = spanEnds(snapshot, t);
+  const span = fill(t.spanFromTo, ends);
   return {
     lines: [
       fill(t.scaleOn, { medium, statement: snapshot.scale.statement.lengthPerTime }),
