@@ -9,6 +9,12 @@ export const MAX_IMAGE_PIXELS = 120_000_000;
 /** Formats recognised from the file's content (never from its name or the browser's type). */
 export const ACCEPTED_FORMATS = ["jpeg", "png", "webp", "avif", "tiff"] as const;
 export type AcceptedFormat = (typeof ACCEPTED_FORMATS)[number];
+/** The accepted formats as designers know them. */
+const FORMAT_NAMES: Record<AcceptedFormat, string> = { jpeg: "JPEG", png: "PNG", webp: "WebP", avif: "AVIF", tiff: "TIFF" };
+/** The file chooser's `accept`: the accepted formats' media types (the server still reads the content). */
+export const ACCEPT_ATTRIBUTE = ACCEPTED_FORMATS.map((f) => `image/${f}`).join(",");
+/** The files an image may be, as words: "JPEG, PNG, WebP, AVIF or TIFF, up to 60 MB". */
+export const IMAGE_FILES_HINT = `${ACCEPTED_FORMATS.slice(0, -1).map((f) => FORMAT_NAMES[f]).join(", ")} or ${FORMAT_NAMES[ACCEPTED_FORMATS[ACCEPTED_FORMATS.length - 1]]}, up to ${MAX_IMAGE_BYTES / 1048576} MB`;
 /** Web sizes (px wide); an image narrower than a size is not enlarged. */
 export const WEB_WIDTHS = [480, 960, 1600] as const;
 export type ServedFormat = "webp" | "jpeg" | "avif";

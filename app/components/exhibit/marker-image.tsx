@@ -5,7 +5,7 @@
 import { useEffect, useState, useSyncExternalStore } from "react";
 import { Form, useRouteLoaderData } from "react-router";
 import { IntentFields } from "~/components/exhibit/form-bits";
-import { ALT_HINT, ALT_MAX, CREDIT_HINT, CREDIT_MAX, fallbackSrc, lacksAlt, MAX_IMAGE_BYTES, srcSetOf, type ComposerImage, type ImageSize } from "~/lib/images";
+import { ACCEPT_ATTRIBUTE, ALT_HINT, ALT_MAX, CREDIT_HINT, CREDIT_MAX, fallbackSrc, IMAGE_FILES_HINT, lacksAlt, MAX_IMAGE_BYTES, srcSetOf, type ComposerImage, type ImageSize } from "~/lib/images";
 
 type Phase = "uploading" | "processing" | "ready" | "failed" | "refused";
 interface Upload {
@@ -141,9 +141,6 @@ function WordsForm({ target, assetId, revision, alt, credit, label }: { target: 
   );
 }
 
-/** The file types and size an image may have, as words. */
-export const IMAGE_FILES_HINT = `JPEG, PNG, WebP, AVIF or TIFF, up to ${megabytes(MAX_IMAGE_BYTES)}`;
-
 /**
  * Choose a file or drop one on it. `compact`: one short line (a marker row of the composer's table,
  * where the table's introduction gives the file types once), `name` saying whose image it is to
@@ -170,7 +167,7 @@ function Chooser({ target, label, compact = false, name }: { target: string; lab
       {compact ? null : <span className="text-ink-soft"> ({IMAGE_FILES_HINT})</span>}
       <input
         type="file"
-        accept="image/jpeg,image/png,image/webp,image/avif,image/tiff"
+        accept={ACCEPT_ATTRIBUTE}
         className="sr-only"
         data-image-input={target}
         onChange={(e) => {

@@ -2,9 +2,10 @@
 // (on routes) coordinates and walking time; designers edit or remove each one in place.
 import { Form } from "react-router";
 import { IntentFields } from "~/components/exhibit/form-bits";
-import { IMAGE_FILES_HINT, ImageControl } from "~/components/exhibit/marker-image";
+import { ImageControl } from "~/components/exhibit/marker-image";
 import { Term } from "~/components/term";
 import { formatAgeMa, formatLength, type ComposerView, type UnitsPreference } from "~/lib/exhibit";
+import { IMAGE_FILES_HINT } from "~/lib/images";
 import type { ScaleResult } from "~/lib/scale/compute";
 
 export interface MarkersTableProps {

@@ -9,7 +9,7 @@ import { ProfileChart } from "~/components/exhibit/profile-chart";
 import { ScaleStrip } from "~/components/exhibit/scale-strip";
 import { IntentFields, type FieldError } from "~/components/exhibit/form-bits";
 import { Term } from "~/components/term";
-import { formatAgeMa, formatLength, formatLengthAsGiven, type Band, type computeExhibit, type ExhibitSpec, type ResolvedMarker, type UnitsPreference } from "~/lib/exhibit";
+import { formatAgeMa, formatLength, formatLengthAsGiven, formatSpanEndMa, type Band, type computeExhibit, type ExhibitSpec, type ResolvedMarker, type UnitsPreference } from "~/lib/exhibit";
 import type { ScaleResult } from "~/lib/scale/compute";
 import { formatLengthSig } from "~/lib/scale/format";
 
@@ -50,7 +50,7 @@ export function PreviewPane({ title, preview, markers, bands, units, flagged, ol
       {preview.ok && result ? (
         <div id="preview-body">
           <p className="mt-1 font-sans text-sm">
-            <strong>{formatLengthAsGiven(result.scale.totalMetres, units, result.scale.totalMetres / 1e5)}</strong> for {formatAgeMa(olderMa)} to {youngerMa === 0 ? "the present" : formatAgeMa(youngerMa)}: {result.scale.statement.lengthPerTime} ({result.scale.statement.timePerLength}).
+            <strong>{formatLengthAsGiven(result.scale.totalMetres, units, result.scale.totalMetres / 1e5)}</strong> for {formatAgeMa(olderMa)} to {formatSpanEndMa(youngerMa)}: {result.scale.statement.lengthPerTime} ({result.scale.statement.timePerLength}).
           </p>
           {shown ? <div className="mt-2"><ScaleStrip result={result} markers={markers} bands={bands} units={units} flagged={flagged} title={`Scale strip of ${title}`} /></div> : null}
         </div>

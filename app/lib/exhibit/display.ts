@@ -44,6 +44,11 @@ export function formatAgeMa(ma: number): string {
   return `${Number((ma * 1e6).toPrecision(6))} a`;
 }
 
+/** The younger end of a span or inset: "the present" at age 0, otherwise formatAgeMa ("66 Ma"). */
+export function formatSpanEndMa(ma: number): string {
+  return ma === 0 ? "the present" : formatAgeMa(ma);
+}
+
 /** Text colour (ink or white) with the better contrast on a background colour. */
 export function inkOn(hex: string): string {
   const c = hex.replace("#", "");

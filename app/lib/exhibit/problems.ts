@@ -3,7 +3,7 @@
 // request paths ("points.0.age"), database ids or ages in years. /api/scale keeps the engine's own
 // message; the composer's preview, its refused saves and the review checks show this one.
 import { markerNames } from "../scale/warnings";
-import { formatAgeMa } from "./display";
+import { formatAgeMa, formatSpanEndMa } from "./display";
 import type { ExhibitSpec, ResolvedMarker } from "./types";
 
 /** One problem the scale engine's request schema found (path: "span.older.value", "points.3.age" …). */
@@ -74,7 +74,7 @@ export function exhibitProblems(spec: ExhibitSpec, markers: readonly ResolvedMar
       rest.push(`Marker ${marker.number} “${marker.label}”: ${issue.message}`);
     } else if (insetSpec) {
       const { label, olderMa, youngerMa } = insetSpec;
-      if (!insets.has(Number(at))) insets.set(Number(at), `Inset “${label}” (${formatAgeMa(olderMa)} to ${youngerMa === 0 ? "the present" : formatAgeMa(youngerMa)}): ${issue.message}`);
+      if (!insets.has(Number(at))) insets.set(Number(at), `Inset “${label}” (${formatAgeMa(olderMa)} to ${formatSpanEndMa(youngerMa)}): ${issue.message}`);
     } else {
       rest.push(issue.message);
     }
