@@ -58,10 +58,14 @@ describe("marker images", () => {
     await attach.click();
     const img = page.locator(`[data-image-target="${markerId}"] figure img`);
     await img.waitFor({ timeout: 20_000 });
-    // (the image comes from storage through the app: on a loaded machine it takes more than expect.poll's default second)
+    // The saved form's redirect brings the page back to its top (the notice is there), about 3,000 px
+    // above the row; the image is lazy, so Chromium fetches it only near the viewport (how near
+    // depends on its estimate of the connection). Look at the row, as the designer would, then wait
+    // for the image (it comes from storage through the app: on a loaded machine that takes more than
+    // expect.poll's default second).
+    await img.scrollIntoViewIfNeeded();
     await expect.poll(() => img.evaluate((el) => (el as HTMLImageElement).complete && (el as HTMLImageElement).naturalWidth > 0), { timeout: 15_000 }).toBe(true);
     expect(await img.getAttribute("alt")).toBe("The quarry face above the corridor: grey shale beds with a pale ash band.");
-    await img.scrollIntoViewIfNeeded();
     await shot(page, "images-marker-with-image");
     await page.locator(`[data-image-target="${markerId}"]`).locator("xpath=ancestor::tr").screenshot({ path: path.join(SHOTS, "images-marker-with-image-row.png") });
     expect(errors).toEqual([]);
